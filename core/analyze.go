@@ -1,0 +1,298 @@
+// Package core is Midrank's statistics core. One entry point, Analyze, serves
+// the command line and the WebAssembly module, and Encode turns its result
+// into the JSON both of them print, so the two answer with the same bytes.
+//
+// The work is split by job: package table reads the text, rank gives midranks,
+// describe summarises each group, kruskal computes the H test and its effect
+// sizes, and report words the decision.
+package core
+
+import (
+	"fmt"
+	"sort"
+
+	"midrank/core/describe"
+	"midrank/core/kruskal"
+	"midrank/core/rank"
+	"midrank/core/report"
+	"midrank/core/table"
+)
+
+// Version is the version of the statistics core, reported in every result.
+const Version = "0.1.0"
+
+// ListLimit is the number of entries up to which the per-value ranking and
+// the tie table are part of the result; larger lists are served in pages by
+// Result.Page.
+const ListLimit = 200_000
+
+// Group is the summary of one group, in input order.
+type Group struct {
+	Label    string  `json:"label"`
+	N        int     `json:"n"`
+	Missing  int     `json:"missing"`
+	RankSum  float64 `json:"rank_sum"`
+	MeanRank float64 `json:"mean_rank"`
+	Median   float64 `json:"median"`
+	Q1       float64 `json:"q1"`
+	Q3       float64 `json:"q3"`
+	Min      float64 `json:"min"`
+	Max      float64 `json:"max"`
+}
+
+// RankedValue is one observation with its rank, for the audit trail.
+type RankedValue struct {
+	Group  string  `json:"group"`
+	Value  float64 `json:"value"`
+	Rank   float64 `json:"rank"`
+	Line   int     `json:"line"`   // 1-based line of the input it came from
+	Shared int     `json:"shared"` // how many observations share this value (1 if untied)
+}
+
+// Input says how the text was read.
+type Input struct {
+	Layout      string `json:"layout"`       // wide or long
+	Separator   string `json:"separator"`    // tab, semicolon or comma
+	DecimalMark string `json:"decimal_mark"` // point or comma
+	Header      bool   `json:"header"`       // long layout: the first line was a header
+	Measure     string `json:"measure"`      // long layout: what the header calls the values
+}
+
+// Result is the complete outcome of an analysis. Its JSON form never holds
+// NaN or Infinity: undefined figures are pointers, and null when nil.
+type Result struct {
+	Version            string        `json:"version"`
+	N                  int           `json:"n"`
+	K                  int           `json:"k"`
+	Missing            int           `json:"missing"`
+	Alpha              float64       `json:"alpha"`
+	Input              Input         `json:"input"`
+	Groups             []Group       `json:"groups"`
+	H                  float64       `json:"h"`
+	HUncorrected       float64       `json:"h_uncorrected"`
+	TieCorrection      float64       `json:"tie_correction"`
+	DF                 int           `json:"df"`
+	PAsymptotic        float64       `json:"p_asymptotic"`
+	PExact             *float64      `json:"p_exact"`
+	PMonteCarlo        *float64      `json:"p_monte_carlo"`
+	PValue             float64       `json:"p_value"`
+	PMethod            string        `json:"p_method"`
+	CriticalValue      float64       `json:"critical_value"`
+	Significant        bool          `json:"significant"`
+	EpsilonSquared     float64       `json:"epsilon_squared"`
+	EpsilonSquaredSize string        `json:"epsilon_squared_size"`
+	EtaSquared         *float64      `json:"eta_squared"`
+	EtaSquaredSize     *string       `json:"eta_squared_size"`
+	QuantileMethod     string        `json:"quantile_method"`
+	Ranks              []RankedValue `json:"ranks"`
+	RanksComplete      bool          `json:"ranks_complete"` // false: ranks is empty, ask Page for them
+	Ties               []rank.Tie    `json:"ties"`
+	TiesTotal          int           `json:"ties_total"`
+	TiesComplete       bool          `json:"ties_complete"` // false: ties is empty, ask Page for them
+	Warnings           []string      `json:"warnings"`
+	Decision           string        `json:"decision"`
+
+	table   *table.Table
+	ranking rank.Ranking
+}
+
+// Analyze reads data with the given options and runs the Kruskal–Wallis test.
+// Errors are *OptionError for unusable settings and *table.Error for data
+// that cannot be analysed.
+func Analyze(data []byte, opt Options) (*Result, error) {
+	s, err := opt.validate()
+	if err != nil {
+		return nil, err
+	}
+	t, err := table.Parse(data, s.read)
+	if err != nil {
+		return nil, err
+	}
+	sizes, err := checkGroups(t)
+	if err != nil {
+		return nil, err
+	}
+	ranking := rank.Midranks(t.Values)
+	if len(ranking.Ties) == 1 && ranking.Ties[0].Count == len(t.Values) {
+		return nil, &table.Error{
+			Reason: fmt.Sprintf("all %d values are equal (%s), so there is nothing to rank", len(t.Values), report.Number(t.Values[0])),
+			Fix:    "the test needs at least two different values"}
+	}
+
+	r := &Result{Version: Version, N: len(t.Values), K: len(t.Labels), Alpha: s.alpha, table: t, ranking: ranking}
+	r.Input = describeInput(t)
+	rankSums := make([]float64, r.K)
+	for i, g := range t.Groups {
+		rankSums[g] += ranking.Ranks[i]
+	}
+	r.Groups = summarise(t, sizes, rankSums, ranking.Order)
+	for _, m := range t.Missing {
+		r.Missing += m
+	}
+
+	test := kruskal.Compute(sizes, rankSums, ranking.TieSum)
+	r.H, r.HUncorrected, r.TieCorrection, r.DF = test.H, test.HUncorrected, test.TieCorrection, test.DF
+	r.PAsymptotic = test.P
+	r.PValue, r.PMethod = test.P, s.pvalue
+	r.CriticalValue = kruskal.CriticalValue(s.alpha, test.DF)
+	r.Significant = report.Significant(r.PValue, s.alpha)
+	r.EpsilonSquared = kruskal.EpsilonSquared(test.H, r.N)
+	r.EpsilonSquaredSize = kruskal.Size(r.EpsilonSquared)
+	if eta, ok := kruskal.EtaSquared(test.H, r.N, r.K); ok {
+		size := kruskal.Size(eta)
+		r.EtaSquared, r.EtaSquaredSize = &eta, &size
+	}
+	r.QuantileMethod = describe.Method
+
+	r.TiesTotal = len(ranking.Ties)
+	r.RanksComplete = r.N <= ListLimit
+	r.Ranks = []RankedValue{}
+	if r.RanksComplete {
+		r.Ranks = r.Page(ListRanks, 0, r.N).Ranks
+	}
+	r.TiesComplete = r.TiesTotal <= ListLimit
+	r.Ties = []rank.Tie{}
+	if r.TiesComplete {
+		r.Ties = ranking.Ties
+	}
+
+	r.Warnings = warnings(r)
+	r.Decision = report.Decision(report.Facts{
+		Labels: t.Labels, Sizes: sizes, Measure: t.Measure,
+		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
+		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
+	})
+	return r, nil
+}
+
+// checkGroups returns the group sizes, or an error when a group has no
+// values or fewer than two groups have any.
+func checkGroups(t *table.Table) ([]int, error) {
+	sizes := make([]int, len(t.Labels))
+	for _, g := range t.Groups {
+		sizes[g]++
+	}
+	for i, s := range sizes {
+		if s == 0 {
+			return nil, &table.Error{Group: t.Labels[i],
+				Reason: fmt.Sprintf("the group has no values (%d missing)", t.Missing[i]),
+				Fix:    "fill in its values, or remove the group from the data"}
+		}
+	}
+	if len(sizes) < 2 {
+		e := &table.Error{
+			Reason: "the data holds fewer than two groups",
+			Fix:    "the test compares two or more groups: give each group its own column under a label (wide layout), or write each value as a line \"group, value\" (long layout)"}
+		if len(sizes) == 1 {
+			e.Group = t.Labels[0]
+			e.Reason = "this is the only group in the data"
+		}
+		return nil, e
+	}
+	return sizes, nil
+}
+
+func describeInput(t *table.Table) Input {
+	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure}
+	switch t.Separator {
+	case '\t':
+		in.Separator = "tab"
+	case ';':
+		in.Separator = "semicolon"
+	default:
+		in.Separator = "comma"
+	}
+	if t.DecimalComma {
+		in.DecimalMark = "comma"
+	}
+	return in
+}
+
+// summarise builds the group summaries. The values of each group, in
+// ascending order, come from one pass over the global sorted order.
+func summarise(t *table.Table, sizes []int, rankSums []float64, order []int32) []Group {
+	start := make([]int, len(sizes)+1)
+	for i, s := range sizes {
+		start[i+1] = start[i] + s
+	}
+	sorted := make([]float64, len(t.Values))
+	next := append([]int(nil), start[:len(sizes)]...)
+	for _, idx := range order {
+		g := t.Groups[idx]
+		sorted[next[g]] = t.Values[idx]
+		next[g]++
+	}
+	groups := make([]Group, len(sizes))
+	for i, s := range sizes {
+		d := describe.Summarise(sorted[start[i]:start[i+1]])
+		groups[i] = Group{
+			Label: t.Labels[i], N: s, Missing: t.Missing[i],
+			RankSum: rankSums[i], MeanRank: rankSums[i] / float64(s),
+			Median: d.Median, Q1: d.Q1, Q3: d.Q3, Min: d.Min, Max: d.Max,
+		}
+	}
+	return groups
+}
+
+func warnings(r *Result) []string {
+	w := []string{}
+	for _, g := range r.Groups {
+		if g.N < report.SmallGroup && r.PMethod == "asymptotic" {
+			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, report.SmallGroup))
+		}
+	}
+	if share := 1 - r.TieCorrection; share > 0.1 {
+		w = append(w, fmt.Sprintf("Ties are heavy (tie correction %s): many values are shared, as on rating scales; the correction is applied.", report.Number(r.TieCorrection)))
+	}
+	return w
+}
+
+// List names a list that Page serves.
+type List string
+
+const (
+	ListRanks List = "ranks"
+	ListTies  List = "ties"
+)
+
+// PageOf is one page of a list: the entries from Offset on.
+type PageOf struct {
+	List   List          `json:"list"`
+	Offset int           `json:"offset"`
+	Total  int           `json:"total"`
+	Ranks  []RankedValue `json:"ranks,omitempty"`
+	Ties   []rank.Tie    `json:"ties,omitempty"`
+}
+
+// Page returns up to count entries of the per-value ranking (in input order)
+// or of the tie table (in ascending order of value), from offset on.
+func (r *Result) Page(list List, offset, count int) PageOf {
+	p := PageOf{List: list, Offset: offset}
+	switch list {
+	case ListRanks:
+		p.Total = r.N
+	case ListTies:
+		p.Total = len(r.ranking.Ties)
+	}
+	offset = min(max(offset, 0), p.Total)
+	end := min(offset+max(count, 0), p.Total)
+	p.Offset = offset
+	if list == ListTies {
+		p.Ties = r.ranking.Ties[offset:end]
+		return p
+	}
+	ties := r.ranking.Ties
+	p.Ranks = make([]RankedValue, 0, end-offset)
+	for i := offset; i < end; i++ {
+		v := r.table.Values[i]
+		shared := 1
+		if j := sort.Search(len(ties), func(j int) bool { return ties[j].Value >= v }); j < len(ties) && ties[j].Value == v {
+			shared = ties[j].Count
+		}
+		p.Ranks = append(p.Ranks, RankedValue{
+			Group: r.table.Labels[r.table.Groups[i]], Value: v, Rank: r.ranking.Ranks[i],
+			Line: int(r.table.Lines[i]), Shared: shared,
+		})
+	}
+	return p
+}

@@ -1,0 +1,144 @@
+package core
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"strings"
+
+	"midrank/core/table"
+)
+
+// Options are the settings of one analysis. The JSON names are the request
+// keys of the WebAssembly module and of share links; the command line's
+// flags carry the same names. Zero values mean the defaults.
+type Options struct {
+	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long
+	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
+	Decimal   string  `json:"decimal,omitempty"`   // auto (default: comma accepted unless comma separates), point
+	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
+	PValue    string  `json:"pvalue,omitempty"`    // asymptotic (default for now); auto, exact, monte-carlo reserved
+	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples (reserved)
+	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed (reserved)
+	PostHoc   string  `json:"posthoc,omitempty"`   // none (default for now); dunn, conover, dscf, mann-whitney reserved
+	Adjust    string  `json:"adjust,omitempty"`    // none (default for now); holm, bonferroni, sidak, hochberg, bh, by reserved
+}
+
+// DefaultAlpha is the significance level used when none is given (common practice).
+const DefaultAlpha = 0.05
+
+// OptionError is a setting that cannot be used.
+type OptionError struct {
+	Option string // the request key, e.g. "alpha"
+	Value  string // the value given
+	Reason string // what is wrong and what to do
+}
+
+func (e *OptionError) Error() string {
+	return fmt.Sprintf("%s %q: %s", e.Option, e.Value, e.Reason)
+}
+
+// The method names each reserved setting will take; the ones not yet built
+// answer "not available yet" so that scripts written now keep working later.
+var (
+	pvalueMethods  = []string{"asymptotic", "auto", "exact", "monte-carlo"}
+	pvalueBuilt    = []string{"asymptotic"}
+	posthocMethods = []string{"none", "dunn", "conover", "dscf", "mann-whitney"}
+	posthocBuilt   = []string{"none"}
+	adjustMethods  = []string{"none", "holm", "bonferroni", "sidak", "hochberg", "bh", "by"}
+	adjustBuilt    = []string{"none"}
+)
+
+// DecodeOptions reads options from JSON, refusing unknown keys so that a
+// misspelt setting is not silently ignored. Empty input means the defaults.
+func DecodeOptions(data []byte) (Options, error) {
+	var o Options
+	if len(bytes.TrimSpace(data)) == 0 {
+		return o, nil
+	}
+	dec := json.NewDecoder(bytes.NewReader(data))
+	dec.DisallowUnknownFields()
+	if err := dec.Decode(&o); err != nil {
+		return o, &OptionError{Option: "options", Value: string(data), Reason: "not valid options JSON (" + err.Error() + ")"}
+	}
+	return o, nil
+}
+
+// settings are validated options in the form the analysis uses.
+type settings struct {
+	read    table.Options
+	alpha   float64
+	pvalue  string
+	posthoc string
+	adjust  string
+}
+
+// validate checks every option and fills in the defaults.
+func (o Options) validate() (settings, error) {
+	s := settings{alpha: o.Alpha, pvalue: o.PValue, posthoc: o.PostHoc, adjust: o.Adjust}
+	layout, ok := table.ParseLayout(o.Layout)
+	if !ok {
+		return s, &OptionError{"layout", o.Layout, "choose auto, wide or long"}
+	}
+	s.read.Layout = layout
+	switch o.Separator {
+	case "", "auto":
+	case "tab":
+		s.read.Separator = '\t'
+	case "semicolon":
+		s.read.Separator = ';'
+	case "comma":
+		s.read.Separator = ','
+	default:
+		return s, &OptionError{"separator", o.Separator, "choose auto, tab, semicolon or comma"}
+	}
+	switch o.Decimal {
+	case "", "auto":
+	case "point":
+		s.read.DecimalPoint = true
+	default:
+		return s, &OptionError{"decimal", o.Decimal, "choose auto or point"}
+	}
+	if s.alpha == 0 {
+		s.alpha = DefaultAlpha
+	}
+	if !(s.alpha > 0 && s.alpha < 1) {
+		return s, &OptionError{"alpha", fmt.Sprint(o.Alpha), "the significance level must lie strictly between 0 and 1, for example 0.05"}
+	}
+	var err error
+	if s.pvalue, err = choose("pvalue", o.PValue, pvalueMethods, pvalueBuilt); err != nil {
+		return s, err
+	}
+	if s.posthoc, err = choose("posthoc", o.PostHoc, posthocMethods, posthocBuilt); err != nil {
+		return s, err
+	}
+	if s.adjust, err = choose("adjust", o.Adjust, adjustMethods, adjustBuilt); err != nil {
+		return s, err
+	}
+	if o.Resamples != 0 {
+		return s, &OptionError{"resamples", fmt.Sprint(o.Resamples), "Monte Carlo p-values are not available yet"}
+	}
+	if o.Seed != nil {
+		return s, &OptionError{"seed", fmt.Sprint(*o.Seed), "Monte Carlo p-values are not available yet"}
+	}
+	return s, nil
+}
+
+// choose checks a method name against the known and the built ones; "" is
+// the first built one.
+func choose(option, value string, known, built []string) (string, error) {
+	if value == "" {
+		return built[0], nil
+	}
+	for _, b := range built {
+		if value == b {
+			return value, nil
+		}
+	}
+	for _, k := range known {
+		if value == k {
+			return "", &OptionError{option, value, fmt.Sprintf("not available yet; use %s", strings.Join(built, " or "))}
+		}
+	}
+	return "", &OptionError{option, value, "choose one of " + strings.Join(known, ", ")}
+}

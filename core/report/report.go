@@ -1,0 +1,126 @@
+// Package report words the outcome of the H test as a plain-language
+// decision that an analyst can paste into a report.
+package report
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+)
+
+// SmallGroup is the group size below which the chi-square approximation is
+// rough (common practice: at least 5 values per group; Kruskal & Wallis
+// 1952, §6, give tables for smaller samples).
+const SmallGroup = 5
+
+// Facts are the figures the decision speaks of.
+type Facts struct {
+	Labels  []string // group labels in group order
+	Sizes   []int    // values per group
+	Measure string   // what was measured, "" when the data does not say
+	H       float64
+	DF      int
+	P       float64
+	Method  string // how p was obtained: "asymptotic", "exact" or "monte-carlo"
+	Alpha   float64
+	Epsilon float64 // ε²
+	Size    string  // ε² in words
+}
+
+// Significant is the decision rule: p ≤ alpha, the rejection region of a
+// level-alpha test.
+func Significant(p, alpha float64) bool { return p <= alpha }
+
+// Decision writes the decision in full sentences: what was compared, the
+// figures, what they mean and do not mean, and the cautions.
+func Decision(f Facts) string {
+	var b strings.Builder
+	n := 0
+	for _, s := range f.Sizes {
+		n += s
+	}
+	measure := "the values"
+	if f.Measure != "" {
+		measure = fmt.Sprintf("%q", f.Measure)
+	}
+	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared on %s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
+		len(f.Labels), listLabels(f.Labels), n, measure)
+	fmt.Fprintf(&b, "It gives H = %s with %d degrees of freedom and %s (%s). ",
+		Number(f.H), f.DF, PValue(f.P), methodWords(f.Method))
+	if Significant(f.P, f.Alpha) {
+		fmt.Fprintf(&b, "At the chosen significance level of %s this is statistically significant: the groups do not all share one distribution, and at least one group tends to have higher or lower values than another. ",
+			Number(f.Alpha))
+		b.WriteString("The test alone does not say which groups differ; compare pairs of groups to find out. ")
+	} else {
+		fmt.Fprintf(&b, "At the chosen significance level of %s this is not statistically significant: the data give no clear evidence that the groups' distributions differ. That is not proof that they are the same; small groups can miss real differences. ",
+			Number(f.Alpha))
+	}
+	fmt.Fprintf(&b, "The effect size ε² = %s is %s by common benchmarks. ", Number(f.Epsilon), f.Size)
+	b.WriteString("The test compares whole distributions; speak of a difference in medians only if the groups' distributions have a similar shape and spread. ")
+	if small := smallGroups(f.Labels, f.Sizes); len(small) > 0 && f.Method == "asymptotic" {
+		fmt.Fprintf(&b, "%s fewer than %d values, so the chi-square approximation behind p is rough; read p with care. ",
+			small, SmallGroup)
+	}
+	b.WriteString(Caution)
+	return b.String()
+}
+
+// Caution is said wherever a result could inform a decision about people.
+const Caution = "Statistical evidence is not a clinical, legal or employment decision: weigh it with the context, follow local rules, and consult qualified professionals."
+
+func methodWords(m string) string {
+	switch m {
+	case "exact":
+		return "exact permutation p-value"
+	case "monte-carlo":
+		return "Monte Carlo estimate of the permutation p-value"
+	}
+	return "chi-square approximation"
+}
+
+// smallGroups lists the groups under SmallGroup values as a sentence subject.
+func smallGroups(labels []string, sizes []int) string {
+	var small []string
+	for i, s := range sizes {
+		if s < SmallGroup {
+			small = append(small, labels[i])
+		}
+	}
+	switch len(small) {
+	case 0:
+		return ""
+	case 1:
+		return fmt.Sprintf("Group %s has", small[0])
+	}
+	return fmt.Sprintf("Groups %s have", listLabels(small))
+}
+
+// listLabels joins labels as "A, B and C", each as written.
+func listLabels(labels []string) string {
+	if len(labels) == 1 {
+		return labels[0]
+	}
+	return strings.Join(labels[:len(labels)-1], ", ") + " and " + labels[len(labels)-1]
+}
+
+// Number formats a figure for prose: four significant digits, one decimal
+// from 1000 up, and an exponent only below 0.0001.
+func Number(v float64) string {
+	switch a := math.Abs(v); {
+	case a != 0 && a < 1e-4:
+		return strconv.FormatFloat(v, 'e', 3, 64)
+	case a >= 1000:
+		return strconv.FormatFloat(v, 'f', 1, 64)
+	}
+	return strconv.FormatFloat(v, 'g', 4, 64)
+}
+
+// PValue formats a p-value for prose: three significant digits, and
+// "p < 0.001" below a thousandth (the full value stays in the figures).
+func PValue(p float64) string {
+	if p < 0.001 {
+		return "p < 0.001"
+	}
+	return "p = " + strconv.FormatFloat(p, 'g', 3, 64)
+}

@@ -1,0 +1,291 @@
+// Package table reads the groups to compare from delimited text, as analysts
+// paste it from a spreadsheet or save it as a file.
+//
+// Two layouts are understood:
+//
+//   - wide: the first record holds the group labels, one column per group, in
+//     column order. A blank cell below the last value of a column is padding; a
+//     blank cell above a value of the same column is a missing value.
+//   - long: two fields per record, the group label then the value. A header
+//     record is optional (it is recognised by a second field that is neither a
+//     number nor a missing marker). Groups keep their order of first appearance.
+//
+// Fields are separated by tab, semicolon or comma (RFC 4180 quoting), detected
+// from the first lines; a decimal comma is accepted when the separator is a
+// tab or a semicolon. The missing markers are the empty cell, NA, N/A, NaN,
+// "." and "-" in any letter case. Records whose cells are all empty are skipped.
+package table
+
+import (
+	"bytes"
+	"fmt"
+)
+
+// Layout names how groups and values are arranged in the text.
+type Layout uint8
+
+const (
+	LayoutAuto Layout = iota // decide from the text (see Detect)
+	LayoutWide               // one column per group, labels in the first record
+	LayoutLong               // one record per value: label, value
+)
+
+var layoutNames = [...]string{"auto", "wide", "long"}
+
+func (l Layout) String() string { return layoutNames[l] }
+
+// ParseLayout maps "auto", "wide" and "long" (or "") to a Layout.
+func ParseLayout(s string) (Layout, bool) {
+	if s == "" {
+		return LayoutAuto, true
+	}
+	for i, n := range layoutNames {
+		if s == n {
+			return Layout(i), true
+		}
+	}
+	return 0, false
+}
+
+// Options steer the reading; the zero value detects everything.
+type Options struct {
+	Layout    Layout
+	Separator byte // '\t', ';' or ','; 0 to detect
+	// DecimalPoint refuses the decimal comma even where it would be accepted.
+	DecimalPoint bool
+}
+
+// Table is what was read: one entry per value in text order, and one entry
+// per group in group order.
+type Table struct {
+	Labels  []string  // group labels, trimmed, as written
+	Missing []int     // missing values per group
+	Values  []float64 // every value, in text order (-0 is stored as 0)
+	Groups  []int32   // group index of each value
+	Lines   []int32   // 1-based line on which each value stands
+
+	Layout       Layout // the layout used (never LayoutAuto)
+	Separator    byte   // the separator used
+	DecimalComma bool   // some value was written with a decimal comma
+	Header       bool   // long layout: the first record was a header
+	Measure      string // long layout: the header's second cell, naming what was measured
+}
+
+// Parse reads text in the given layout. A UTF-8 byte-order mark is ignored.
+// The text is not copied; the returned Table does not refer to it.
+func Parse(data []byte, opt Options) (*Table, error) {
+	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
+	t := &Table{Separator: opt.Separator, Layout: opt.Layout}
+	if t.Separator == 0 {
+		t.Separator = DetectSeparator(data)
+	}
+	switch t.Separator {
+	case '\t', ';', ',':
+	default:
+		return nil, &Error{Reason: fmt.Sprintf("the separator %q is not one of tab, semicolon or comma", t.Separator),
+			Fix: "choose tab, semicolon or comma"}
+	}
+	comma := t.Separator != ',' && !opt.DecimalPoint
+	if t.Layout == LayoutAuto {
+		t.Layout = detectLayout(data, t.Separator, comma)
+	}
+	// One value per line (long) or per line and column (wide) is the common
+	// case; sizing the arrays once avoids regrowing them for large inputs.
+	lines := bytes.Count(data, []byte{'\n'}) + 1
+	p := parser{t: t, r: newReader(data, t.Separator), comma: comma}
+	if t.Layout == LayoutLong {
+		t.reserve(lines)
+		return t, p.long()
+	}
+	return t, p.wide(lines)
+}
+
+func (t *Table) reserve(n int) {
+	t.Values = make([]float64, 0, n)
+	t.Groups = make([]int32, 0, n)
+	t.Lines = make([]int32, 0, n)
+}
+
+func (t *Table) add(v float64, group int, line int) {
+	t.Values = append(t.Values, v)
+	t.Groups = append(t.Groups, int32(group))
+	t.Lines = append(t.Lines, int32(line))
+}
+
+type parser struct {
+	t     *Table
+	r     *reader
+	comma bool
+}
+
+// cell classifies one field and turns text and infinities into errors.
+func (p *parser) cell(f field, column int, group string) (float64, cellKind, *Error) {
+	v, kind, usedComma := parseCell(f.text, p.comma)
+	switch kind {
+	case cellText:
+		return 0, kind, &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+			Reason: fmt.Sprintf("%q is not a number", quoteFound(f.text)),
+			Fix:    "correct the cell, or write NA there to mark the value as missing"}
+	case cellInfinite:
+		return 0, kind, &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+			Reason: fmt.Sprintf("%q is infinite or too large to rank", quoteFound(f.text)),
+			Fix:    "correct the cell, or write NA there to mark the value as missing"}
+	}
+	if usedComma {
+		p.t.DecimalComma = true
+	}
+	return v, kind, nil
+}
+
+func (p *parser) wide(lines int) error {
+	t, r := p.t, p.r
+	ok, err := r.read()
+	if err != nil {
+		return err
+	}
+	if !ok {
+		return &Error{Reason: "there is no data", Fix: "paste or open a table with a label row and values below it"}
+	}
+	header := r.line
+	seen := map[string]int{}
+	for c, f := range r.fields {
+		label := f.String()
+		if label != "" {
+			if first, dup := seen[label]; dup {
+				return &Error{Line: header, Column: c + 1, Group: label,
+					Reason: fmt.Sprintf("columns %d and %d are both labelled %q", first, c+1, label),
+					Fix:    "give each group its own label"}
+			}
+			seen[label] = c + 1
+		}
+		t.Labels = append(t.Labels, label)
+	}
+	t.reserve(lines * len(t.Labels))
+	t.Missing = make([]int, len(t.Labels))
+	pending := make([]int, len(t.Labels)) // blank cells not yet known to be missing
+	for {
+		ok, err := r.read()
+		if err != nil {
+			return err
+		}
+		if !ok {
+			break
+		}
+		for c, f := range r.fields {
+			if c >= len(t.Labels) || t.Labels[c] == "" {
+				if isMissing(f.text) {
+					continue
+				}
+				return &Error{Line: r.line, Column: c + 1, Found: quoteFound(f.text),
+					Reason: fmt.Sprintf("%q has no group label above it", quoteFound(f.text)),
+					Fix:    fmt.Sprintf("add a label in line %d, column %d, or remove the cell", header, c+1)}
+			}
+			v, kind, err := p.cell(f, c+1, t.Labels[c])
+			if err != nil {
+				return err
+			}
+			switch {
+			case kind == cellNumber:
+				t.Missing[c] += pending[c]
+				pending[c] = 0
+				t.add(v, c, r.line)
+			case len(f.text) == 0:
+				pending[c]++
+			default: // an explicit missing marker
+				t.Missing[c] += pending[c] + 1
+				pending[c] = 0
+			}
+		}
+		for c := len(r.fields); c < len(t.Labels); c++ {
+			pending[c]++
+		}
+	}
+	p.dropUnlabelled()
+	return nil
+}
+
+// dropUnlabelled removes columns that have neither a label nor values (for
+// example the empty column a trailing separator makes), renumbering groups.
+func (p *parser) dropUnlabelled() {
+	t := p.t
+	newIndex := make([]int32, len(t.Labels))
+	kept := 0
+	for c, label := range t.Labels {
+		newIndex[c] = int32(kept)
+		if label != "" {
+			t.Labels[kept] = label
+			t.Missing[kept] = t.Missing[c]
+			kept++
+		}
+	}
+	if kept == len(t.Labels) {
+		return
+	}
+	t.Labels, t.Missing = t.Labels[:kept], t.Missing[:kept]
+	for i, g := range t.Groups {
+		t.Groups[i] = newIndex[g]
+	}
+}
+
+func (p *parser) long() error {
+	t, r := p.t, p.r
+	index := map[string]int{}
+	lastLabel, last := []byte(nil), -1
+	first := true
+	for {
+		ok, err := r.read()
+		if err != nil {
+			return err
+		}
+		if !ok {
+			return nil
+		}
+		f := r.fields
+		if len(f) > 2 {
+			return &Error{Line: r.line, Column: 3, Found: quoteFound(f[2].text),
+				Reason: fmt.Sprintf("there is a third cell (%q), but the long layout has two: group label, then value", quoteFound(f[2].text)),
+				Fix:    "remove the extra cells, or choose the wide layout"}
+		}
+		var value field
+		if len(f) == 2 {
+			value = f[1]
+		}
+		if first {
+			first = false
+			if _, kind, _ := parseCell(value.text, p.comma); kind == cellText {
+				t.Header = true
+				t.Measure = value.String()
+				continue
+			}
+		}
+		if len(f[0].text) == 0 {
+			return &Error{Line: r.line, Column: 1,
+				Reason: "the value has no group label",
+				Fix:    "write the group label in the first cell of the line"}
+		}
+		g := last
+		if !bytes.Equal(f[0].text, lastLabel) || f[0].escaped {
+			label := f[0].String()
+			var known bool
+			if g, known = index[label]; !known {
+				g = len(t.Labels)
+				index[label] = g
+				t.Labels = append(t.Labels, label)
+				t.Missing = append(t.Missing, 0)
+			}
+			lastLabel, last = f[0].text, g
+			if f[0].escaped {
+				lastLabel = nil
+			}
+		}
+		v, kind, err := p.cell(value, 2, t.Labels[g])
+		if err != nil {
+			return err
+		}
+		if kind == cellMissing {
+			t.Missing[g]++
+		} else {
+			t.add(v, g, r.line)
+		}
+	}
+}

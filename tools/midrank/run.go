@@ -1,0 +1,122 @@
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"strconv"
+
+	"midrank/core"
+)
+
+// Exit statuses.
+const (
+	exitOK       = 0 // analysed
+	exitData     = 1 // the data cannot be analysed
+	exitSettings = 2 // bad flags or values
+)
+
+const usage = `usage: midrank [flags] FILE
+Compares three or more independent groups with the Kruskal–Wallis H test.
+FILE is delimited text in the wide layout (one column per group, labels in
+the first line) or the long layout (group label, value); - reads standard input.
+
+flags:
+`
+
+// run is the whole command line; main only passes the process's streams.
+func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	fs := flag.NewFlagSet("midrank", flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	var opt core.Options
+	var seed string
+	asJSON := fs.Bool("json", false, "print the result as JSON")
+	showRanks := fs.Bool("ranks", false, "list every value with its rank, and every tie")
+	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide or long")
+	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
+	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
+	fs.Float64Var(&opt.Alpha, "alpha", core.DefaultAlpha, "significance level, between 0 and 1")
+	fs.StringVar(&opt.PValue, "pvalue", "asymptotic", "asymptotic; auto, exact and monte-carlo are not available yet")
+	fs.IntVar(&opt.Resamples, "resamples", 0, "Monte Carlo resamples (not available yet)")
+	fs.StringVar(&seed, "seed", "", "Monte Carlo seed (not available yet)")
+	fs.StringVar(&opt.PostHoc, "posthoc", "none", "none; dunn, conover, dscf and mann-whitney are not available yet")
+	fs.StringVar(&opt.Adjust, "adjust", "none", "none; holm, bonferroni, sidak, hochberg, bh and by are not available yet")
+
+	fail := func(code int, err error) int {
+		fmt.Fprintln(stderr, "midrank:", err)
+		if *asJSON {
+			stdout.Write(core.EncodeError(err))
+		}
+		return code
+	}
+	if err := fs.Parse(args); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			fmt.Fprint(stdout, usage)
+			fs.SetOutput(stdout)
+			fs.PrintDefaults()
+			return exitOK
+		}
+		*asJSON = wantsJSON(args)
+		return fail(exitSettings, fmt.Errorf("%v (midrank -h lists the flags)", err))
+	}
+	if fs.NArg() != 1 {
+		return fail(exitSettings, errors.New("give one input file, or - for standard input (midrank -h lists the flags)"))
+	}
+	if seed != "" {
+		s, err := strconv.ParseUint(seed, 10, 64)
+		if err != nil {
+			return fail(exitSettings, &core.OptionError{Option: "seed", Value: seed, Reason: "a seed is a whole number from 0 to 18446744073709551615"})
+		}
+		opt.Seed = &s
+	}
+
+	data, err := readInput(fs.Arg(0), stdin)
+	if err != nil {
+		return fail(exitData, err)
+	}
+	result, err := core.Analyze(data, opt)
+	var oe *core.OptionError
+	switch {
+	case errors.As(err, &oe):
+		return fail(exitSettings, err)
+	case err != nil:
+		return fail(exitData, err)
+	}
+	if *asJSON {
+		b, err := core.Encode(result)
+		if err != nil {
+			return fail(exitData, err)
+		}
+		stdout.Write(b)
+		return exitOK
+	}
+	writeReport(stdout, result, *showRanks)
+	return exitOK
+}
+
+// wantsJSON finds --json among arguments that failed to parse, so that the
+// error can still be given as JSON.
+func wantsJSON(args []string) bool {
+	for _, a := range args {
+		switch a {
+		case "--":
+			return false
+		case "-json", "--json", "-json=true", "--json=true":
+			return true
+		}
+	}
+	return false
+}
+
+func readInput(name string, stdin io.Reader) ([]byte, error) {
+	if name == "-" {
+		return io.ReadAll(stdin)
+	}
+	data, err := os.ReadFile(name)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read the input: %w", err)
+	}
+	return data, nil
+}

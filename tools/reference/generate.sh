@@ -1,0 +1,11 @@
+#!/usr/bin/env bash
+# Regenerates testdata/reference/ from R's stats and scipy where they are
+# installed (Debian: r-base-core, python3-scipy). Go tests read the committed
+# files, so `make test` needs neither.
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+out=testdata/reference
+mkdir -p "$out"
+Rscript tools/reference/datasets.R "$out"
+/usr/bin/python3 tools/reference/scipy_kruskal.py "$out"
+echo "wrote $out"
