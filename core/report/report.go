@@ -40,12 +40,12 @@ func Decision(f Facts) string {
 	for _, s := range f.Sizes {
 		n += s
 	}
-	measure := "the values"
+	on := ""
 	if f.Measure != "" {
-		measure = fmt.Sprintf("%q", f.Measure)
+		on = fmt.Sprintf(" on %q", f.Measure)
 	}
-	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared on %s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
-		len(f.Labels), listLabels(f.Labels), n, measure)
+	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared%s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
+		len(f.Labels), listLabels(f.Labels), n, on)
 	fmt.Fprintf(&b, "It gives H = %s with %d degrees of freedom and %s (%s). ",
 		Number(f.H), f.DF, PValue(f.P), methodWords(f.Method))
 	if Significant(f.P, f.Alpha) {

@@ -1,0 +1,60 @@
+# Midrank: make serve runs the app locally, make test runs every check.
+GO ?= go
+WASMEXEC := $(shell $(GO) env GOROOT)/lib/wasm
+FUZZTIME ?= 10s
+
+.PHONY: build serve test test-go test-wasm test-browser vet fmt-check check-core fuzz bench reference clean
+
+# build: write the static site and the WebAssembly module to dist/
+build:
+	$(GO) run ./tools/build --out dist
+
+# serve: build, then serve dist/ on http://127.0.0.1:8080/ with the demo data ready
+serve: build
+	$(GO) run ./tools/serve --addr 127.0.0.1:8080 --dir dist
+
+# test: every check that must pass before a change lands
+test: fmt-check vet check-core test-go test-wasm fuzz
+
+# test-go: the Go tests, natively
+test-go:
+	$(GO) test ./...
+
+# test-wasm: the core and the module's tests compiled to js/wasm and run under Node
+test-wasm:
+	PATH="$(WASMEXEC):$$PATH" GOOS=js GOARCH=wasm $(GO) test ./core/... ./wasm/...
+
+# vet: go vet, natively and for js/wasm
+vet:
+	$(GO) vet ./...
+	GOOS=js GOARCH=wasm $(GO) vet ./core/... ./wasm/...
+
+# fmt-check: fail when gofmt would change a file
+fmt-check:
+	@out=$$(gofmt -l .); if [ -n "$$out" ]; then echo "gofmt would change:"; echo "$$out"; exit 1; fi
+
+# check-core: core/ imports nothing of its host: no syscall/js, os, net/http (direct imports;
+# fmt itself pulls os and, on js/wasm, syscall/js in transitively)
+check-core:
+	@imports=$$(GOOS=js GOARCH=wasm $(GO) list -f '{{join .Imports "\n"}}' ./core/...); \
+	for banned in syscall/js os net/http; do \
+	  if echo "$$imports" | grep -qx "$$banned"; then echo "core/ must not import $$banned"; exit 1; fi; \
+	done
+
+# fuzz: short runs of every fuzz test
+fuzz:
+	$(GO) test ./core/table -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME)
+	$(GO) test ./core -run '^$$' -fuzz '^FuzzAnalyze$$' -fuzztime $(FUZZTIME)
+	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzMidranks$$' -fuzztime $(FUZZTIME)
+
+# bench: the speed and memory benchmarks
+bench:
+	$(GO) test ./core/... -run '^$$' -bench . -benchmem
+
+# reference: regenerate testdata/reference/ with R and scipy (Debian: r-base-core, python3-scipy)
+reference:
+	bash tools/reference/generate.sh
+
+# clean: remove build output
+clean:
+	rm -rf dist

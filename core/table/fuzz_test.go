@@ -1,0 +1,58 @@
+package table
+
+import (
+	"bytes"
+	"errors"
+	"math"
+	"reflect"
+	"testing"
+)
+
+// FuzzParse checks properties of every input: Parse never panics, an error
+// is always an *Error, and an accepted table is consistent, finite and the
+// same when parsed again.
+func FuzzParse(f *testing.F) {
+	for _, seed := range []string{
+		"A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n",
+		"site,minutes\nNorth,3\nSouth,4\nNorth,NA\n",
+		"x;y\n1,5;2\nNA;n/a\n2,25;.\n",
+		"\"a \"\"q\"\"\",b\n\"1\",2\n",
+		"\xEF\xBB\xBFa,b\r\n1,2\r\n",
+		"a,b\n1e3,.5\n+2,-0\n",
+		"\"open,1\n",
+		"a;b\r1;2\r",
+	} {
+		f.Add([]byte(seed), uint8(0))
+	}
+	f.Fuzz(func(t *testing.T, data []byte, mode uint8) {
+		opt := Options{Layout: Layout(mode % 3), DecimalPoint: mode&4 != 0}
+		tab, err := Parse(data, opt)
+		if err != nil {
+			var e *Error
+			if !errors.As(err, &e) {
+				t.Fatalf("Parse error %T %v, want *Error", err, err)
+			}
+			return
+		}
+		if len(tab.Values) != len(tab.Groups) || len(tab.Values) != len(tab.Lines) || len(tab.Labels) != len(tab.Missing) {
+			t.Fatalf("inconsistent lengths: %d values, %d groups, %d lines, %d labels, %d missing",
+				len(tab.Values), len(tab.Groups), len(tab.Lines), len(tab.Labels), len(tab.Missing))
+		}
+		lines := int32(bytes.Count(data, []byte{'\n'}) + bytes.Count(data, []byte{'\r'}) + 1)
+		for i, v := range tab.Values {
+			if math.IsNaN(v) || math.IsInf(v, 0) || math.Signbit(v) && v == 0 {
+				t.Fatalf("value %d is %v", i, v)
+			}
+			if g := tab.Groups[i]; g < 0 || int(g) >= len(tab.Labels) {
+				t.Fatalf("value %d has group %d of %d", i, g, len(tab.Labels))
+			}
+			if l := tab.Lines[i]; l < 1 || l > lines {
+				t.Fatalf("value %d on line %d of %d", i, l, lines)
+			}
+		}
+		again, err := Parse(data, opt)
+		if err != nil || !reflect.DeepEqual(tab, again) {
+			t.Fatalf("a second Parse differs: %v", err)
+		}
+	})
+}

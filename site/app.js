@@ -1,0 +1,171 @@
+// Page logic: reads the form, talks to the worker, renders the result.
+// It never touches the WebAssembly module itself, and it only ever sets
+// user text as text, never as HTML.
+"use strict";
+
+const PAGE_ROWS = 200;
+const $ = (id) => document.getElementById(id);
+
+const worker = new Worker("worker.js");
+let nextId = 1;
+let latest = 0; // the id of the latest request: older replies are dropped
+let result = null;
+let rankOffset = 0;
+const pending = new Map();
+
+function ask(message) {
+  const id = nextId++;
+  return new Promise((resolve) => {
+    pending.set(id, resolve);
+    worker.postMessage({ id, ...message });
+  }).then((json) => ({ id, body: JSON.parse(json) }));
+}
+
+worker.onmessage = (event) => {
+  const m = event.data;
+  if (m.kind === "ready") {
+    $("version").textContent = m.version;
+    $("analyse").disabled = false;
+    $("status").textContent = "Ready.";
+    start();
+    return;
+  }
+  if (m.kind === "failed") {
+    $("status").textContent = "The statistics module could not start: " + m.message;
+    return;
+  }
+  const resolve = pending.get(m.id);
+  pending.delete(m.id);
+  if (resolve) resolve(m.json);
+};
+
+async function start() {
+  if ($("data").value.trim() === "") {
+    const response = await fetch("demo.tsv");
+    $("data").value = await response.text();
+  }
+  analyse();
+}
+
+async function analyse() {
+  const options = { layout: $("layout").value, alpha: Number($("alpha").value) };
+  $("status").textContent = "Analysing…";
+  const { id, body } = await ask({ kind: "analyze", data: $("data").value, options });
+  latest = Math.max(latest, id);
+  if (id !== latest) return;
+  if (body.error) {
+    showProblem(body.error);
+    return;
+  }
+  $("problem").hidden = true;
+  result = body;
+  render();
+  $("status").textContent = "Done: " + result.n + " values in " + result.k + " groups.";
+}
+
+function showProblem(error) {
+  const p = $("problem");
+  p.textContent = error.message;
+  p.hidden = false;
+  $("status").textContent = "The data could not be analysed.";
+}
+
+// fmt shows a figure with four significant digits, switching to powers of
+// ten only for very small or very large numbers.
+function fmt(v) {
+  if (v === null || v === undefined) return "undefined";
+  const a = Math.abs(v);
+  if (a !== 0 && (a < 1e-4 || a >= 1e6)) return v.toExponential(3);
+  return String(Number(v.toPrecision(4)));
+}
+
+function fmtP(p) {
+  return p < 1e-4 ? p.toExponential(2) : String(Number(p.toPrecision(3)));
+}
+
+const methodNames = { asymptotic: "chi-square approximation", exact: "exact permutation", "monte-carlo": "Monte Carlo" };
+
+function render() {
+  const r = result;
+  $("results").hidden = false;
+  $("decision").textContent = r.decision;
+  setFigure("h", fmt(r.h));
+  setFigure("df", String(r.df));
+  setFigure("p_value", fmtP(r.p_value));
+  setFigure("p_method", methodNames[r.p_method] || r.p_method);
+  setFigure("critical_value", fmt(r.critical_value));
+  setFigure("epsilon_squared", fmt(r.epsilon_squared));
+  setFigure("eta_squared", fmt(r.eta_squared));
+  setFigure("tie_correction", fmt(r.tie_correction));
+  setFigure("h_uncorrected", fmt(r.h_uncorrected));
+  $("epsilon-word").textContent = "(" + r.epsilon_squared_size + ")";
+  $("eta-word").textContent = r.eta_squared_size ? "(" + r.eta_squared_size + ")" : "";
+
+  const rows = r.groups.map((g) => row([g.label, g.n, g.missing, fmt(g.median), fmt(g.q1), fmt(g.q3),
+    fmt(g.min), fmt(g.max), fmt(g.mean_rank), fmt(g.rank_sum)]));
+  $("group-rows").replaceChildren(...rows);
+
+  const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
+  $("notes").replaceChildren(...notes);
+  $("notes-box").hidden = notes.length === 0;
+
+  showTies();
+  rankOffset = 0;
+  showRanks();
+}
+
+function setFigure(key, text) {
+  document.querySelector('[data-result="' + key + '"]').textContent = text;
+}
+
+function row(cells, className) {
+  const tr = document.createElement("tr");
+  if (className) tr.className = className;
+  for (const c of cells) {
+    const td = document.createElement("td");
+    td.textContent = String(c);
+    tr.append(td);
+  }
+  return tr;
+}
+
+async function listPage(list, offset) {
+  const complete = list === "ranks" ? result.ranks_complete : result.ties_complete;
+  if (complete) return result[list].slice(offset, offset + PAGE_ROWS);
+  const { body } = await ask({ kind: "page", list, offset, count: PAGE_ROWS });
+  return body[list] || [];
+}
+
+async function showRanks() {
+  const shown = result;
+  const entries = await listPage("ranks", rankOffset);
+  if (shown !== result) return;
+  $("rank-rows").replaceChildren(...entries.map((v) =>
+    row([v.line, v.group, fmt(v.value), fmt(v.rank), v.shared], v.shared > 1 ? "tied" : "")));
+  const last = Math.min(rankOffset + PAGE_ROWS, result.n);
+  $("page-info").textContent = "Rows " + (rankOffset + 1) + "–" + last + " of " + result.n;
+  $("prev-page").disabled = rankOffset === 0;
+  $("next-page").disabled = last >= result.n;
+}
+
+async function showTies() {
+  const shown = result;
+  const entries = await listPage("ties", 0);
+  if (shown !== result) return;
+  const rows = entries.map((t) => row([fmt(t.value), t.count]));
+  if (result.ties_total === 0) rows.push(row(["none", ""]));
+  if (result.ties_total > entries.length) rows.push(row(["… " + (result.ties_total - entries.length) + " more", ""]));
+  $("tie-rows").replaceChildren(...rows);
+}
+
+$("analyse").addEventListener("click", analyse);
+$("prev-page").addEventListener("click", () => { rankOffset = Math.max(0, rankOffset - PAGE_ROWS); showRanks(); });
+$("next-page").addEventListener("click", () => { rankOffset += PAGE_ROWS; showRanks(); });
+$("copy-decision").addEventListener("click", async () => {
+  try {
+    await navigator.clipboard.writeText($("decision").textContent);
+    $("status").textContent = "The paragraph is on the clipboard.";
+  } catch {
+    $("status").textContent = "Copying was refused by the browser; select the paragraph and copy it by hand.";
+  }
+});

@@ -1,0 +1,90 @@
+//go:build js && wasm
+
+// Command wasm is the WebAssembly adapter of the statistics core. It sets
+//
+//	globalThis.midrank.analyze(data, optionsJSON) → responseJSON
+//	globalThis.midrank.page(list, offset, count) → pageJSON
+//	globalThis.midrank.version
+//
+// where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
+// which saves a copy), optionsJSON holds core.Options, and responseJSON is
+// byte for byte what the command line prints with --json. page serves the
+// per-value ranking ("ranks") or the tie table ("ties") of the last analysis
+// in pieces, for inputs too large to list in one response.
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"syscall/js"
+	"unsafe"
+
+	"midrank/core"
+)
+
+func main() {
+	register()
+	select {} // keep the module alive for later calls
+}
+
+// last is the most recent successful analysis, which page reads from.
+var last *core.Result
+
+func register() {
+	js.Global().Set("midrank", js.ValueOf(map[string]any{
+		"analyze": js.FuncOf(analyze),
+		"page":    js.FuncOf(page),
+		"version": core.Version,
+	}))
+}
+
+func analyze(_ js.Value, args []js.Value) any {
+	if len(args) < 1 {
+		return string(core.EncodeError(errors.New("analyze(data, optionsJSON) needs the data")))
+	}
+	var options []byte
+	if len(args) > 1 && args[1].Type() == js.TypeString {
+		options = []byte(args[1].String())
+	}
+	opt, err := core.DecodeOptions(options)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	r, err := core.Analyze(bytesOf(args[0]), opt)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	b, err := core.Encode(r)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	last = r
+	return unsafe.String(unsafe.SliceData(b), len(b))
+}
+
+func page(_ js.Value, args []js.Value) any {
+	if last == nil {
+		return string(core.EncodeError(errors.New("page: there is no analysis yet; call analyze first")))
+	}
+	if len(args) < 3 {
+		return string(core.EncodeError(errors.New("page(list, offset, count) needs three arguments")))
+	}
+	list := core.List(args[0].String())
+	if list != core.ListRanks && list != core.ListTies {
+		return string(core.EncodeError(errors.New(`page: the list is "ranks" or "ties"`)))
+	}
+	b, _ := json.Marshal(last.Page(list, args[1].Int(), args[2].Int())) // finite numbers only
+	return string(b)
+}
+
+// bytesOf returns the data argument as bytes: a Uint8Array is copied once;
+// a string is converted by syscall/js and then viewed without another copy.
+func bytesOf(v js.Value) []byte {
+	if v.Type() == js.TypeObject && v.InstanceOf(js.Global().Get("Uint8Array")) {
+		b := make([]byte, v.Length())
+		js.CopyBytesToGo(b, v)
+		return b
+	}
+	s := v.String()
+	return unsafe.Slice(unsafe.StringData(s), len(s))
+}
