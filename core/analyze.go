@@ -175,7 +175,7 @@ func checkGroups(t *table.Table) ([]int, error) {
 	for i, s := range sizes {
 		if s == 0 {
 			return nil, &table.Error{Group: t.Labels[i],
-				Reason: fmt.Sprintf("the group has no values (%d missing)", t.Missing[i]),
+				Reason: fmt.Sprintf("it has no values (%d cells are missing)", t.Missing[i]),
 				Fix:    "fill in its values, or remove the group from the data"}
 		}
 	}

@@ -1,6 +1,7 @@
 package core
 
 import (
+	"bytes"
 	"encoding/json"
 	"errors"
 
@@ -10,11 +11,19 @@ import (
 // Encode renders a result as the JSON that the command line's --json and
 // the WebAssembly module both return, followed by a newline.
 func Encode(r *Result) ([]byte, error) {
-	b, err := json.Marshal(r)
-	if err != nil {
+	return marshal(r)
+}
+
+// marshal writes v as one line of JSON without HTML escaping: labels such
+// as "R&D" stay readable, and the page only ever sets them as text.
+func marshal(v any) ([]byte, error) {
+	var b bytes.Buffer
+	enc := json.NewEncoder(&b)
+	enc.SetEscapeHTML(false)
+	if err := enc.Encode(v); err != nil {
 		return nil, err
 	}
-	return append(b, '\n'), nil
+	return b.Bytes(), nil
 }
 
 // ErrorBody is the JSON form of an error: {"error": {...}}. Line, column,
@@ -56,6 +65,12 @@ func EncodeError(err error) []byte {
 	case errors.As(err, &oe):
 		d.Option = &oe.Option
 	}
-	b, _ := json.Marshal(ErrorBody{d}) // strings and ints only: cannot fail
-	return append(b, '\n')
+	b, _ := marshal(ErrorBody{d}) // strings and ints only: cannot fail
+	return b
+}
+
+// EncodePage renders one page of a list as JSON.
+func EncodePage(p PageOf) []byte {
+	b, _ := marshal(p) // finite numbers and strings only: cannot fail
+	return b
 }

@@ -14,7 +14,6 @@
 package main
 
 import (
-	"encoding/json"
 	"errors"
 	"syscall/js"
 	"unsafe"
@@ -73,8 +72,7 @@ func page(_ js.Value, args []js.Value) any {
 	if list != core.ListRanks && list != core.ListTies {
 		return string(core.EncodeError(errors.New(`page: the list is "ranks" or "ties"`)))
 	}
-	b, _ := json.Marshal(last.Page(list, args[1].Int(), args[2].Int())) // finite numbers only
-	return string(b)
+	return string(core.EncodePage(last.Page(list, args[1].Int(), args[2].Int())))
 }
 
 // bytesOf returns the data argument as bytes: a Uint8Array is copied once;

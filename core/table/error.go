@@ -28,11 +28,11 @@ func (e *Error) Error() string {
 	case e.Line > 0:
 		fmt.Fprintf(&b, "line %d", e.Line)
 	}
-	if e.Group != "" {
-		if b.Len() > 0 {
-			b.WriteString(" ")
-		}
-		fmt.Fprintf(&b, "(group %q)", e.Group)
+	switch {
+	case e.Group != "" && b.Len() > 0:
+		fmt.Fprintf(&b, " (group %q)", e.Group)
+	case e.Group != "":
+		fmt.Fprintf(&b, "group %q", e.Group)
 	}
 	if b.Len() > 0 {
 		b.WriteString(": ")

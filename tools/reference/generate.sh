@@ -8,4 +8,6 @@ out=testdata/reference
 mkdir -p "$out"
 Rscript tools/reference/datasets.R "$out"
 /usr/bin/python3 tools/reference/scipy_kruskal.py "$out"
+
+/usr/bin/python3 tools/reference/chi2_tail.py "$out/chi2_tail.tsv"
 echo "wrote $out"

@@ -1,0 +1,159 @@
+package core
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"strings"
+	"testing"
+
+	"midrank/core/table"
+)
+
+func TestAnalyzeErrors(t *testing.T) {
+	tests := []struct {
+		name  string
+		data  string
+		opt   Options
+		group string
+		says  string
+	}{
+		{"one group", "A\n1\n2\n", Options{}, "A", "only group"},
+		{"no groups", "\n", Options{}, "", "no data"},
+		{"empty group", "A,B\n1,\n2,NA\n", Options{}, "B", "no values"},
+		{"all equal", "A,B\n3,3\n3,3\n", Options{}, "", "nothing to rank"},
+	}
+	for _, tt := range tests {
+		_, err := Analyze([]byte(tt.data), tt.opt)
+		var e *table.Error
+		if !errors.As(err, &e) || e.Group != tt.group || !strings.Contains(e.Error(), tt.says) {
+			t.Errorf("%s: Analyze(%q) error = %v, want group %q saying %q", tt.name, tt.data, err, tt.group, tt.says)
+		}
+	}
+}
+
+func TestOptions(t *testing.T) {
+	seed := uint64(7)
+	tests := []struct {
+		opt    Options
+		option string // "" for valid options
+	}{
+		{Options{}, ""},
+		{Options{Layout: "long", Separator: "comma", Decimal: "point", Alpha: 0.1, PValue: "asymptotic", PostHoc: "none", Adjust: "none"}, ""},
+		{Options{Alpha: 1.5}, "alpha"},
+		{Options{Alpha: -0.05}, "alpha"},
+		{Options{Layout: "tall"}, "layout"},
+		{Options{Separator: "pipe"}, "separator"},
+		{Options{Decimal: "comma"}, "decimal"},
+		{Options{PValue: "exact"}, "pvalue"},
+		{Options{PValue: "bootstrap"}, "pvalue"},
+		{Options{PostHoc: "dunn"}, "posthoc"},
+		{Options{Adjust: "holm"}, "adjust"},
+		{Options{Resamples: 1000}, "resamples"},
+		{Options{Seed: &seed}, "seed"},
+	}
+	for _, tt := range tests {
+		_, err := Analyze([]byte("A,B\n1,2\n3,4\n"), tt.opt)
+		var oe *OptionError
+		switch {
+		case tt.option == "" && err != nil:
+			t.Errorf("Analyze with %+v: %v, want no error", tt.opt, err)
+		case tt.option != "" && (!errors.As(err, &oe) || oe.Option != tt.option):
+			t.Errorf("Analyze with %+v: error %v, want an OptionError for %s", tt.opt, err, tt.option)
+		}
+	}
+	if _, err := DecodeOptions([]byte(`{"alhpa": 0.1}`)); err == nil {
+		t.Error(`DecodeOptions({"alhpa": 0.1}) accepted a misspelt key`)
+	}
+}
+
+// TestUndefinedIsNull: with N = k, η²(H) is undefined and must be null.
+func TestUndefinedIsNull(t *testing.T) {
+	r, err := Analyze([]byte("A,B,C\n1,2,3\n"), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Encode(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var m map[string]any
+	if err := json.Unmarshal(b, &m); err != nil {
+		t.Fatal(err)
+	}
+	if m["eta_squared"] != nil || m["eta_squared_size"] != nil || m["p_exact"] != nil {
+		t.Errorf("eta_squared = %v, eta_squared_size = %v, p_exact = %v; want null", m["eta_squared"], m["eta_squared_size"], m["p_exact"])
+	}
+}
+
+// TestLargeListsArePaged: above ListLimit values the ranking is served by Page.
+func TestLargeListsArePaged(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("A,B\n")
+	for i := 0; i < ListLimit/2+10; i++ {
+		fmt.Fprintf(&b, "%d,%d\n", i, i+7)
+	}
+	r, err := Analyze([]byte(b.String()), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.RanksComplete || len(r.Ranks) != 0 {
+		t.Fatalf("ranks_complete = %v with %d ranks, want false and none", r.RanksComplete, len(r.Ranks))
+	}
+	p := r.Page(ListRanks, r.N-3, 10)
+	if p.Total != r.N || len(p.Ranks) != 3 || p.Ranks[2].Group != "B" || p.Ranks[2].Line != ListLimit/2+11 {
+		t.Errorf("last page = %+v, want the last 3 of %d values", p, r.N)
+	}
+	// the last A value, ListLimit/2+9, is also a B value; the B value after it is not
+	if p.Ranks[1].Shared != 2 || p.Ranks[2].Shared != 1 {
+		t.Errorf("shared = %d and %d, want 2 and 1", p.Ranks[1].Shared, p.Ranks[2].Shared)
+	}
+}
+
+// FuzzAnalyze: every accepted input yields a result whose JSON encodes
+// (so holds no NaN or Inf), with ranks summing to N(N+1)/2 and 0 ≤ p ≤ 1.
+func FuzzAnalyze(f *testing.F) {
+	f.Add([]byte("A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n"), 0.05)
+	f.Add([]byte("site,minutes\nNorth,3\nSouth,4\nNorth,NA\nEast,4\n"), 0.01)
+	f.Add([]byte("x;y\n1,5;2\n1e300;-1e300\n"), 0.5)
+	f.Fuzz(func(t *testing.T, data []byte, alpha float64) {
+		r, err := Analyze(data, Options{Alpha: alpha})
+		if err != nil {
+			return
+		}
+		if _, err := Encode(r); err != nil {
+			t.Fatalf("Encode: %v", err)
+		}
+		if !(r.PValue >= 0 && r.PValue <= 1) || r.H < 0 || !(r.TieCorrection > 0 && r.TieCorrection <= 1) {
+			t.Fatalf("p = %v, H = %v, C = %v", r.PValue, r.H, r.TieCorrection)
+		}
+		var sum float64
+		for _, g := range r.Groups {
+			sum += g.RankSum
+		}
+		if n := float64(r.N); sum != n*(n+1)/2 {
+			t.Fatalf("rank sums add to %v, want %v", sum, n*(n+1)/2)
+		}
+	})
+}
+
+func ExampleAnalyze() {
+	data := "ward,days\nA,3\nA,5\nA,4\nB,8\nB,6\nB,9\nC,2\nC,1\nC,3\n"
+	r, err := Analyze([]byte(data), Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("H = %.3f, df = %d, p = %.4f\n", r.H, r.DF, r.PValue)
+	for _, g := range r.Groups {
+		fmt.Printf("%s: mean rank %.2f, median %g\n", g.Label, g.MeanRank, g.Median)
+	}
+	// R 4.2.2 kruskal.test gives 6.8796, df 2, p 0.03207 and mean ranks
+	// 4.833333, 8, 2.166667 for the same data.
+
+	// Output:
+	// H = 6.880, df = 2, p = 0.0321
+	// A: mean rank 4.83, median 4
+	// B: mean rank 8.00, median 8
+	// C: mean rank 2.17, median 2
+}

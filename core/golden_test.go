@@ -1,0 +1,80 @@
+package core
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"testing"
+
+	"midrank/tools/casefiles"
+)
+
+var update = flag.Bool("update", false, "rewrite the expected answers in testdata/cases")
+
+// answer is what the command line's --json and the module return for a case.
+func answer(data, options []byte) []byte {
+	opt, err := DecodeOptions(options)
+	if err != nil {
+		return EncodeError(err)
+	}
+	r, err := Analyze(data, opt)
+	if err != nil {
+		return EncodeError(err)
+	}
+	b, err := Encode(r)
+	if err != nil {
+		return EncodeError(err)
+	}
+	return b
+}
+
+// TestGolden pins the complete JSON answer of every case in testdata/cases.
+// Its figures are checked against R and scipy in TestAgainstReferences; this
+// test keeps every other byte from changing unnoticed.
+func TestGolden(t *testing.T) {
+	cases, err := casefiles.List("../testdata/cases")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range cases {
+		data, err := os.ReadFile(c.Input)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var options []byte
+		if c.Options != "" {
+			if options, err = os.ReadFile(c.Options); err != nil {
+				t.Fatal(err)
+			}
+		}
+		got := answer(data, options)
+		if *update {
+			if err := os.WriteFile(c.Golden, got, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			continue
+		}
+		want, err := os.ReadFile(c.Golden)
+		if err != nil {
+			t.Fatalf("%s: %v (go test ./core -update writes it)", c.Name, err)
+		}
+		if !bytes.Equal(got, want) {
+			t.Errorf("%s: answer differs from %s (go test ./core -update rewrites it)\ngot:  %.300s\nwant: %.300s", c.Name, c.Golden, got, want)
+		}
+	}
+}
+
+// TestDemoIsACase keeps the page's invented demo data among the cases.
+func TestDemoIsACase(t *testing.T) {
+	site, err := os.ReadFile("../site/demo.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := os.ReadFile("../testdata/cases/clinic_demo_invented.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(site, c) {
+		t.Error("site/demo.tsv and testdata/cases/clinic_demo_invented.tsv differ; copy one over the other")
+	}
+}
