@@ -10,8 +10,7 @@ package kruskal
 import (
 	"math"
 
-	"gonum.org/v1/gonum/mathext"
-	"gonum.org/v1/gonum/stat/distuv"
+	"midrank/core/dist"
 )
 
 // Test is the outcome of the H test.
@@ -51,21 +50,14 @@ func Compute(sizes []int, rankSums []float64, tieSum float64) Test {
 	t.HUncorrected = 12 / (fn * (fn + 1)) * ss
 	t.TieCorrection = 1 - tieSum/(fn*fn*fn-fn)
 	t.H = t.HUncorrected / t.TieCorrection
-	t.P = UpperTail(t.H, t.DF)
+	// the upper tail itself, never 1 − CDF, so tiny p keep their digits
+	t.P = dist.ChiSquared{K: float64(t.DF)}.Survival(t.H)
 	return t
 }
 
-// UpperTail is P(χ²(df) ≥ x), computed as the complemented regularised
-// incomplete gamma function Q(df/2, x/2) (gonum's ChiSquared.Survival), so
-// that p-values far below 1e-16 keep their digits rather than being 1 − CDF.
-func UpperTail(x float64, df int) float64 {
-	return distuv.ChiSquared{K: float64(df)}.Survival(x)
-}
-
-// CriticalValue is the h with P(χ²(df) ≥ h) = alpha, the inverse of the
-// upper tail: 2·Q⁻¹(df/2, alpha).
+// CriticalValue is the h with P(χ²(df) ≥ h) = alpha.
 func CriticalValue(alpha float64, df int) float64 {
-	return 2 * mathext.GammaIncRegCompInv(float64(df)/2, alpha)
+	return dist.ChiSquared{K: float64(df)}.UpperQuantile(alpha)
 }
 
 // EpsilonSquared is the rank epsilon-squared effect size

@@ -1,0 +1,99 @@
+package dist
+
+import (
+	"bufio"
+	"math"
+	"os"
+	"strconv"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/stat/distuv"
+)
+
+// TestChiSquaredSurvivalMpmath holds the upper tail to 50-digit mpmath
+// values (testdata/reference/chi2_tail.tsv, made by
+// tools/reference/chi2_tail.py), down to 1e-284.
+func TestChiSquaredSurvivalMpmath(t *testing.T) {
+	f, err := os.Open("../../testdata/reference/chi2_tail.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	s := bufio.NewScanner(f)
+	s.Scan()
+	checked := 0
+	for s.Scan() {
+		c := strings.Split(s.Text(), "\t")
+		if !strings.HasPrefix(c[3], "mpmath") {
+			continue
+		}
+		x, _ := strconv.ParseFloat(c[0], 64)
+		df, _ := strconv.ParseFloat(c[1], 64)
+		want, _ := strconv.ParseFloat(c[2], 64)
+		if got := (ChiSquared{df}).Survival(x); math.Abs(got-want) > 1e-13*want {
+			t.Errorf("ChiSquared{%v}.Survival(%v) = %.17g, want %.17g (%s)", df, x, got, want, c[3])
+		}
+		checked++
+	}
+	if checked != 35 {
+		t.Fatalf("checked %d values, want 35", checked)
+	}
+}
+
+// TestChiSquaredAgainstGonum compares a grid with gonum v0.17.0's
+// distuv.ChiSquared, a general-purpose reference library.
+func TestChiSquaredAgainstGonum(t *testing.T) {
+	for _, k := range []float64{1, 2, 3, 4, 5, 7, 9, 15, 30, 99, 500} {
+		ref := distuv.ChiSquared{K: k}
+		for _, x := range []float64{0.01, 0.3, 1, 2.5, 5, 10, 20, 40, 80, 160, 320, 640, 1000} {
+			want := ref.Survival(x)
+			if want < 1e-290 {
+				continue
+			}
+			if got := (ChiSquared{k}).Survival(x); math.Abs(got-want) > 1e-12*want {
+				t.Errorf("ChiSquared{%v}.Survival(%v) = %.17g, gonum %.17g", k, x, got, want)
+			}
+		}
+		// gonum has no upper quantile: Quantile(1−p) loses digits for small p
+		for _, p := range []float64{0.5, 0.1, 0.05, 0.01, 1e-3, 1e-4} {
+			want := ref.Quantile(1 - p)
+			if got := (ChiSquared{k}).UpperQuantile(p); math.Abs(got-want) > 1e-12*want {
+				t.Errorf("ChiSquared{%v}.UpperQuantile(%v) = %.17g, gonum %.17g", k, p, got, want)
+			}
+		}
+	}
+}
+
+// TestUpperQuantileRoundTrip: Survival(UpperQuantile(p)) = p far into the tail.
+func TestUpperQuantileRoundTrip(t *testing.T) {
+	for _, k := range []float64{1, 2, 3, 6, 10, 40} {
+		for _, p := range []float64{0.9, 0.5, 0.05, 0.01, 1e-4, 1e-8, 1e-15, 1e-50} {
+			c := ChiSquared{k}
+			if got := c.Survival(c.UpperQuantile(p)); math.Abs(got-p) > 1e-12*p {
+				t.Errorf("ChiSquared{%v}: Survival(UpperQuantile(%v)) = %v", k, p, got)
+			}
+		}
+	}
+}
+
+// TestElementary: the portable exp, log and lgamma agree with the standard
+// library to within a few units in the last place.
+func TestElementary(t *testing.T) {
+	for _, x := range []float64{-700, -30, -1, -1e-9, 0, 1e-10, 0.5, 1, 2, 10, 300, 709} {
+		if got, want := exp(x), math.Exp(x); math.Abs(got-want) > 2e-16*want {
+			t.Errorf("exp(%v) = %v, math.Exp %v", x, got, want)
+		}
+	}
+	for _, x := range []float64{1e-300, 1e-5, 0.5, 1, 2, math.E, 1e5, 1e300} {
+		if got, want := log(x), math.Log(x); math.Abs(got-want) > 2e-16*math.Max(1, math.Abs(want)) {
+			t.Errorf("log(%v) = %v, math.Log %v", x, got, want)
+		}
+	}
+	for _, a := range []float64{0.5, 1, 1.5, 2, 3.5, 7, 14.5, 15, 50, 1234.5, 1e6} {
+		want, _ := math.Lgamma(a)
+		if got := lgamma(a); math.Abs(got-want) > 1e-14*math.Max(1, math.Abs(want)) {
+			t.Errorf("lgamma(%v) = %.17g, math.Lgamma %.17g", a, got, want)
+		}
+	}
+}

@@ -1,0 +1,53 @@
+package report
+
+import (
+	"strings"
+	"testing"
+)
+
+func TestDecision(t *testing.T) {
+	base := Facts{Labels: []string{"North", "South", "East"}, Sizes: []int{8, 9, 4}, Measure: "minutes",
+		H: 7.1234, DF: 2, P: 0.0284, Method: "asymptotic", Alpha: 0.05, Epsilon: 0.356, Size: "large"}
+	tests := []struct {
+		name    string
+		change  func(*Facts)
+		says    []string
+		saysNot []string
+	}{
+		{"significant", func(*Facts) {},
+			[]string{"3 groups (North, South and East; 21 values in all)", `on "minutes"`, "H = 7.123 with 2 degrees of freedom and p = 0.0284",
+				"is statistically significant", "does not say which groups differ", "ε² = 0.356 is large",
+				"Group East has fewer than 5 values", "similar shape", Caution},
+			[]string{"not statistically significant"}},
+		{"not significant", func(f *Facts) { f.P = 0.31 },
+			[]string{"is not statistically significant", "not proof that they are the same", Caution},
+			[]string{"which groups differ"}},
+		{"at alpha exactly", func(f *Facts) { f.P = 0.05 }, []string{"is statistically significant"}, nil},
+		{"exact p needs no approximation caution", func(f *Facts) { f.Method = "exact" },
+			[]string{"exact permutation p-value"}, []string{"approximation behind p"}},
+		{"tiny p", func(f *Facts) { f.P = 3e-12 }, []string{"p < 0.001"}, nil},
+	}
+	for _, tt := range tests {
+		f := base
+		tt.change(&f)
+		got := Decision(f)
+		for _, s := range tt.says {
+			if !strings.Contains(got, s) {
+				t.Errorf("%s: decision lacks %q:\n%s", tt.name, s, got)
+			}
+		}
+		for _, s := range tt.saysNot {
+			if strings.Contains(got, s) {
+				t.Errorf("%s: decision has %q:\n%s", tt.name, s, got)
+			}
+		}
+	}
+}
+
+func TestNumber(t *testing.T) {
+	for v, want := range map[float64]string{0: "0", 7.98823: "7.988", 0.05: "0.05", 12345.678: "12345.7", 3.2e-7: "3.200e-07"} {
+		if got := Number(v); got != want {
+			t.Errorf("Number(%v) = %q, want %q", v, got, want)
+		}
+	}
+}

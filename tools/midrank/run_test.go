@@ -1,0 +1,111 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"os"
+	"sort"
+	"strings"
+	"testing"
+
+	"midrank/tools/casefiles"
+)
+
+// flagsOf turns a case's options JSON into flags: the flags carry the
+// request keys' names.
+func flagsOf(t *testing.T, path string) []string {
+	if path == "" {
+		return nil
+	}
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var m map[string]any
+	if err := json.Unmarshal(b, &m); err != nil {
+		t.Fatal(err)
+	}
+	var flags []string
+	for k, v := range m {
+		flags = append(flags, fmt.Sprintf("--%s=%v", k, v))
+	}
+	sort.Strings(flags)
+	return flags
+}
+
+// TestJSONMatchesGolden: --json prints byte for byte the answer the core
+// pins in testdata/cases (which the module must give too), with exit
+// status 0 for an analysis, 1 for data that cannot be analysed and 2 for a
+// setting that cannot be used.
+func TestJSONMatchesGolden(t *testing.T) {
+	cases, err := casefiles.List("../../testdata/cases")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range cases {
+		var stdout, stderr bytes.Buffer
+		args := append(append([]string{"--json"}, flagsOf(t, c.Options)...), c.Input)
+		code := run(args, nil, &stdout, &stderr)
+		want, err := os.ReadFile(c.Golden)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !bytes.Equal(stdout.Bytes(), want) {
+			t.Errorf("%s: midrank %s printed\n%.300s\nwant\n%.300s", c.Name, strings.Join(args, " "), stdout.Bytes(), want)
+		}
+		wantCode := exitOK
+		switch {
+		case strings.HasPrefix(c.Name, "error_option"):
+			wantCode = exitSettings
+		case strings.HasPrefix(c.Name, "error_"):
+			wantCode = exitData
+		}
+		if code != wantCode || (code != exitOK) != (stderr.Len() > 0) {
+			t.Errorf("%s: exit %d with stderr %q, want exit %d", c.Name, code, stderr.String(), wantCode)
+		}
+	}
+}
+
+func TestExitStatus(t *testing.T) {
+	const data = "A,B,C\n1,2,3\n4,5,6\n"
+	tests := []struct {
+		args   []string
+		stdin  string
+		code   int
+		stdout string // a piece of what standard output must hold
+		stderr string // a piece of what standard error must hold
+	}{
+		{[]string{"-"}, data, exitOK, "In plain words", ""},
+		{[]string{"--ranks", "-"}, data, exitOK, "Every value with its rank", ""},
+		{[]string{"--alpha", "1.5", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
+		{[]string{"--json", "--alpha", "1.5", "-"}, data, exitSettings, `"option":"alpha"`, "alpha"},
+		{[]string{"--json", "--alpha", "high", "-"}, data, exitSettings, `{"error":{"message":`, "invalid value"},
+		{[]string{"--pvalue", "monte-carlo", "-"}, data, exitSettings, "", "not available yet"},
+		{[]string{"--posthoc", "tukey", "-"}, data, exitSettings, "", "choose one of"},
+		{[]string{"--seed", "x", "-"}, data, exitSettings, "", "whole number"},
+		{[]string{"--layout", "diagonal", "-"}, data, exitSettings, "", "auto, wide or long"},
+		{[]string{"--nonsense", "-"}, data, exitSettings, "", "flag provided but not defined"},
+		{[]string{}, data, exitSettings, "", "give one input file"},
+		{[]string{"/nonexistent/file.csv"}, "", exitData, "", "cannot read the input"},
+		{[]string{"--json", "-"}, "A,B\n1,x\n", exitData, `"line":2,"column":2`, "line 2, column 2"},
+		{[]string{"-h"}, "", exitOK, "usage: midrank", ""},
+	}
+	for _, tt := range tests {
+		var stdout, stderr bytes.Buffer
+		code := run(tt.args, strings.NewReader(tt.stdin), &stdout, &stderr)
+		if code != tt.code || !strings.Contains(stdout.String(), tt.stdout) || !strings.Contains(stderr.String(), tt.stderr) {
+			t.Errorf("midrank %v: exit %d\nstdout %.200q\nstderr %q\nwant exit %d, stdout with %q, stderr with %q",
+				tt.args, code, stdout.String(), stderr.String(), tt.code, tt.stdout, tt.stderr)
+		}
+	}
+}
+
+func TestWrap(t *testing.T) {
+	got := wrap("It gives H = 7.988 and p = 0.0184 here.", 16, "")
+	for _, line := range strings.Split(got, "\n") {
+		if strings.HasSuffix(line, " =") || strings.HasPrefix(line, "=") || strings.HasSuffix(line, " p") {
+			t.Errorf("wrap broke around '=': %q", got)
+		}
+	}
+}

@@ -1,0 +1,74 @@
+//go:build js && wasm
+
+package main
+
+import (
+	"os"
+	"strings"
+	"syscall/js"
+	"testing"
+
+	"midrank/tools/casefiles"
+)
+
+func module() js.Value {
+	if m := js.Global().Get("midrank"); !m.IsUndefined() {
+		return m
+	}
+	register()
+	return js.Global().Get("midrank")
+}
+
+// TestAnswersMatchGolden calls globalThis.midrank.analyze the way the
+// page's worker does and expects, byte for byte, the answers pinned in
+// testdata/cases, which the command line's --json also prints.
+func TestAnswersMatchGolden(t *testing.T) {
+	cases, err := casefiles.List("../testdata/cases")
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := module()
+	for _, c := range cases {
+		data, err := os.ReadFile(c.Input)
+		if err != nil {
+			t.Fatal(err)
+		}
+		options := ""
+		if c.Options != "" {
+			b, err := os.ReadFile(c.Options)
+			if err != nil {
+				t.Fatal(err)
+			}
+			options = string(b)
+		}
+		want, err := os.ReadFile(c.Golden)
+		if err != nil {
+			t.Fatal(err)
+		}
+		asString := m.Call("analyze", string(data), options).String()
+		bytes := js.Global().Get("Uint8Array").New(len(data))
+		js.CopyBytesToJS(bytes, data)
+		asBytes := m.Call("analyze", bytes, options).String()
+		if asString != string(want) || asBytes != string(want) {
+			t.Errorf("%s: module answered\n%.300s\nwant\n%.300s", c.Name, asString, want)
+		}
+	}
+}
+
+func TestByteOrderMarkAndPages(t *testing.T) {
+	m := module()
+	got := m.Call("analyze", "\uFEFFA,B\n1,2\n3,3\n", `{"alpha":0.1}`).String()
+	if !strings.Contains(got, `"n":4`) || !strings.Contains(got, `"alpha":0.1`) {
+		t.Fatalf("analyze with a byte-order mark = %s", got)
+	}
+	page := m.Call("page", "ranks", 1, 2).String()
+	if want := `{"list":"ranks","offset":1,"total":4,"ranks":[{"group":"B","value":2,"rank":2,"line":2,"shared":1},{"group":"A","value":3,"rank":3.5,"line":3,"shared":2}]}`; page != want+"\n" {
+		t.Errorf("page = %s, want %s", page, want)
+	}
+	if bad := m.Call("page", "groups", 0, 1).String(); !strings.Contains(bad, `"error"`) {
+		t.Errorf("page of an unknown list = %s, want an error", bad)
+	}
+	if bad := m.Call("analyze", "A\n1\n", `{"alpha":`).String(); !strings.Contains(bad, `"option":"options"`) {
+		t.Errorf("analyze with broken options = %s, want an options error", bad)
+	}
+}
