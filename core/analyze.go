@@ -9,6 +9,7 @@ package core
 
 import (
 	"fmt"
+	"slices"
 	"sort"
 
 	"midrank/core/describe"
@@ -125,7 +126,7 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 	for i, g := range t.Groups {
 		rankSums[g] += ranking.Ranks[i]
 	}
-	r.Groups = summarise(t, sizes, rankSums, ranking.Order)
+	r.Groups = summarise(t, sizes, rankSums, ranking)
 	for _, m := range t.Missing {
 		r.Missing += m
 	}
@@ -208,26 +209,33 @@ func describeInput(t *table.Table) Input {
 	return in
 }
 
-// summarise builds the group summaries. The values of each group, in
-// ascending order, come from one pass over the global sorted order.
-func summarise(t *table.Table, sizes []int, rankSums []float64, order []int32) []Group {
-	start := make([]int, len(sizes)+1)
-	for i, s := range sizes {
-		start[i+1] = start[i] + s
+// summarise builds the group summaries. The quartiles need only a few order
+// statistics of each group; one pass over the global sorted order picks
+// them out, so no group's values are copied or sorted again.
+func summarise(t *table.Table, sizes []int, rankSums []float64, ranking rank.Ranking) []Group {
+	wanted := make([][]int, len(sizes)) // ranks within the group, ascending
+	picked := make([][]float64, len(sizes))
+	for g, n := range sizes {
+		wanted[g] = describe.OrderStatistics(n)
+		picked[g] = make([]float64, 0, len(wanted[g]))
 	}
-	sorted := make([]float64, len(t.Values))
-	next := append([]int(nil), start[:len(sizes)]...)
-	for _, idx := range order {
+	seen := make([]int, len(sizes))
+	for i, idx := range ranking.Order {
 		g := t.Groups[idx]
-		sorted[next[g]] = t.Values[idx]
-		next[g]++
+		if w := wanted[g]; len(picked[g]) < len(w) && w[len(picked[g])] == seen[g] {
+			picked[g] = append(picked[g], ranking.Sorted[i])
+		}
+		seen[g]++
 	}
 	groups := make([]Group, len(sizes))
-	for i, s := range sizes {
-		d := describe.Summarise(sorted[start[i]:start[i+1]])
-		groups[i] = Group{
-			Label: t.Labels[i], N: s, Missing: t.Missing[i],
-			RankSum: rankSums[i], MeanRank: rankSums[i] / float64(s),
+	for g, n := range sizes {
+		d := describe.SummariseAt(n, func(rank int) float64 {
+			j, _ := slices.BinarySearch(wanted[g], rank)
+			return picked[g][j]
+		})
+		groups[g] = Group{
+			Label: t.Labels[g], N: n, Missing: t.Missing[g],
+			RankSum: rankSums[g], MeanRank: rankSums[g] / float64(n),
 			Median: d.Median, Q1: d.Q1, Q3: d.Q3, Min: d.Min, Max: d.Max,
 		}
 	}

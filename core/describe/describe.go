@@ -11,13 +11,33 @@ type Summary struct {
 
 // Summarise describes values sorted in ascending order; it needs at least one.
 func Summarise(sorted []float64) Summary {
+	return SummariseAt(len(sorted), func(i int) float64 { return sorted[i] })
+}
+
+// SummariseAt describes n ≥ 1 values given by at(i), the i-th smallest
+// (from 0); it calls at only for the ranks OrderStatistics(n) lists, so a
+// caller can fetch just those.
+func SummariseAt(n int, at func(int) float64) Summary {
 	return Summary{
-		Min:    sorted[0],
-		Q1:     Quantile(sorted, 0.25),
-		Median: Quantile(sorted, 0.5),
-		Q3:     Quantile(sorted, 0.75),
-		Max:    sorted[len(sorted)-1],
+		Min:    at(0),
+		Q1:     quantileAt(n, 0.25, at),
+		Median: quantileAt(n, 0.5, at),
+		Q3:     quantileAt(n, 0.75, at),
+		Max:    at(n - 1),
 	}
+}
+
+// OrderStatistics lists in ascending order, without repeats, the 0-based
+// ranks of the values that SummariseAt(n, at) reads.
+func OrderStatistics(n int) []int {
+	var ranks []int
+	SummariseAt(n, func(i int) float64 {
+		if len(ranks) == 0 || ranks[len(ranks)-1] < i {
+			ranks = append(ranks, i)
+		}
+		return 0
+	})
+	return ranks
 }
 
 // Quantile returns the p-quantile (0 ≤ p ≤ 1) of values sorted in ascending
@@ -29,14 +49,21 @@ func Summarise(sorted []float64) Summary {
 // with x indexed from 0. Hyndman, R. J. & Fan, Y. (1996). Sample quantiles in
 // statistical packages. The American Statistician 50(4), 361–365.
 func Quantile(sorted []float64, p float64) float64 {
-	h := float64(len(sorted)-1) * p
+	return quantileAt(len(sorted), p, func(i int) float64 { return sorted[i] })
+}
+
+// quantileAt is Quantile over n values given by at; the ranks it reads
+// increase from call to call within SummariseAt, as OrderStatistics needs.
+func quantileAt(n int, p float64, at func(int) float64) float64 {
+	h := float64(n-1) * p
 	lo := int(h)
-	if lo >= len(sorted)-1 {
-		return sorted[len(sorted)-1]
+	if lo >= n-1 {
+		return at(n - 1)
 	}
 	frac := h - float64(lo)
 	if frac == 0 {
-		return sorted[lo]
+		return at(lo)
 	}
-	return sorted[lo] + frac*(sorted[lo+1]-sorted[lo])
+	x := at(lo)
+	return x + frac*(at(lo+1)-x)
 }

@@ -16,9 +16,10 @@ type Tie struct {
 
 // Ranking holds the midranks of a set of values.
 type Ranking struct {
-	Ranks []float64 // rank of each value, in input order
-	Order []int32   // indices of the values in ascending order, ties in input order
-	Ties  []Tie     // the tied values in ascending order
+	Ranks  []float64 // rank of each value, in input order
+	Order  []int32   // indices of the values in ascending order, ties in input order
+	Sorted []float64 // the values in ascending order: Sorted[i] = values[Order[i]]
+	Ties   []Tie     // the tied values in ascending order
 	// TieSum is Σ(t³−t) over the tie blocks, t the size of each block; it is
 	// the term of the tie correction 1 − TieSum/(N³−N).
 	TieSum float64
@@ -33,7 +34,10 @@ type Ranking struct {
 func Midranks(values []float64) Ranking {
 	n := len(values)
 	order, keys := sortedOrder(values)
-	r := Ranking{Ranks: make([]float64, n), Order: order}
+	r := Ranking{Ranks: make([]float64, n), Order: order, Sorted: make([]float64, n)}
+	for i, k := range keys {
+		r.Sorted[i] = fromSortKey(k)
+	}
 	for i := 0; i < n; {
 		j := i + 1
 		for j < n && keys[j] == keys[i] {
@@ -45,7 +49,7 @@ func Midranks(values []float64) Ranking {
 			r.Ranks[idx] = mid
 		}
 		if t := j - i; t > 1 {
-			r.Ties = append(r.Ties, Tie{Value: values[order[i]], Count: t})
+			r.Ties = append(r.Ties, Tie{Value: r.Sorted[i], Count: t})
 			ft := float64(t)
 			r.TieSum += ft*ft*ft - ft
 		}
@@ -62,6 +66,14 @@ func sortKey(v float64) uint64 {
 		return ^b
 	}
 	return b | 1<<63
+}
+
+// fromSortKey inverts sortKey.
+func fromSortKey(k uint64) float64 {
+	if k>>63 == 1 {
+		return math.Float64frombits(k &^ (1 << 63))
+	}
+	return math.Float64frombits(^k)
 }
 
 const (

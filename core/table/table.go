@@ -265,14 +265,7 @@ func (p *parser) long() error {
 		}
 		g := last
 		if !bytes.Equal(f[0].text, lastLabel) || f[0].escaped {
-			label := f[0].String()
-			var known bool
-			if g, known = index[label]; !known {
-				g = len(t.Labels)
-				index[label] = g
-				t.Labels = append(t.Labels, label)
-				t.Missing = append(t.Missing, 0)
-			}
+			g = p.groupOf(index, f[0])
 			lastLabel, last = f[0].text, g
 			if f[0].escaped {
 				lastLabel = nil
@@ -288,4 +281,34 @@ func (p *parser) long() error {
 			t.add(v, g, r.line)
 		}
 	}
+}
+
+// groupOf finds or adds the group of a label; looking up a plain label
+// allocates nothing.
+func (p *parser) groupOf(index map[string]int, label field) int {
+	t := p.t
+	if !label.escaped && len(t.Labels) <= 8 {
+		// a few comparisons beat hashing for the usual handful of groups
+		for g, l := range t.Labels {
+			if string(label.text) == l {
+				return g
+			}
+		}
+	}
+	var g int
+	var known bool
+	if label.escaped {
+		g, known = index[label.String()]
+	} else {
+		g, known = index[string(label.text)]
+	}
+	if known {
+		return g
+	}
+	g = len(t.Labels)
+	name := label.String()
+	index[name] = g
+	t.Labels = append(t.Labels, name)
+	t.Missing = append(t.Missing, 0)
+	return g
 }

@@ -1,0 +1,71 @@
+package core
+
+import (
+	"math/rand/v2"
+	"strconv"
+	"sync"
+	"testing"
+)
+
+// benchText makes n values in 5 groups as long-layout text: a label, then a
+// number with one decimal, as exported by a spreadsheet. Groups differ a
+// little in location so the test has something to find.
+func benchText(n int) []byte {
+	rng := rand.New(rand.NewPCG(42, 7))
+	labels := []string{"North clinic", "South clinic", "East clinic", "West clinic", "Central clinic"}
+	b := make([]byte, 0, n*20)
+	b = append(b, "site,minutes\n"...)
+	for i := range n {
+		g := i % len(labels)
+		v := rng.ExpFloat64()*30 + float64(g)
+		b = append(b, labels[g]...)
+		b = append(b, ',')
+		b = strconv.AppendFloat(b, float64(int(v*10))/10, 'f', -1, 64)
+		b = append(b, '\n')
+	}
+	return b
+}
+
+var texts sync.Map // n → []byte
+
+func text(n int) []byte {
+	if b, ok := texts.Load(n); ok {
+		return b.([]byte)
+	}
+	b := benchText(n)
+	texts.Store(n, b)
+	return b
+}
+
+func benchmarkAnalyze(b *testing.B, n int) {
+	data := text(n)
+	b.SetBytes(int64(len(data)))
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Analyze(data, Options{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// Text to result (parse, rank, H, p) for 1,000,000 values in 5 groups.
+func BenchmarkAnalyze1M(b *testing.B) { benchmarkAnalyze(b, 1_000_000) }
+
+// The same for 10,000,000 values: growth should be linear.
+func BenchmarkAnalyze10M(b *testing.B) { benchmarkAnalyze(b, 10_000_000) }
+
+// A small everyday case: 60 values.
+func BenchmarkAnalyzeSmall(b *testing.B) { benchmarkAnalyze(b, 60) }
+
+func BenchmarkEncode200k(b *testing.B) {
+	r, err := Analyze(text(200_000), Options{})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Encode(r); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
