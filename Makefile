@@ -45,7 +45,7 @@ check-core:
 fuzz:
 	$(GO) test ./core/table -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME)
 	$(GO) test ./core -run '^$$' -fuzz '^FuzzAnalyze$$' -fuzztime $(FUZZTIME)
-	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzMidranks$$' -fuzztime $(FUZZTIME)
+	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzRank$$' -fuzztime $(FUZZTIME)
 
 # bench: the speed and memory benchmarks
 bench:

@@ -10,7 +10,6 @@ package core
 import (
 	"fmt"
 	"slices"
-	"sort"
 
 	"midrank/core/describe"
 	"midrank/core/kruskal"
@@ -113,7 +112,7 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	ranking := rank.Midranks(t.Values)
+	ranking := rank.Rank(t.Values, t.Groups, len(t.Labels))
 	if len(ranking.Ties) == 1 && ranking.Ties[0].Count == len(t.Values) {
 		return nil, &table.Error{
 			Reason: fmt.Sprintf("all %d values are equal (%s), so there is nothing to rank", len(t.Values), report.Number(t.Values[0])),
@@ -122,16 +121,12 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 
 	r := &Result{Version: Version, N: len(t.Values), K: len(t.Labels), Alpha: s.alpha, table: t, ranking: ranking}
 	r.Input = describeInput(t)
-	rankSums := make([]float64, r.K)
-	for i, g := range t.Groups {
-		rankSums[g] += ranking.Ranks[i]
-	}
-	r.Groups = summarise(t, sizes, rankSums, ranking)
+	r.Groups = summarise(t, ranking)
 	for _, m := range t.Missing {
 		r.Missing += m
 	}
 
-	test := kruskal.Compute(sizes, rankSums, ranking.TieSum)
+	test := kruskal.Compute(sizes, ranking.RankSums, ranking.TieSum)
 	r.H, r.HUncorrected, r.TieCorrection, r.DF = test.H, test.HUncorrected, test.TieCorrection, test.DF
 	r.PAsymptotic = test.P
 	r.PValue, r.PMethod = test.P, s.pvalue
@@ -210,9 +205,10 @@ func describeInput(t *table.Table) Input {
 }
 
 // summarise builds the group summaries. The quartiles need only a few order
-// statistics of each group; one pass over the global sorted order picks
-// them out, so no group's values are copied or sorted again.
-func summarise(t *table.Table, sizes []int, rankSums []float64, ranking rank.Ranking) []Group {
+// statistics of each group; one pass over the sorted sample picks them out,
+// so no group's values are copied or sorted again.
+func summarise(t *table.Table, ranking rank.Ranking) []Group {
+	sizes := ranking.Sizes
 	wanted := make([][]int, len(sizes)) // ranks within the group, ascending
 	picked := make([][]float64, len(sizes))
 	for g, n := range sizes {
@@ -220,8 +216,7 @@ func summarise(t *table.Table, sizes []int, rankSums []float64, ranking rank.Ran
 		picked[g] = make([]float64, 0, len(wanted[g]))
 	}
 	seen := make([]int, len(sizes))
-	for i, idx := range ranking.Order {
-		g := t.Groups[idx]
+	for i, g := range ranking.Groups {
 		if w := wanted[g]; len(picked[g]) < len(w) && w[len(picked[g])] == seen[g] {
 			picked[g] = append(picked[g], ranking.Sorted[i])
 		}
@@ -233,9 +228,10 @@ func summarise(t *table.Table, sizes []int, rankSums []float64, ranking rank.Ran
 			j, _ := slices.BinarySearch(wanted[g], rank)
 			return picked[g][j]
 		})
+		sum := ranking.RankSums[g]
 		groups[g] = Group{
 			Label: t.Labels[g], N: n, Missing: t.Missing[g],
-			RankSum: rankSums[g], MeanRank: rankSums[g] / float64(n),
+			RankSum: sum, MeanRank: sum / float64(n),
 			Median: d.Median, Q1: d.Q1, Q3: d.Q3, Min: d.Min, Max: d.Max,
 		}
 	}
@@ -289,16 +285,12 @@ func (r *Result) Page(list List, offset, count int) PageOf {
 		p.Ties = r.ranking.Ties[offset:end]
 		return p
 	}
-	ties := r.ranking.Ties
 	p.Ranks = make([]RankedValue, 0, end-offset)
 	for i := offset; i < end; i++ {
 		v := r.table.Values[i]
-		shared := 1
-		if j := sort.Search(len(ties), func(j int) bool { return ties[j].Value >= v }); j < len(ties) && ties[j].Value == v {
-			shared = ties[j].Count
-		}
+		rank, shared := r.ranking.RankOf(v)
 		p.Ranks = append(p.Ranks, RankedValue{
-			Group: r.table.Labels[r.table.Groups[i]], Value: v, Rank: r.ranking.Ranks[i],
+			Group: r.table.Labels[r.table.Groups[i]], Value: v, Rank: rank,
 			Line: int(r.table.Lines[i]), Shared: shared,
 		})
 	}

@@ -1,11 +1,17 @@
 // Package rank gives observations their midranks: tied values share the mean
 // of the positions they occupy, so the ranks of n values always sum to
 // n(n+1)/2 (Kruskal & Wallis 1952, §1.3; common practice).
+//
+// The values are sorted once, each carrying the number of its group, and
+// everything else (rank sums, the tie table, any value's rank) is read from
+// that sorted sequence, so no pass jumps about in memory.
 package rank
 
 import (
 	"math"
 	"slices"
+	"sort"
+	"unsafe"
 )
 
 // Tie is a value shared by two or more observations.
@@ -14,39 +20,40 @@ type Tie struct {
 	Count int     `json:"count"`
 }
 
-// Ranking holds the midranks of a set of values.
+// Ranking is a ranked sample of k groups.
 type Ranking struct {
-	Ranks  []float64 // rank of each value, in input order
-	Order  []int32   // indices of the values in ascending order, ties in input order
-	Sorted []float64 // the values in ascending order: Sorted[i] = values[Order[i]]
-	Ties   []Tie     // the tied values in ascending order
+	Sorted []float64 // the values in ascending order
+	Groups []int32   // the group of each sorted value; equal values keep input order
+	Sizes  []int     // values per group
+	// RankSums are the groups' sums of midranks.
+	RankSums []float64
+	Ties     []Tie // the tied values in ascending order
 	// TieSum is Σ(t³−t) over the tie blocks, t the size of each block; it is
 	// the term of the tie correction 1 − TieSum/(N³−N).
 	TieSum float64
 }
 
-// Midranks ranks values in ascending order. Values must not be NaN; -0 and +0
-// must already be the same value (the table reader stores both as +0).
+// Rank ranks values that belong to groups 0 … k−1. Values must not be NaN;
+// -0 and +0 must already be the same value (the table reader stores both as
+// +0).
 //
 // It runs in linear time: a least-significant-digit radix sort on the
 // float64 bit patterns, made monotone by flipping (Herf 2001, "Radix
-// tricks"), followed by one pass over the sorted order.
-func Midranks(values []float64) Ranking {
-	n := len(values)
-	order, keys := sortedOrder(values)
-	r := Ranking{Ranks: make([]float64, n), Order: order, Sorted: make([]float64, n)}
-	for i, k := range keys {
-		r.Sorted[i] = fromSortKey(k)
-	}
+// tricks"), followed by one pass over the sorted sequence.
+func Rank(values []float64, groups []int32, k int) Ranking {
+	r := Ranking{Sizes: make([]int, k), RankSums: make([]float64, k)}
+	r.Sorted, r.Groups = sortTagged(values, groups)
+	n := len(r.Sorted)
 	for i := 0; i < n; {
 		j := i + 1
-		for j < n && keys[j] == keys[i] {
+		for j < n && r.Sorted[j] == r.Sorted[i] {
 			j++
 		}
 		// positions i+1 … j share their mean
 		mid := float64(i+1+j) / 2
-		for _, idx := range order[i:j] {
-			r.Ranks[idx] = mid
+		for _, g := range r.Groups[i:j] {
+			r.Sizes[g]++
+			r.RankSums[g] += mid
 		}
 		if t := j - i; t > 1 {
 			r.Ties = append(r.Ties, Tie{Value: r.Sorted[i], Count: t})
@@ -56,6 +63,30 @@ func Midranks(values []float64) Ranking {
 		i = j
 	}
 	return r
+}
+
+// Midranks returns the midrank of each value, in input order.
+func Midranks(values []float64) []float64 {
+	r := Rank(values, make([]int32, len(values)), 1)
+	ranks := make([]float64, len(values))
+	for i, v := range values {
+		ranks[i], _ = r.RankOf(v)
+	}
+	return ranks
+}
+
+// RankOf returns the midrank of a value of the sample and how many values
+// share it (1 if it is untied), by binary search in the sorted values.
+func (r Ranking) RankOf(v float64) (rank float64, shared int) {
+	lo := sort.SearchFloat64s(r.Sorted, v)
+	hi := lo
+	for hi < len(r.Sorted) && hi-lo < 64 && r.Sorted[hi] == v {
+		hi++
+	}
+	if hi-lo == 64 { // a long tie block: search for its end
+		hi = lo + sort.Search(len(r.Sorted)-lo, func(i int) bool { return r.Sorted[lo+i] > v })
+	}
+	return float64(lo+1+hi) / 2, hi - lo
 }
 
 // sortKey maps a float64 to a uint64 whose unsigned order is the numeric
@@ -84,15 +115,15 @@ const (
 	smallSort = 256
 )
 
-// sortedOrder returns the indices of values in ascending order, equal values
-// in index order (a stable sort), and the sort keys in that order.
-func sortedOrder(values []float64) (order []int32, sortedKeys []uint64) {
+// sortTagged sorts values ascending, carrying each value's tag along;
+// equal values keep their input order (the sort is stable).
+func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 	n := len(values)
-	idx := make([]int32, n)
-	for i := range idx {
-		idx[i] = int32(i)
-	}
 	if n < smallSort {
+		idx := make([]int32, n)
+		for i := range idx {
+			idx[i] = int32(i)
+		}
 		slices.SortStableFunc(idx, func(a, b int32) int {
 			va, vb := values[a], values[b]
 			switch {
@@ -103,11 +134,11 @@ func sortedOrder(values []float64) (order []int32, sortedKeys []uint64) {
 			}
 			return 0
 		})
-		keys := make([]uint64, n)
+		sorted, sortedTags := make([]float64, n), make([]int32, n)
 		for i, j := range idx {
-			keys[i] = sortKey(values[j])
+			sorted[i], sortedTags[i] = values[j], tags[j]
 		}
-		return idx, keys
+		return sorted, sortedTags
 	}
 	keys := make([]uint64, n)
 	var count [passes][buckets]int32
@@ -118,8 +149,9 @@ func sortedOrder(values []float64) (order []int32, sortedKeys []uint64) {
 			count[p][(k>>(p*digitBits))&(buckets-1)]++
 		}
 	}
+	tags = slices.Clone(tags)
 	keys2 := make([]uint64, n)
-	idx2 := make([]int32, n)
+	tags2 := make([]int32, n)
 	for p := range passes {
 		c := &count[p]
 		shift := p * digitBits
@@ -135,10 +167,15 @@ func sortedOrder(values []float64) (order []int32, sortedKeys []uint64) {
 			at := c[d]
 			c[d]++
 			keys2[at] = k
-			idx2[at] = idx[i]
+			tags2[at] = tags[i]
 		}
 		keys, keys2 = keys2, keys
-		idx, idx2 = idx2, idx
+		tags, tags2 = tags2, tags
 	}
-	return idx, keys
+	// decode the keys in place: the float64s reuse the keys' memory
+	sorted := unsafe.Slice((*float64)(unsafe.Pointer(unsafe.SliceData(keys))), n)
+	for i, k := range keys {
+		sorted[i] = fromSortKey(k)
+	}
+	return sorted, tags
 }

@@ -27,6 +27,16 @@ func naiveRanks(values []float64) []float64 {
 	return r
 }
 
+// indexTags tags each value with its own index, so that the sorted tags
+// show whether the sort was stable.
+func indexTags(n int) []int32 {
+	t := make([]int32, n)
+	for i := range t {
+		t[i] = int32(i)
+	}
+	return t
+}
+
 func TestMidranks(t *testing.T) {
 	tests := []struct {
 		name   string
@@ -42,15 +52,16 @@ func TestMidranks(t *testing.T) {
 	}
 	for _, tt := range tests {
 		got := Midranks(tt.values)
-		if !reflect.DeepEqual(got.Ranks, tt.ranks) || !reflect.DeepEqual(got.Ties, tt.ties) {
-			t.Errorf("Midranks(%v) = %v ties %v, want %v ties %v", tt.values, got.Ranks, got.Ties, tt.ranks, tt.ties)
+		ties := Rank(tt.values, make([]int32, len(tt.values)), 1).Ties
+		if !reflect.DeepEqual(got, tt.ranks) || !reflect.DeepEqual(ties, tt.ties) {
+			t.Errorf("Midranks(%v) = %v ties %v, want %v ties %v", tt.values, got, ties, tt.ranks, tt.ties)
 		}
 	}
 }
 
-// TestMidranksLarge exercises the radix path (more than smallSort values)
+// TestRankLarge exercises the radix path (more than smallSort values)
 // against the definition, with heavy ties, negatives and wide magnitudes.
-func TestMidranksLarge(t *testing.T) {
+func TestRankLarge(t *testing.T) {
 	rng := rand.New(rand.NewPCG(1, 2))
 	for _, n := range []int{smallSort - 1, smallSort, 1000, 3000} {
 		values := make([]float64, n)
@@ -64,38 +75,64 @@ func TestMidranksLarge(t *testing.T) {
 				values[i] = math.Round(rng.Float64()*100) / 4
 			}
 		}
-		got := Midranks(values)
-		want := naiveRanks(values)
-		if !reflect.DeepEqual(got.Ranks, want) {
-			t.Fatalf("n=%d: radix midranks differ from the definition", n)
+		if got, want := Midranks(values), naiveRanks(values); !reflect.DeepEqual(got, want) {
+			t.Fatalf("n=%d: midranks differ from the definition", n)
 		}
-		checkOrder(t, values, got)
+		checkRanking(t, values)
 	}
 }
 
-// checkOrder checks that Order sorts the values stably and that TieSum
-// matches the tie table.
-func checkOrder(t *testing.T, values []float64, r Ranking) {
+// checkRanking checks that Rank sorts stably, that rank sums and sizes add
+// up per group, and that TieSum matches the tie table.
+func checkRanking(t *testing.T, values []float64) {
 	t.Helper()
-	for i := 1; i < len(r.Order); i++ {
-		a, b := r.Order[i-1], r.Order[i]
-		if values[a] > values[b] || (values[a] == values[b] && a > b) {
-			t.Fatalf("Order not a stable ascending sort at %d: %v (%d) then %v (%d)", i, values[a], a, values[b], b)
+	r := Rank(values, indexTags(len(values)), len(values))
+	ranks := naiveRanks(values)
+	for i := range r.Sorted {
+		idx := r.Groups[i]
+		if r.Sorted[i] != values[idx] {
+			t.Fatalf("Sorted[%d] = %v carries tag %d of value %v", i, r.Sorted[i], idx, values[idx])
+		}
+		if i > 0 && (r.Sorted[i-1] > r.Sorted[i] || (r.Sorted[i-1] == r.Sorted[i] && r.Groups[i-1] > idx)) {
+			t.Fatalf("not a stable ascending sort at %d", i)
+		}
+		if r.Sizes[idx] != 1 || r.RankSums[idx] != ranks[idx] {
+			t.Fatalf("value %d: size %d, rank sum %v; want 1, %v", idx, r.Sizes[idx], r.RankSums[idx], ranks[idx])
 		}
 	}
 	var sum float64
 	for _, tie := range r.Ties {
 		c := float64(tie.Count)
 		sum += c*c*c - c
+		if _, shared := r.RankOf(tie.Value); shared != tie.Count {
+			t.Fatalf("RankOf(%v) shared by %d, tie table says %d", tie.Value, shared, tie.Count)
+		}
 	}
 	if sum != r.TieSum {
 		t.Fatalf("TieSum = %v, tie table gives %v", r.TieSum, sum)
 	}
 }
 
-// FuzzMidranks checks the definition and the rank-sum identity
+func TestRankOfLongTie(t *testing.T) {
+	values := make([]float64, 1000)
+	for i := range values {
+		values[i] = float64(i / 400) // blocks of 400, 400, 200
+	}
+	r := Rank(values, make([]int32, len(values)), 1)
+	for _, tt := range []struct {
+		v      float64
+		rank   float64
+		shared int
+	}{{0, 200.5, 400}, {1, 600.5, 400}, {2, 900.5, 200}} {
+		if rank, shared := r.RankOf(tt.v); rank != tt.rank || shared != tt.shared {
+			t.Errorf("RankOf(%v) = %v, %d; want %v, %d", tt.v, rank, shared, tt.rank, tt.shared)
+		}
+	}
+}
+
+// FuzzRank checks the definition, stability and the rank-sum identity
 // Σ ranks = n(n+1)/2 on arbitrary finite values.
-func FuzzMidranks(f *testing.F) {
+func FuzzRank(f *testing.F) {
 	f.Add([]byte{0, 0, 0, 0, 0, 0, 240, 63, 0, 0, 0, 0, 0, 0, 240, 63})
 	f.Add(make([]byte, 8*300))
 	f.Fuzz(func(t *testing.T, data []byte) {
@@ -110,24 +147,23 @@ func FuzzMidranks(f *testing.F) {
 			}
 			values = append(values, v)
 		}
-		r := Midranks(values)
-		var sum float64
-		for _, x := range r.Ranks {
-			sum += x
+		r := Rank(values, make([]int32, len(values)), 1)
+		if n := float64(len(values)); r.RankSums[0] != n*(n+1)/2 {
+			t.Fatalf("ranks sum to %v, want %v", r.RankSums[0], n*(n+1)/2)
 		}
-		n := float64(len(values))
-		if sum != n*(n+1)/2 {
-			t.Fatalf("ranks sum to %v, want %v", sum, n*(n+1)/2)
+		if len(values) <= 600 {
+			checkRanking(t, values)
 		}
-		if len(values) <= 600 && !reflect.DeepEqual(r.Ranks, naiveRanks(values)) {
-			t.Fatalf("Midranks(%v) = %v, want %v", values, r.Ranks, naiveRanks(values))
-		}
-		checkOrder(t, values, r)
 	})
 }
 
-func ExampleMidranks() {
-	r := Midranks([]float64{12, 7, 12, 3})
-	fmt.Println(r.Ranks, r.Ties, r.TieSum)
-	// Output: [3.5 2 3.5 1] [{12 2}] 6
+func ExampleRank() {
+	// two groups: 0 holds 12 and 7, 1 holds 12 and 3
+	r := Rank([]float64{12, 7, 12, 3}, []int32{0, 0, 1, 1}, 2)
+	fmt.Println(r.RankSums, r.Ties, r.TieSum)
+	rank, shared := r.RankOf(12)
+	fmt.Println(rank, shared)
+	// Output:
+	// [5.5 4.5] [{12 2}] 6
+	// 3.5 2
 }

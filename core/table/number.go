@@ -33,12 +33,12 @@ var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10,
 //	"", "NA", "N/A", "NaN", ".", "-" (any letter case) are missing;
 //	"inf", "infinity", "∞" with an optional sign, and overflowing numbers, are infinite.
 //
-// Short numbers (at most 15 significant digits and a power of ten within ±22)
+// Short numbers (at most 15 digits and a power of ten within ±22)
 // are converted exactly as m·10^e or m/10^e, which is correctly rounded because
 // both operands are exact in float64 (Clinger 1990, "How to read floating point
 // numbers accurately"); anything else goes through strconv.ParseFloat.
 func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) {
-	if isMissing(s) {
+	if len(s) <= 3 && isMissing(s) {
 		return 0, cellMissing, false
 	}
 	i := 0
@@ -47,32 +47,32 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 		neg = s[i] == '-'
 		i++
 	}
+	// mant collects every digit; it is used only when there are at most 15,
+	// so it cannot overflow where it matters.
 	var mant uint64
-	digits, fracDigits, sigDigits := 0, 0, 0
-	for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-		digits++
-		if mant == 0 && s[i] == '0' {
-			continue
+	start := i
+	for ; i < len(s); i++ {
+		d := s[i] - '0'
+		if d > 9 {
+			break
 		}
-		if sigDigits < 19 {
-			mant = mant*10 + uint64(s[i]-'0')
-		}
-		sigDigits++
+		mant = mant*10 + uint64(d)
 	}
+	digits, fracDigits := i-start, 0
 	markAt := -1
 	if i < len(s) && (s[i] == '.' || (comma && s[i] == ',')) {
 		markAt = i
-		for i++; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-			digits++
-			fracDigits++
-			if mant == 0 && s[i] == '0' {
-				continue
+		i++
+		fracStart := i
+		for ; i < len(s); i++ {
+			d := s[i] - '0'
+			if d > 9 {
+				break
 			}
-			if sigDigits < 19 {
-				mant = mant*10 + uint64(s[i]-'0')
-			}
-			sigDigits++
+			mant = mant*10 + uint64(d)
 		}
+		fracDigits = i - fracStart
+		digits += fracDigits
 	}
 	if digits == 0 {
 		if isInfinity(s) {
@@ -88,14 +88,13 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 			expNeg = s[i] == '-'
 			i++
 		}
-		expDigits := 0
+		expStart := i
 		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-			expDigits++
 			if exp < 100000 {
 				exp = exp*10 + int(s[i]-'0')
 			}
 		}
-		if expDigits == 0 {
+		if i == expStart {
 			return 0, cellText, false
 		}
 		if expNeg {
@@ -106,26 +105,21 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 		return 0, cellText, false
 	}
 	usedComma = markAt >= 0 && s[markAt] == ','
-
-	if e := exp - fracDigits; sigDigits <= 15 {
-		f := float64(mant)
-		switch {
-		case mant == 0:
-			f = 0
-		case e == 0:
-		case e > 0 && e <= 22:
-			f *= pow10[e]
-		case e < 0 && e >= -22:
-			f /= pow10[-e]
-		default:
-			f = slowParse(s, markAt)
-		}
-		if neg {
-			f = -f
-		}
-		return finite(f, usedComma)
+	e := exp - fracDigits
+	if digits > 15 || e > 22 || e < -22 {
+		return finite(slowParse(s, markAt), usedComma)
 	}
-	return finite(slowParse(s, markAt), usedComma)
+	f := float64(mant)
+	switch {
+	case e > 0:
+		f *= pow10[e]
+	case e < 0:
+		f /= pow10[-e]
+	}
+	if neg {
+		f = -f
+	}
+	return finite(f, usedComma)
 }
 
 // slowParse converts a cell already checked against the grammar; a decimal

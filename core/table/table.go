@@ -91,13 +91,26 @@ func Parse(data []byte, opt Options) (*Table, error) {
 	}
 	// One value per line (long) or per line and column (wide) is the common
 	// case; sizing the arrays once avoids regrowing them for large inputs.
-	lines := bytes.Count(data, []byte{'\n'}) + 1
+	lines := estimateLines(data)
 	p := parser{t: t, r: newReader(data, t.Separator), comma: comma}
 	if t.Layout == LayoutLong {
 		t.reserve(lines)
 		return t, p.long()
 	}
 	return t, p.wide(lines)
+}
+
+// estimateLines guesses the number of lines from the first 64 KiB, a little
+// generously, so that the value arrays rarely need to grow; counting them all
+// would cost a pass over the text (a slow one in WebAssembly, which has no
+// vectorised byte search).
+func estimateLines(data []byte) int {
+	const sample = 64 << 10
+	if len(data) <= sample {
+		return bytes.Count(data, []byte{'\n'}) + 1
+	}
+	n := bytes.Count(data[:sample], []byte{'\n'}) + 1
+	return int(float64(n)*float64(len(data))/sample*1.05) + 16
 }
 
 func (t *Table) reserve(n int) {
@@ -289,8 +302,10 @@ func (p *parser) groupOf(index map[string]int, label field) int {
 	t := p.t
 	if !label.escaped && len(t.Labels) <= 8 {
 		// a few comparisons beat hashing for the usual handful of groups
+		text := label.text
 		for g, l := range t.Labels {
-			if string(label.text) == l {
+			// length and first byte first: most mismatches end there, without a call
+			if string(text) == l {
 				return g
 			}
 		}
