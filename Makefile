@@ -3,7 +3,7 @@ GO ?= go
 WASMEXEC := $(shell $(GO) env GOROOT)/lib/wasm
 FUZZTIME ?= 10s
 
-.PHONY: build serve test test-go test-wasm test-browser vet fmt-check check-core fuzz bench reference clean
+.PHONY: build serve test test-deps test-go test-wasm vet fmt-check check-core fuzz bench reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -14,9 +14,14 @@ serve: build
 	$(GO) run ./tools/serve --addr 127.0.0.1:8080 --dir dist
 
 # test: every check that must pass before a change lands
-test: fmt-check vet check-core test-go test-wasm fuzz
+test: fmt-check vet check-core test-deps test-go test-wasm fuzz
 
-# test-go: the Go tests, natively
+# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js)
+test-deps:
+	@command -v chromium >/dev/null 2>&1 || { apt-get update && apt-get install -y chromium; }
+	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs; }
+
+# test-go: the Go tests natively, the browser tests in headless Chromium among them
 test-go:
 	$(GO) test ./...
 

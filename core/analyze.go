@@ -148,7 +148,7 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 	}
 	r.TiesComplete = r.TiesTotal <= ListLimit
 	r.Ties = []rank.Tie{}
-	if r.TiesComplete {
+	if r.TiesComplete && r.TiesTotal > 0 {
 		r.Ties = ranking.Ties
 	}
 

@@ -157,3 +157,21 @@ func ExampleAnalyze() {
 	// B: mean rank 8.00, median 8
 	// C: mean rank 2.17, median 2
 }
+
+// TestListsAreNeverNull: empty lists are [] in JSON, so that readers can
+// iterate without a check.
+func TestListsAreNeverNull(t *testing.T) {
+	r, err := Analyze([]byte("A,B\n1,2\n3,4\n"), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Encode(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, key := range []string{`"ties":[]`, `"warnings":[`, `"ranks":[`} {
+		if !strings.Contains(string(b), key) {
+			t.Errorf("JSON lacks %s: %s", key, b)
+		}
+	}
+}

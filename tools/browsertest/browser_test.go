@@ -1,0 +1,230 @@
+// Package browsertest drives the built page in headless Chromium (Debian's
+// chromium package, which make test installs) and checks it as a person
+// would use it. It never skips: without Chromium the tests fail and say how
+// to install it.
+package browsertest
+
+import (
+	"context"
+	"fmt"
+	"net/http/httptest"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"github.com/chromedp/cdproto/log"
+	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/runtime"
+	"github.com/chromedp/chromedp"
+
+	"midrank/core"
+	"midrank/tools/internal/sitebuild"
+	"midrank/tools/internal/static"
+)
+
+// browser is one page in a fresh Chromium with a record of every request
+// and console message it made.
+type browser struct {
+	ctx      context.Context
+	origin   string
+	mu       sync.Mutex
+	requests []string
+	console  []string
+}
+
+func (b *browser) record(list *[]string, s string) {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	*list = append(*list, s)
+}
+
+func (b *browser) snapshot() (requests, console []string) {
+	b.mu.Lock()
+	defer b.mu.Unlock()
+	return append([]string(nil), b.requests...), append([]string(nil), b.console...)
+}
+
+// start builds the site, serves it on loopback with the production headers
+// and opens it in Chromium with the flags this machine needs.
+func start(t *testing.T) *browser {
+	t.Helper()
+	chromium, err := exec.LookPath("chromium")
+	if err != nil {
+		t.Fatal("Chromium is needed for the browser tests: make test installs it (apt-get install chromium)")
+	}
+	dist := t.TempDir()
+	var buildLog strings.Builder
+	if err := sitebuild.Build("../..", dist, &buildLog); err != nil {
+		t.Fatalf("building the site: %v\n%s", err, buildLog.String())
+	}
+	srv := httptest.NewServer(static.Handler(os.DirFS(dist)))
+	t.Cleanup(srv.Close)
+
+	opts := []chromedp.ExecAllocatorOption{
+		chromedp.ExecPath(chromium),
+		chromedp.Headless, chromedp.NoSandbox, chromedp.DisableGPU, chromedp.NoFirstRun,
+		chromedp.Flag("disable-quic", true),
+		chromedp.Flag("disable-background-networking", true),
+		chromedp.Flag("disable-component-update", true),
+		chromedp.Flag("disable-sync", true),
+		chromedp.UserDataDir(t.TempDir()),
+		chromedp.WindowSize(1200, 900),
+	}
+	b := &browser{origin: srv.URL}
+	actx, cancelAlloc := chromedp.NewExecAllocator(context.Background(), opts...)
+	ctx, cancelCtx := chromedp.NewContext(actx, chromedp.WithListener(func(ev any) {
+		switch e := ev.(type) {
+		case *network.EventRequestWillBeSent:
+			b.record(&b.requests, e.Request.URL)
+		case *runtime.EventConsoleAPICalled:
+			var parts []string
+			for _, a := range e.Args {
+				parts = append(parts, string(a.Value)+a.Description)
+			}
+			b.record(&b.console, string(e.Type)+": "+strings.Join(parts, " "))
+		case *runtime.EventExceptionThrown:
+			text := e.ExceptionDetails.Text
+			if e.ExceptionDetails.Exception != nil {
+				text += " " + e.ExceptionDetails.Exception.Description
+			}
+			b.record(&b.console, "exception: "+text)
+		case *log.EventEntryAdded:
+			b.record(&b.console, string(e.Entry.Level)+": "+e.Entry.Text)
+		}
+	}))
+	t.Cleanup(func() { cancelCtx(); cancelAlloc() })
+	b.ctx = ctx
+	if err := chromedp.Do(ctx, chromedp.Navigate(srv.URL+"/")); err != nil {
+		t.Fatal(err)
+	}
+	return b
+}
+
+// waitFor polls a JavaScript condition until it holds.
+func (b *browser) waitFor(t *testing.T, condition string) {
+	t.Helper()
+	if _, err := chromedp.Run(b.ctx, chromedp.Poll[bool](condition, chromedp.WithPollingTimeout(60*time.Second))); err != nil {
+		t.Fatalf("waiting for %s: %v", condition, err)
+	}
+}
+
+func (b *browser) text(t *testing.T, selector string) string {
+	t.Helper()
+	s, err := chromedp.Run(b.ctx, chromedp.TextContent(selector))
+	if err != nil {
+		t.Fatalf("reading %s: %v", selector, err)
+	}
+	return s
+}
+
+// analyse replaces the data and presses Analyse, waiting for the status
+// line to change so that the previous result is not read by mistake.
+func (b *browser) analyse(t *testing.T, data string) {
+	t.Helper()
+	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("status").textContent = ""`)); err != nil {
+		t.Fatal(err)
+	}
+	if err := chromedp.Do(b.ctx, chromedp.SetValue("#data", data), chromedp.Click("#analyse")); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `/^(Done|The data could not)/.test(document.getElementById("status").textContent)`)
+}
+
+// shown formats a figure as the page does (four significant digits).
+func shown(v float64) string {
+	return strconv.FormatFloat(v, 'g', 4, 64)
+}
+
+func TestPage(t *testing.T) {
+	b := start(t)
+	b.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
+
+	demo, err := os.ReadFile("../../site/demo.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := core.Analyze(demo, core.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Run("demo renders its decision", func(t *testing.T) {
+		if got := b.text(t, "#decision"); got != want.Decision {
+			t.Errorf("decision on the page:\n%s\nwant:\n%s", got, want.Decision)
+		}
+		if got := b.text(t, `[data-result="h"]`); got != shown(want.H) {
+			t.Errorf("H shown as %q, want %q", got, shown(want.H))
+		}
+		if got := b.text(t, `[data-result="df"]`); got != strconv.Itoa(want.DF) {
+			t.Errorf("df shown as %q, want %d", got, want.DF)
+		}
+	})
+
+	t.Run("screenshot", func(t *testing.T) {
+		png, err := chromedp.Run(b.ctx, chromedp.FullScreenshot(100))
+		if err != nil {
+			t.Fatal(err)
+		}
+		path := filepath.Join(os.TempDir(), "midrank-results.png")
+		if err := os.WriteFile(path, png, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		t.Logf("screenshot of the results for review: %s", path)
+	})
+
+	t.Run("a pasted case shows the command line's H", func(t *testing.T) {
+		data, err := os.ReadFile("../../testdata/cases/plantgrowth_long.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := core.Analyze(data, core.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		if got := b.text(t, `[data-result="h"]`); got != shown(r.H) {
+			t.Errorf("H shown as %q, want %q", got, shown(r.H))
+		}
+	})
+
+	t.Run("a bad cell is reported with its place", func(t *testing.T) {
+		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\n")
+		if got := b.text(t, "#problem"); !strings.Contains(got, "line 3, column 2") || !strings.Contains(got, `"five"`) {
+			t.Errorf("problem shown as %q, want line 3, column 2 and the cell", got)
+		}
+	})
+
+	t.Run("a hostile label stays text", func(t *testing.T) {
+		label := `<img src=x onerror=alert(1)>`
+		b.analyse(t, label+",B\n1,2\n3,4\n5,6\n")
+		images, err := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("main img").length`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := b.text(t, "#group-rows td"); got != label || images != 0 {
+			t.Errorf("label cell %q with %d images, want the label as text and no image", got, images)
+		}
+	})
+
+	t.Run("nothing is requested from another origin", func(t *testing.T) {
+		requests, console := b.snapshot()
+		if len(requests) == 0 {
+			t.Fatal("no requests were recorded")
+		}
+		for _, u := range requests {
+			if !strings.HasPrefix(u, b.origin+"/") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
+				t.Errorf("request to another origin: %s", u)
+			}
+		}
+		for _, m := range console {
+			if strings.Contains(m, "Content Security Policy") || strings.HasPrefix(m, "exception") || strings.HasPrefix(m, "error") {
+				t.Errorf("console: %s", m)
+			}
+		}
+		fmt.Fprintf(os.Stderr, "browser requests: %d, all from %s\n", len(requests), b.origin)
+	})
+}
