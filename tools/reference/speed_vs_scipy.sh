@@ -1,0 +1,54 @@
+#!/usr/bin/env bash
+# Times the whole midrank command line against pandas.read_csv +
+# scipy.stats.kruskal on the same file of 1,000,000 values in 5 groups, side
+# by side in one run, and prints the ratio and midrank's peak memory. Needs
+# Debian's python3 with python3-pandas and python3-scipy; exits 0 with a
+# note when they are missing. Usage: tools/reference/speed_vs_scipy.sh [N]
+set -euo pipefail
+cd "$(dirname "$0")/../.."
+n=${1:-1000000}
+py=/usr/bin/python3
+if ! "$py" -c 'import pandas, scipy' 2>/dev/null; then
+  echo "python3 with pandas and scipy is not installed (apt-get install python3-pandas python3-scipy); nothing measured"
+  exit 0
+fi
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+go build -trimpath -o "$work/midrank" ./tools/midrank
+"$py" - "$n" "$work/data.csv" <<'PY'
+import sys
+import numpy as np
+n, path = int(sys.argv[1]), sys.argv[2]
+rng = np.random.default_rng(20261202)
+groups = np.array(["North clinic", "South clinic", "East clinic", "West clinic", "Central clinic"])
+g = np.arange(n) % 5
+v = np.floor((rng.exponential(30, n) + g) * 10) / 10
+with open(path, "w") as f:
+    f.write("site,minutes\n")
+    for label, value in zip(groups[g], v):
+        f.write(f"{label},{value}\n")
+PY
+cat > "$work/kw.py" <<'PY'
+import sys
+import pandas
+from scipy import stats
+d = pandas.read_csv(sys.argv[1])
+h, p = stats.kruskal(*[s.values for _, s in d.groupby("site", sort=False)["minutes"]])
+print(h, p)
+PY
+median() { sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}'; }
+time_runs() { # command... → median wall time in ms over 5 runs
+  for _ in 1 2 3 4 5; do
+    s=$(date +%s%N); "$@" > /dev/null; e=$(date +%s%N)
+    echo $(( (e - s) / 1000000 ))
+  done | median
+}
+ours=$(time_runs "$work/midrank" --json "$work/data.csv")
+theirs=$(time_runs "$py" "$work/kw.py" "$work/data.csv")
+peak=$(/usr/bin/time -f %M "$work/midrank" --json "$work/data.csv" 2>&1 >/dev/null | tail -1)
+echo "values: $n ($(du -h "$work/data.csv" | cut -f1) of text)"
+echo "midrank --json (whole process): ${ours} ms, peak memory $((peak / 1024)) MB"
+echo "pandas.read_csv + scipy.stats.kruskal (whole process): ${theirs} ms"
+awk -v a="$ours" -v b="$theirs" 'BEGIN { printf "midrank takes %.2f of the time (target: at most 0.20)\n", a / b }'
+echo "same H from both:"; "$work/midrank" --json "$work/data.csv" | "$py" -c 'import json,sys; r=json.load(sys.stdin); print(r["h"], r["p_value"])'
+"$py" "$work/kw.py" "$work/data.csv"
