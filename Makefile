@@ -3,7 +3,7 @@ GO ?= go
 WASMEXEC := $(shell $(GO) env GOROOT)/lib/wasm
 FUZZTIME ?= 10s
 
-.PHONY: build serve test test-deps test-go test-wasm vet fmt-check check-core fuzz bench reference clean
+.PHONY: build serve test test-deps test-go test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -55,6 +55,10 @@ fuzz:
 # bench: the speed and memory benchmarks
 bench:
 	$(GO) test ./core/... -run '^$$' -bench . -benchmem
+
+# bench-wasm: the core's benchmarks compiled to WebAssembly under Node (20 rounds, so the engine's optimising tier runs)
+bench-wasm:
+	PATH="$(WASMEXEC):$$PATH" GOOS=js GOARCH=wasm $(GO) test ./core/... -run '^$$' -bench . -benchtime 20x -benchmem
 
 # reference: regenerate testdata/reference/ with R and scipy (Debian: r-base-core, python3-scipy)
 reference:

@@ -47,13 +47,57 @@ func newReader(data []byte, sep byte) *reader {
 // read moves to the next record that has a non-empty field; it returns false
 // at the end of the text. Trailing empty fields are dropped, so len(fields)
 // is the number of the last non-empty field.
+//
+// A line without quotes is split right here. It is searched with
+// bytes.IndexByte only, which is vectorised natively and hand-written for
+// WebAssembly, where a byte-by-byte Go loop and every function call cost
+// several times more; and the next separator and quote are remembered, so
+// that each is searched for once.
 func (r *reader) read() (bool, *Error) {
-	for r.pos < len(r.data) {
+	d := r.data
+	for r.pos < len(d) {
 		r.line = r.next
-		if !r.splitPlain() {
+		end := len(d)
+		if i := bytes.IndexByte(d[r.pos:], r.eol); i >= 0 {
+			end = r.pos + i
+		}
+		if r.nextQuote < r.pos {
+			r.nextQuote = len(d)
+			if i := bytes.IndexByte(d[r.pos:], '"'); i >= 0 {
+				r.nextQuote = r.pos + i
+			}
+		}
+		if r.nextQuote < end {
 			if err := r.splitQuoted(); err != nil {
 				return false, err
 			}
+		} else {
+			r.fields = r.fields[:0]
+			start := r.pos
+			for {
+				if r.nextSep < start {
+					r.nextSep = len(d)
+					if i := bytes.IndexByte(d[start:], r.sep); i >= 0 {
+						r.nextSep = start + i
+					}
+				}
+				if r.nextSep >= end {
+					break
+				}
+				cell := d[start:r.nextSep]
+				if !untrimmed(cell) {
+					cell = r.trim(cell)
+				}
+				r.fields = append(r.fields, field{text: cell})
+				start = r.nextSep + 1
+			}
+			cell := d[start:end]
+			if !untrimmed(cell) {
+				cell = r.trim(cell)
+			}
+			r.fields = append(r.fields, field{text: cell})
+			r.pos = end + 1
+			r.next++
 		}
 		for n := len(r.fields); n > 0 && len(r.fields[n-1].text) == 0; n-- {
 			r.fields = r.fields[:n-1]
@@ -63,49 +107,6 @@ func (r *reader) read() (bool, *Error) {
 		}
 	}
 	return false, nil
-}
-
-// splitPlain splits the line at pos when it holds no quote, and returns
-// false, having read nothing, when it does. It searches with bytes.IndexByte
-// only, which is vectorised natively and hand-written for WebAssembly, where
-// a byte-by-byte Go loop runs several times slower; and it remembers where
-// the next separator and quote are, so that each is searched for once.
-func (r *reader) splitPlain() bool {
-	d := r.data
-	end := len(d)
-	if i := bytes.IndexByte(d[r.pos:], r.eol); i >= 0 {
-		end = r.pos + i
-	}
-	if r.nextQuote < r.pos {
-		r.nextQuote = nextIndex(d, r.pos, '"')
-	}
-	if r.nextQuote < end {
-		return false
-	}
-	r.fields = r.fields[:0]
-	start := r.pos
-	for {
-		if r.nextSep < start {
-			r.nextSep = nextIndex(d, start, r.sep)
-		}
-		if r.nextSep >= end {
-			break
-		}
-		r.fields = append(r.fields, field{text: r.trimFast(d[start:r.nextSep])})
-		start = r.nextSep + 1
-	}
-	r.fields = append(r.fields, field{text: r.trimFast(d[start:end])})
-	r.pos = end + 1
-	r.next++
-	return true
-}
-
-// nextIndex is the position of the first c in d at or after from, or len(d).
-func nextIndex(d []byte, from int, c byte) int {
-	if i := bytes.IndexByte(d[from:], c); i >= 0 {
-		return from + i
-	}
-	return len(d)
 }
 
 // splitQuoted reads one record starting at pos that may hold quoted fields,
@@ -175,13 +176,13 @@ func (r *reader) splitQuoted() *Error {
 	}
 }
 
-// trimFast is trim for the usual cell that starts and ends with a printable
-// ASCII character, which needs no trimming (the check inlines).
-func (r *reader) trimFast(s []byte) []byte {
-	if n := len(s); n > 0 && s[0] > ' ' && s[0] < 0x80 && s[n-1] > ' ' && s[n-1] < 0x80 {
-		return s
-	}
-	return r.trim(s)
+// untrimmed reports whether a cell starts and ends with a printable ASCII
+// character, as most cells do, and so needs no trimming. It is kept small
+// enough to inline, with the call to trim left to the rare cell that needs
+// it: in WebAssembly a call costs about as much as reading a short cell.
+func untrimmed(s []byte) bool {
+	n := len(s)
+	return n > 0 && s[0] > ' ' && s[n-1] > ' ' && (s[0]|s[n-1]) < 0x80
 }
 
 func (r *reader) isBlank(c byte) bool {

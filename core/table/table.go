@@ -131,23 +131,17 @@ type parser struct {
 	comma bool
 }
 
-// cell classifies one field and turns text and infinities into errors.
-func (p *parser) cell(f field, column int, group string) (float64, cellKind, *Error) {
-	v, kind, usedComma := parseCell(f.text, p.comma)
+// cellError explains why a cell is neither a number nor a missing marker.
+func (p *parser) cellError(f field, kind cellKind, column int, group string) *Error {
 	switch kind {
 	case cellText:
-		return 0, kind, &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
 			Reason: fmt.Sprintf("%q is not a number", quoteFound(f.text)),
 			Fix:    "correct the cell, or write NA there to mark the value as missing"}
-	case cellInfinite:
-		return 0, kind, &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
-			Reason: fmt.Sprintf("%q is infinite or too large to rank", quoteFound(f.text)),
-			Fix:    "correct the cell, or write NA there to mark the value as missing"}
 	}
-	if usedComma {
-		p.t.DecimalComma = true
-	}
-	return v, kind, nil
+	return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+		Reason: fmt.Sprintf("%q is infinite or too large to rank", quoteFound(f.text)),
+		Fix:    "correct the cell, or write NA there to mark the value as missing"}
 }
 
 func (p *parser) wide(lines int) error {
@@ -193,10 +187,11 @@ func (p *parser) wide(lines int) error {
 					Reason: fmt.Sprintf("%q has no group label above it", quoteFound(f.text)),
 					Fix:    fmt.Sprintf("add a label in line %d, column %d, or remove the cell", header, c+1)}
 			}
-			v, kind, err := p.cell(f, c+1, t.Labels[c])
-			if err != nil {
-				return err
+			v, kind, usedComma := parseCell(f.text, p.comma)
+			if kind > cellMissing {
+				return p.cellError(f, kind, c+1, t.Labels[c])
 			}
+			t.DecimalComma = t.DecimalComma || usedComma
 			switch {
 			case kind == cellNumber:
 				t.Missing[c] += pending[c]
@@ -284,10 +279,11 @@ func (p *parser) long() error {
 				lastLabel = nil
 			}
 		}
-		v, kind, err := p.cell(value, 2, t.Labels[g])
-		if err != nil {
-			return err
+		v, kind, usedComma := parseCell(value.text, p.comma)
+		if kind > cellMissing {
+			return p.cellError(value, kind, 2, t.Labels[g])
 		}
+		t.DecimalComma = t.DecimalComma || usedComma
 		if kind == cellMissing {
 			t.Missing[g]++
 		} else {
