@@ -48,9 +48,9 @@ check-core:
 
 # fuzz: short runs of every fuzz test
 fuzz:
-	$(GO) test ./core/table -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME)
-	$(GO) test ./core -run '^$$' -fuzz '^FuzzAnalyze$$' -fuzztime $(FUZZTIME)
-	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzRank$$' -fuzztime $(FUZZTIME)
+	$(GO) test ./core/table -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
+	$(GO) test ./core -run '^$$' -fuzz '^FuzzAnalyze$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
+	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzRank$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
 # bench: the speed and memory benchmarks
 bench:
