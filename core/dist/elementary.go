@@ -113,3 +113,16 @@ func log(x float64) float64 {
 	hfsq := 0.5 * f * f
 	return k*ln2Hi - ((hfsq - (s*(hfsq+R) + k*ln2Lo)) - f)
 }
+
+// log1p returns ln(1+y) accurately for small y, from log alone, by the
+// classic correction: with u = 1+y rounded, ln(1+y) ≈ ln(u)·y/(u−1), whose
+// error is a few units in the last place (Goldberg 1991, "What every computer
+// scientist should know about floating-point arithmetic", ACM Computing
+// Surveys 23(1), theorem 4).
+func log1p(y float64) float64 {
+	u := 1 + y
+	if u == 1 {
+		return y
+	}
+	return log(u) * y / (u - 1)
+}

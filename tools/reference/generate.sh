@@ -10,4 +10,5 @@ Rscript tools/reference/datasets.R "$out"
 /usr/bin/python3 tools/reference/scipy_kruskal.py "$out"
 
 /usr/bin/python3 tools/reference/chi2_tail.py "$out/chi2_tail.tsv"
+/usr/bin/python3 tools/reference/clopper_pearson.py "$out/clopper_pearson.tsv"
 echo "wrote $out"

@@ -1,0 +1,173 @@
+package exact
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"slices"
+	"testing"
+)
+
+// bruteForce lists every assignment of the scores to groups of the given
+// sizes (as sequences of group labels, each equally likely) and tallies T.
+func bruteForce(sizes []int, scores []int64) map[int64]float64 {
+	n := len(scores)
+	labels := make([]int, 0, n)
+	for g, s := range sizes {
+		for range s {
+			labels = append(labels, g)
+		}
+	}
+	counts := map[int64]float64{}
+	total := 0.0
+	sums := make([]int64, len(sizes))
+	for {
+		clear(sums)
+		for i, g := range labels {
+			sums[g] += scores[i]
+		}
+		counts[Statistic(sizes, sums)]++
+		total++
+		if !nextPermutation(labels) {
+			break
+		}
+	}
+	for t := range counts {
+		counts[t] /= total
+	}
+	return counts
+}
+
+// nextPermutation steps a to the next distinct arrangement in
+// lexicographic order (Knuth, TAOCP 7.2.1.2, algorithm L).
+func nextPermutation(a []int) bool {
+	i := len(a) - 2
+	for i >= 0 && a[i] >= a[i+1] {
+		i--
+	}
+	if i < 0 {
+		return false
+	}
+	j := len(a) - 1
+	for a[j] <= a[i] {
+		j--
+	}
+	a[i], a[j] = a[j], a[i]
+	slices.Reverse(a[i+1:])
+	return true
+}
+
+func blocksOf(scores []int64) []Block {
+	var b []Block
+	for _, s := range scores {
+		if len(b) > 0 && b[len(b)-1].Score == s {
+			b[len(b)-1].Count++
+		} else {
+			b = append(b, Block{s, 1})
+		}
+	}
+	return b
+}
+
+// TestAgainstEnumeration: for size patterns with N ≤ 12, with and without
+// ties, the distribution equals complete enumeration to 1e-12.
+func TestAgainstEnumeration(t *testing.T) {
+	patterns := [][]int{{2, 2, 2}, {3, 3, 3}, {1, 2, 3}, {4, 4, 4}, {2, 2, 2, 2}, {3, 3, 3, 3}, {5, 4, 3},
+		{2, 3, 3, 4}, {1, 1, 1, 1, 1, 1}, {2, 2, 2, 2, 2, 2}, {6, 6}, {1, 11}, {2, 2, 3, 3}}
+	scoreSets := map[string]func(n int) []int64{
+		"untied": func(n int) []int64 {
+			s := make([]int64, n)
+			for i := range s {
+				s[i] = int64(i)
+			}
+			return s
+		},
+		"pairs tied": func(n int) []int64 {
+			s := make([]int64, n)
+			for i := range s {
+				s[i] = int64(i / 2)
+			}
+			return s
+		},
+		"rating scale": func(n int) []int64 {
+			s := make([]int64, n)
+			for i := range s {
+				s[i] = int64(i * 4 / n)
+			}
+			return s
+		},
+		"one big block": func(n int) []int64 {
+			s := make([]int64, n)
+			for i := range s {
+				if i > n/3 {
+					s[i] = int64(i - n/3)
+				}
+			}
+			return s
+		},
+	}
+	for _, sizes := range patterns {
+		n := 0
+		for _, s := range sizes {
+			n += s
+		}
+		for name, make := range scoreSets {
+			scores := make(n)
+			want := bruteForce(sizes, scores)
+			got, err := Permutation(context.Background(), sizes, blocksOf(scores), Limits{MaxStates: 1 << 20}, nil)
+			if err != nil {
+				t.Fatalf("%v %s: %v", sizes, name, err)
+			}
+			if len(got.Stat) != len(want) {
+				t.Errorf("%v %s: %d attained values, enumeration has %d", sizes, name, len(got.Stat), len(want))
+				continue
+			}
+			for i, s := range got.Stat {
+				if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
+					t.Errorf("%v %s: P(T=%d) = %v, enumeration %v", sizes, name, s, got.Prob[i], want[s])
+				}
+			}
+		}
+	}
+}
+
+func TestCritical(t *testing.T) {
+	d := &Distribution{Stat: []int64{1, 2, 3, 4}, Prob: []float64{0.5, 0.3, 0.15, 0.05}}
+	if c, a, ok := d.Critical(0.05); !ok || c != 4 || a != 0.05 {
+		t.Errorf("Critical(0.05) = %d, %v, %v; want 4, 0.05, true", c, a, ok)
+	}
+	if c, a, ok := d.Critical(0.2); !ok || c != 3 || math.Abs(a-0.2) > 1e-15 {
+		t.Errorf("Critical(0.2) = %d, %v, %v; want 3, 0.2, true", c, a, ok)
+	}
+	if _, _, ok := d.Critical(0.01); ok {
+		t.Error("Critical(0.01) found a value; none is that rare")
+	}
+	if p := d.Upper(3); math.Abs(p-0.2) > 1e-15 {
+		t.Errorf("Upper(3) = %v, want 0.2", p)
+	}
+}
+
+func TestTooLarge(t *testing.T) {
+	scores := make([]int64, 40)
+	for i := range scores {
+		scores[i] = int64(i)
+	}
+	_, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), Limits{MaxStates: 1000}, nil)
+	if err == nil {
+		t.Fatal("no error beyond the state limit")
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if _, err := Permutation(ctx, []int{3, 3}, blocksOf(scores[:6]), Limits{MaxStates: 1000}, nil); err == nil {
+		t.Fatal("a cancelled computation went on")
+	}
+}
+
+func ExamplePermutation() {
+	// three groups of two, scores 0…5 (ranks minus one): 90 equally likely deals
+	scores := []Block{{0, 1}, {1, 1}, {2, 1}, {3, 1}, {4, 1}, {5, 1}}
+	d, _ := Permutation(context.Background(), []int{2, 2, 2}, scores, Limits{MaxStates: 1000}, nil)
+	// the most extreme split, {0,1} {2,3} {4,5}: T = 1 + 25 + 81
+	fmt.Printf("P(T ≥ %d) = %.4f\n", 107, d.Upper(107))
+	// Output: P(T ≥ 107) = 0.0667
+}
