@@ -8,6 +8,7 @@
 package core
 
 import (
+	"context"
 	"fmt"
 	"slices"
 
@@ -77,7 +78,11 @@ type Result struct {
 	PMonteCarlo        *float64      `json:"p_monte_carlo"`
 	PValue             float64       `json:"p_value"`
 	PMethod            string        `json:"p_method"`
+	PMethodReason      string        `json:"p_method_reason"`
 	CriticalValue      float64       `json:"critical_value"`
+	ExactCriticalValue *float64      `json:"exact_critical_value"` // smallest attained H with P(H ≥ h) ≤ alpha
+	ExactAttainedAlpha *float64      `json:"exact_attained_alpha"` // P(H ≥ exact_critical_value)
+	MonteCarlo         *MonteCarlo   `json:"monte_carlo"`
 	Significant        bool          `json:"significant"`
 	EpsilonSquared     float64       `json:"epsilon_squared"`
 	EpsilonSquaredSize string        `json:"epsilon_squared_size"`
@@ -100,6 +105,13 @@ type Result struct {
 // Errors are *OptionError for unusable settings and *table.Error for data
 // that cannot be analysed.
 func Analyze(data []byte, opt Options) (*Result, error) {
+	return AnalyzeContext(context.Background(), data, opt, nil)
+}
+
+// AnalyzeContext is Analyze for long computations (exact and Monte Carlo
+// p-values): it stops when ctx is done, returning ctx.Err(), and tells
+// progress, when not nil, how far it is.
+func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Progress) (*Result, error) {
 	s, err := opt.validate()
 	if err != nil {
 		return nil, err
@@ -129,7 +141,9 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 	test := kruskal.Compute(sizes, ranking.RankSums, ranking.TieSum)
 	r.H, r.HUncorrected, r.TieCorrection, r.DF = test.H, test.HUncorrected, test.TieCorrection, test.DF
 	r.PAsymptotic = test.P
-	r.PValue, r.PMethod = test.P, s.pvalue
+	if err := r.choosePValue(ctx, s, ranking, progress); err != nil {
+		return nil, err
+	}
 	r.CriticalValue = kruskal.CriticalValue(s.alpha, test.DF)
 	r.Significant = report.Significant(r.PValue, s.alpha)
 	r.EpsilonSquared = kruskal.EpsilonSquared(test.H, r.N)

@@ -17,15 +17,23 @@ type Options struct {
 	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
 	Decimal   string  `json:"decimal,omitempty"`   // auto (default: comma accepted unless comma separates), point
 	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
-	PValue    string  `json:"pvalue,omitempty"`    // asymptotic (default for now); auto, exact, monte-carlo reserved
-	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples (reserved)
-	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed (reserved)
+	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
+	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples, default 100,000
+	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed, default 1
 	PostHoc   string  `json:"posthoc,omitempty"`   // none (default for now); dunn, conover, dscf, mann-whitney reserved
 	Adjust    string  `json:"adjust,omitempty"`    // none (default for now); holm, bonferroni, sidak, hochberg, bh, by reserved
 }
 
-// DefaultAlpha is the significance level used when none is given (common practice).
-const DefaultAlpha = 0.05
+// Defaults and ranges of the settings.
+const (
+	DefaultAlpha     = 0.05 // common practice
+	DefaultResamples = 100_000
+	DefaultSeed      = 1
+	MaxResamples     = 100_000_000
+	// MaxSeed is 2⁵³ − 1, the largest whole number JavaScript holds exactly,
+	// so that a seed survives the page, its links and its JSON unchanged.
+	MaxSeed = 1<<53 - 1
+)
 
 // OptionError is a setting that cannot be used.
 type OptionError struct {
@@ -41,8 +49,8 @@ func (e *OptionError) Error() string {
 // The method names each reserved setting will take; the ones not yet built
 // answer "not available yet" so that scripts written now keep working later.
 var (
-	pvalueMethods  = []string{"asymptotic", "auto", "exact", "monte-carlo"}
-	pvalueBuilt    = []string{"asymptotic"}
+	pvalueMethods  = []string{"auto", "asymptotic", "exact", "monte-carlo"}
+	pvalueBuilt    = pvalueMethods
 	posthocMethods = []string{"none", "dunn", "conover", "dscf", "mann-whitney"}
 	posthocBuilt   = []string{"none"}
 	adjustMethods  = []string{"none", "holm", "bonferroni", "sidak", "hochberg", "bh", "by"}
@@ -66,11 +74,13 @@ func DecodeOptions(data []byte) (Options, error) {
 
 // settings are validated options in the form the analysis uses.
 type settings struct {
-	read    table.Options
-	alpha   float64
-	pvalue  string
-	posthoc string
-	adjust  string
+	read      table.Options
+	alpha     float64
+	pvalue    string
+	resamples int
+	seed      uint64
+	posthoc   string
+	adjust    string
 }
 
 // validate checks every option and fills in the defaults.
@@ -115,11 +125,19 @@ func (o Options) validate() (settings, error) {
 	if s.adjust, err = choose("adjust", o.Adjust, adjustMethods, adjustBuilt); err != nil {
 		return s, err
 	}
-	if o.Resamples != 0 {
-		return s, &OptionError{"resamples", fmt.Sprint(o.Resamples), "Monte Carlo p-values are not available yet"}
+	s.resamples = o.Resamples
+	switch {
+	case s.resamples == 0:
+		s.resamples = DefaultResamples
+	case s.resamples < 1 || s.resamples > MaxResamples:
+		return s, &OptionError{"resamples", fmt.Sprint(o.Resamples), fmt.Sprintf("choose a whole number from 1 to %d, for example %d", MaxResamples, DefaultResamples)}
 	}
+	s.seed = DefaultSeed
 	if o.Seed != nil {
-		return s, &OptionError{"seed", fmt.Sprint(*o.Seed), "Monte Carlo p-values are not available yet"}
+		if *o.Seed > MaxSeed {
+			return s, &OptionError{"seed", fmt.Sprint(*o.Seed), fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(MaxSeed))}
+		}
+		s.seed = *o.Seed
 	}
 	return s, nil
 }

@@ -11,4 +11,5 @@ Rscript tools/reference/datasets.R "$out"
 
 /usr/bin/python3 tools/reference/chi2_tail.py "$out/chi2_tail.tsv"
 /usr/bin/python3 tools/reference/clopper_pearson.py "$out/clopper_pearson.tsv"
+/usr/bin/python3 tools/reference/exact_reference.py "$out"
 echo "wrote $out"

@@ -1,0 +1,249 @@
+package core
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"strings"
+
+	"midrank/core/exact"
+	"midrank/core/montecarlo"
+	"midrank/core/rank"
+	"midrank/core/report"
+)
+
+// Budgets of the exact method, in states per layer (about 48 bytes each at
+// the peak, when a layer grows). An explicit request may use more than the
+// automatic choice, which must leave time for a fallback.
+const (
+	ExactStates     = 4_000_000 // --pvalue exact: at most about 400 MB
+	AutoExactStates = 1_000_000 // --pvalue auto tries exact within this
+	// HeavyTies is the tie correction below which the automatic choice does
+	// not trust the chi-square approximation even for groups of 5 or more.
+	HeavyTies = 0.95
+)
+
+// Progress is told how far a long computation is: stage is "exact" or
+// "monte-carlo", done of total units.
+type Progress func(stage string, done, total int)
+
+// MonteCarlo describes a Monte Carlo p-value.
+type MonteCarlo struct {
+	Resamples int     `json:"resamples"`
+	Seed      uint64  `json:"seed"`
+	Exceed    int     `json:"exceed"`  // resamples whose H reached the observed H
+	CILow     float64 `json:"ci_low"`  // 99% Clopper–Pearson interval
+	CIHigh    float64 `json:"ci_high"` // for the permutation p-value
+}
+
+// permutationProblem is the data in the integer form that the exact and
+// Monte Carlo methods work on: scores x = (2r − 2r₁)/g for midranks r, r₁
+// the smallest and g the gcd of the differences, which order the outcomes
+// exactly as H does (a shift and a scale change T = Σ sᵢ²/nᵢ only by an
+// increasing affine map).
+type permutationProblem struct {
+	sizes    []int
+	blocks   []exact.Block
+	scores   []int64 // every observation's score, ascending
+	weights  []int64 // L/nᵢ
+	observed int64   // T of the data
+	// for turning T back into H
+	gcd, base int64 // g and 2r₁
+	total     int64 // Σ scores
+}
+
+func newProblem(ranking rank.Ranking) *permutationProblem {
+	n := len(ranking.Sorted)
+	p := &permutationProblem{sizes: ranking.Sizes}
+	// doubled midranks of each tie block: positions i+1 … j share (i+1+j)/2
+	var doubled []int64
+	var counts []int
+	for i := 0; i < n; {
+		j := i + 1
+		for j < n && ranking.Sorted[j] == ranking.Sorted[i] {
+			j++
+		}
+		doubled = append(doubled, int64(i+1+j))
+		counts = append(counts, j-i)
+		i = j
+	}
+	p.base = doubled[0]
+	for _, d := range doubled[1:] {
+		p.gcd = gcd(p.gcd, d-p.base)
+	}
+	p.scores = make([]int64, 0, n)
+	for b, d := range doubled {
+		score := (d - p.base) / p.gcd
+		p.blocks = append(p.blocks, exact.Block{Score: score, Count: counts[b]})
+		for range counts[b] {
+			p.scores = append(p.scores, score)
+		}
+	}
+	sums := make([]int64, len(p.sizes))
+	for i, g := range ranking.Groups {
+		sums[g] += p.scores[i]
+	}
+	for _, s := range p.scores {
+		p.total += s
+	}
+	p.observed = exact.Statistic(p.sizes, sums)
+	p.weights = make([]int64, len(p.sizes))
+	unit := make([]int64, len(p.sizes))
+	for i := range p.sizes {
+		unit[i] = 1
+		p.weights[i] = exact.Statistic(p.sizes, unit)
+		unit[i] = 0
+	}
+	return p
+}
+
+func gcd(a, b int64) int64 {
+	for b != 0 {
+		a, b = b, a%b
+	}
+	return a
+}
+
+// h turns the integer statistic T into H (with the tie correction c):
+// group rank sums are Rᵢ = (g·sᵢ + b·nᵢ)/2, so
+//
+//	Σ Rᵢ²/nᵢ = (g²/4)·T/L + (g·b/2)·Σx + b²N/4,  H = (12/(N(N+1))·Σ Rᵢ²/nᵢ − 3(N+1))/C.
+func (p *permutationProblem) h(t int64, c float64) float64 {
+	n := float64(len(p.scores))
+	l := float64(p.weights[0]) * float64(p.sizes[0])
+	g, b := float64(p.gcd), float64(p.base)
+	ss := g*g/4*float64(t)/l + g*b/2*float64(p.total) + b*b*n/4
+	return (12/(n*(n+1))*ss - 3*(n+1)) / c
+}
+
+// choosePValue fills in the p-value by the requested method, running the
+// exact or Monte Carlo computation where needed.
+func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Ranking, progress Progress) error {
+	method := s.pvalue
+	var reasons []string
+	if method == "auto" || method == "exact" {
+		limit := ExactStates
+		if method == "auto" {
+			limit = AutoExactStates
+		}
+		err := r.exactPValue(ctx, newProblem(ranking), s.alpha, limit, progress)
+		switch {
+		case err == nil:
+			r.PMethod = "exact"
+			r.PMethodReason = fmt.Sprintf("Exact: every one of the %s equally likely ways to deal these ranks into groups of %s was accounted for.",
+				dealCount(ranking.Sizes), sizesText(ranking.Sizes))
+			if method == "auto" {
+				r.PMethodReason = "Chosen automatically. " + r.PMethodReason
+			}
+			return nil
+		case !errors.Is(err, exact.ErrTooLarge):
+			return err
+		case method == "exact":
+			return &OptionError{Option: "pvalue", Value: "exact",
+				Reason: fmt.Sprintf("the exact distribution for groups of %s is beyond the budget of this tool (%v); use monte-carlo, or auto", sizesText(ranking.Sizes), err)}
+		}
+		reasons = append(reasons, "the exact distribution is too large to compute here")
+		method = "asymptotic"
+		if smallest(ranking.Sizes) < report.SmallGroup || r.TieCorrection < HeavyTies {
+			method = "monte-carlo"
+		}
+	}
+	switch method {
+	case "asymptotic":
+		r.PMethod = "asymptotic"
+		r.PValue = r.PAsymptotic
+		if len(reasons) == 0 {
+			r.PMethodReason = "Chi-square approximation, as requested."
+		} else {
+			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and every group has at least %d values with few ties, where the approximation is good.",
+				reasons[0], report.SmallGroup)
+		}
+	case "monte-carlo":
+		p := newProblem(ranking)
+		var mcProgress montecarlo.Progress
+		if progress != nil {
+			mcProgress = func(done, total int) { progress("monte-carlo", done, total) }
+		}
+		mc, err := montecarlo.PValue(ctx, p.sizes, p.weights, p.scores, p.observed, s.resamples, s.seed, mcProgress)
+		if err != nil {
+			return err
+		}
+		r.PMethod = "monte-carlo"
+		r.PValue = mc.P
+		r.PMonteCarlo = &mc.P
+		r.MonteCarlo = &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}
+		if len(reasons) == 0 {
+			r.PMethodReason = fmt.Sprintf("Monte Carlo, as requested: %d random deals of the ranks into the groups (seed %d).", mc.Resamples, mc.Seed)
+		} else {
+			r.PMethodReason = fmt.Sprintf("Monte Carlo, chosen automatically: %s, and small groups or heavy ties make the chi-square approximation unreliable; %d random deals (seed %d) estimate p.",
+				reasons[0], mc.Resamples, mc.Seed)
+		}
+	}
+	return nil
+}
+
+// exactPValue computes the exact p-value and critical value.
+func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha float64, limit int, progress Progress) error {
+	var exProgress exact.Progress
+	if progress != nil {
+		exProgress = func(done, total int) { progress("exact", done, total) }
+	}
+	d, err := exact.Permutation(ctx, p.sizes, p.blocks, exact.Limits{MaxStates: limit}, exProgress)
+	if err != nil {
+		return err
+	}
+	pe := d.Upper(p.observed)
+	r.PExact = &pe
+	r.PValue = pe
+	if t, attained, ok := d.Critical(alpha); ok {
+		h := p.h(t, r.TieCorrection)
+		r.ExactCriticalValue, r.ExactAttainedAlpha = &h, &attained
+	}
+	return nil
+}
+
+func smallest(sizes []int) int {
+	m := sizes[0]
+	for _, s := range sizes {
+		m = min(m, s)
+	}
+	return m
+}
+
+// dealCount is N!/∏nᵢ! in words-friendly digits ("34,650" or "5.6e+12").
+func dealCount(sizes []int) string {
+	count, n := 1.0, 0
+	for _, s := range sizes {
+		for i := 1; i <= s; i++ {
+			n++
+			count = count * float64(n) / float64(i)
+		}
+	}
+	if count < 1e9 {
+		return thousands(int64(count + 0.5))
+	}
+	return fmt.Sprintf("%.2g", count)
+}
+
+func thousands(v int64) string {
+	s := fmt.Sprint(v)
+	var b strings.Builder
+	for i, c := range s {
+		if i > 0 && (len(s)-i)%3 == 0 {
+			b.WriteByte(',')
+		}
+		b.WriteRune(c)
+	}
+	return b.String()
+}
+
+func sizesText(sizes []int) string {
+	parts := make([]string, len(sizes))
+	for i, s := range sizes {
+		parts[i] = fmt.Sprint(s)
+	}
+	if len(parts) == 1 {
+		return parts[0]
+	}
+	return strings.Join(parts[:len(parts)-1], ", ") + " and " + parts[len(parts)-1]
+}
