@@ -167,11 +167,16 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	}
 
 	r.Warnings = warnings(r)
-	r.Decision = report.Decision(report.Facts{
+	facts := report.Facts{
 		Labels: t.Labels, Sizes: sizes, Measure: t.Measure,
 		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
 		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
-	})
+		Unreachable: r.PMethod == "exact" && r.ExactCriticalValue == nil,
+	}
+	if mc := r.MonteCarlo; mc != nil {
+		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh
+	}
+	r.Decision = report.Decision(facts)
 	return r, nil
 }
 
@@ -258,6 +263,10 @@ func warnings(r *Result) []string {
 		if g.N < report.SmallGroup && r.PMethod == "asymptotic" {
 			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, report.SmallGroup))
 		}
+	}
+	if mc := r.MonteCarlo; mc != nil && report.Straddles(mc.CILow, mc.CIHigh, r.Alpha) {
+		w = append(w, fmt.Sprintf("The Monte Carlo interval for p (%s to %s) includes the significance level %s: run more resamples for a firm decision.",
+			report.Number(mc.CILow), report.Number(mc.CIHigh), report.Number(r.Alpha)))
 	}
 	if r.PValue == 0 {
 		w = append(w, "The p-value is below the smallest positive number a computer can hold (about 1e-308), so it is reported as 0; the true value is positive but vanishingly small.")

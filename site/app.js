@@ -34,6 +34,13 @@ worker.onmessage = (event) => {
     $("status").textContent = "The statistics module could not start: " + m.message;
     return;
   }
+  if (m.kind === "progress") {
+    if (m.id === latest) {
+      const what = m.stage === "exact" ? "Exact distribution" : "Random deals";
+      $("status").textContent = what + ": " + Math.floor(100 * m.done / m.total) + "%";
+    }
+    return;
+  }
   const resolve = pending.get(m.id);
   pending.delete(m.id);
   if (resolve) resolve(m.json);
@@ -48,10 +55,16 @@ async function start() {
 }
 
 async function analyse() {
-  const options = { layout: $("layout").value, alpha: Number($("alpha").value) };
+  const options = {
+    layout: $("layout").value,
+    alpha: Number($("alpha").value),
+    pvalue: $("pvalue").value,
+    resamples: Number($("resamples").value),
+    seed: Number($("seed").value),
+  };
   $("status").textContent = "Analysing…";
+  latest = nextId; // the id ask is about to use: progress of older runs is ignored
   const { id, body } = await ask({ kind: "analyze", data: $("data").value, options });
-  latest = Math.max(latest, id);
   if (id !== latest) return;
   if (body.error) {
     showProblem(body.error);
@@ -94,6 +107,13 @@ function render() {
   setFigure("p_value", fmtP(r.p_value));
   setFigure("p_method", methodNames[r.p_method] || r.p_method);
   setFigure("critical_value", fmt(r.critical_value));
+  setFigure("exact_critical_value", r.p_method !== "exact" ? "not computed"
+    : r.exact_critical_value === null ? "none reachable" : fmt(r.exact_critical_value));
+  let reason = r.p_method_reason;
+  if (r.monte_carlo) {
+    reason += " 99% interval for p: " + fmtP(r.monte_carlo.ci_low) + " to " + fmtP(r.monte_carlo.ci_high) + ".";
+  }
+  $("method-reason").textContent = reason;
   setFigure("epsilon_squared", fmt(r.epsilon_squared));
   setFigure("eta_squared", fmt(r.eta_squared));
   setFigure("tie_correction", fmt(r.tie_correction));

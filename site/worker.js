@@ -1,6 +1,7 @@
 // Worker: owns Go's wasm_exec.js and the statistics module, so the page never
 // freezes. Messages: {id, kind: "analyze", data, options} and
-// {id, kind: "page", list, offset, count}; replies: {id, json}.
+// {id, kind: "page", list, offset, count}; replies: {id, json}, and
+// {id, kind: "progress", stage, done, total} during long computations.
 importScripts("wasm_exec.js");
 
 const ready = (async () => {
@@ -18,6 +19,7 @@ onmessage = async (event) => {
   const q = event.data;
   const json = q.kind === "page"
     ? m.page(q.list, q.offset, q.count)
-    : m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options));
+    : m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options),
+      (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
   postMessage({ id: q.id, kind: q.kind, json });
 };

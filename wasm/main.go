@@ -2,18 +2,21 @@
 
 // Command wasm is the WebAssembly adapter of the statistics core. It sets
 //
-//	globalThis.midrank.analyze(data, optionsJSON) → responseJSON
+//	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
 //	globalThis.midrank.page(list, offset, count) → pageJSON
 //	globalThis.midrank.version
 //
 // where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
 // which saves a copy), optionsJSON holds core.Options, and responseJSON is
-// byte for byte what the command line prints with --json. page serves the
+// byte for byte what the command line prints with --json. onProgress, when
+// given, is called as onProgress(stage, done, total) while an exact or Monte
+// Carlo p-value is computed, at most once per percent. page serves the
 // per-value ranking ("ranks") or the tie table ("ties") of the last analysis
 // in pieces, for inputs too large to list in one response.
 package main
 
 import (
+	"context"
 	"errors"
 	"syscall/js"
 	"unsafe"
@@ -49,7 +52,11 @@ func analyze(_ js.Value, args []js.Value) any {
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
-	r, err := core.Analyze(bytesOf(args[0]), opt)
+	var progress core.Progress
+	if len(args) > 2 && args[2].Type() == js.TypeFunction {
+		progress = throttled(args[2])
+	}
+	r, err := core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progress)
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
@@ -73,6 +80,17 @@ func page(_ js.Value, args []js.Value) any {
 		return string(core.EncodeError(errors.New(`page: the list is "ranks" or "ties"`)))
 	}
 	return string(core.EncodePage(last.Page(list, args[1].Int(), args[2].Int())))
+}
+
+// throttled calls fn when the progress has moved by a percent or more.
+func throttled(fn js.Value) core.Progress {
+	last := -1
+	return func(stage string, done, total int) {
+		if pct := 100 * done / max(total, 1); pct != last {
+			last = pct
+			fn.Invoke(stage, done, total)
+		}
+	}
 }
 
 // bytesOf returns the data argument as bytes: a Uint8Array is copied once;

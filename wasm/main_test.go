@@ -72,3 +72,20 @@ func TestByteOrderMarkAndPages(t *testing.T) {
 		t.Errorf("analyze with broken options = %s, want an options error", bad)
 	}
 }
+
+func TestProgressCallback(t *testing.T) {
+	m := module()
+	calls := 0
+	cb := js.FuncOf(func(_ js.Value, args []js.Value) any {
+		if args[0].String() != "monte-carlo" || args[1].Int() > args[2].Int() {
+			t.Errorf("progress(%v, %v, %v)", args[0], args[1], args[2])
+		}
+		calls++
+		return nil
+	})
+	defer cb.Release()
+	got := m.Call("analyze", "A,B,C\n1,2,3\n4,5,6\n7,8,9\n", `{"pvalue":"monte-carlo","resamples":50000}`, cb).String()
+	if !strings.Contains(got, `"p_method":"monte-carlo"`) || calls == 0 {
+		t.Errorf("analyze = %.200s with %d progress calls", got, calls)
+	}
+}

@@ -26,7 +26,18 @@ type Facts struct {
 	Alpha   float64
 	Epsilon float64 // ε²
 	Size    string  // ε² in words
+
+	// exact method: no arrangement of the ranks is rare enough for alpha
+	Unreachable bool
+	// Monte Carlo method: how p was estimated
+	Resamples int
+	Seed      uint64
+	Low, High float64 // the 99% interval
 }
+
+// Straddles reports whether a Monte Carlo interval holds alpha, so that more
+// resamples could change the decision.
+func Straddles(low, high, alpha float64) bool { return low <= alpha && alpha <= high }
 
 // Significant is the decision rule: p ≤ alpha, the rejection region of a
 // level-alpha test.
@@ -48,6 +59,17 @@ func Decision(f Facts) string {
 		len(f.Labels), listLabels(f.Labels), n, on)
 	fmt.Fprintf(&b, "It gives H = %s with %d degrees of freedom and %s (%s). ",
 		Number(f.H), f.DF, PValue(f.P), methodWords(f.Method))
+	if f.Method == "monte-carlo" {
+		fmt.Fprintf(&b, "That estimate comes from %d random deals of the ranks (seed %d); the 99%% interval for p runs from %s to %s",
+			f.Resamples, f.Seed, Number(f.Low), Number(f.High))
+		if Straddles(f.Low, f.High, f.Alpha) {
+			b.WriteString(", which includes the significance level, so the decision below is not firm: run more resamples")
+		}
+		b.WriteString(". ")
+	}
+	if f.Unreachable {
+		fmt.Fprintf(&b, "With groups this small no arrangement of the ranks is rare enough to reach significance at %s, so the test cannot give a significant result here. ", Number(f.Alpha))
+	}
 	if Significant(f.P, f.Alpha) {
 		fmt.Fprintf(&b, "At the chosen significance level of %s this is statistically significant: the groups do not all share one distribution, and at least one group tends to have higher or lower values than another. ",
 			Number(f.Alpha))

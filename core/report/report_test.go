@@ -26,6 +26,11 @@ func TestDecision(t *testing.T) {
 		{"exact p needs no approximation caution", func(f *Facts) { f.Method = "exact" },
 			[]string{"exact permutation p-value"}, []string{"approximation behind p"}},
 		{"tiny p", func(f *Facts) { f.P = 3e-12 }, []string{"p < 0.001"}, nil},
+		{"unreachable", func(f *Facts) { f.Method, f.Unreachable, f.P = "exact", true, 0.2 },
+			[]string{"no arrangement of the ranks is rare enough"}, nil},
+		{"Monte Carlo straddling alpha", func(f *Facts) {
+			f.Method, f.P, f.Resamples, f.Seed, f.Low, f.High = "monte-carlo", 0.049, 1000, 3, 0.034, 0.067
+		}, []string{"1000 random deals of the ranks (seed 3)", "from 0.034 to 0.067", "not firm"}, []string{"approximation behind p"}},
 	}
 	for _, tt := range tests {
 		f := base

@@ -191,6 +191,21 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
+		data := "A,B,C\n3,8,2\n5,6,1\n4,9,3\n"
+		r, err := core.Analyze([]byte(data), core.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, data)
+		if got := b.text(t, `[data-result="p_method"]`); got != "exact permutation" || r.PMethod != "exact" {
+			t.Errorf("method shown as %q (core: %s), want exact permutation", got, r.PMethod)
+		}
+		if got, want := b.text(t, `[data-result="p_value"]`), strconv.FormatFloat(r.PValue, 'g', 3, 64); got != want {
+			t.Errorf("p shown as %q, want %q", got, want)
+		}
+	})
+
 	t.Run("a bad cell is reported with its place", func(t *testing.T) {
 		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\n")
 		if got := b.text(t, "#problem"); !strings.Contains(got, "line 3, column 2") || !strings.Contains(got, `"five"`) {

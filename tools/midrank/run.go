@@ -1,11 +1,13 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
+	"os/signal"
 	"strconv"
 
 	"midrank/core"
@@ -38,9 +40,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
 	fs.Float64Var(&opt.Alpha, "alpha", core.DefaultAlpha, "significance level, between 0 and 1")
-	fs.StringVar(&opt.PValue, "pvalue", "asymptotic", "asymptotic; auto, exact and monte-carlo are not available yet")
-	fs.IntVar(&opt.Resamples, "resamples", 0, "Monte Carlo resamples (not available yet)")
-	fs.StringVar(&seed, "seed", "", "Monte Carlo seed (not available yet)")
+	fs.StringVar(&opt.PValue, "pvalue", "auto", "auto (exact when it fits, else chi-square or Monte Carlo), asymptotic, exact or monte-carlo")
+	fs.IntVar(&opt.Resamples, "resamples", core.DefaultResamples, "Monte Carlo resamples")
+	fs.StringVar(&seed, "seed", "", fmt.Sprintf("Monte Carlo seed, a whole number from 0 to %d (default %d)", uint64(core.MaxSeed), core.DefaultSeed))
 	fs.StringVar(&opt.PostHoc, "posthoc", "none", "none; dunn, conover, dscf and mann-whitney are not available yet")
 	fs.StringVar(&opt.Adjust, "adjust", "none", "none; holm, bonferroni, sidak, hochberg, bh and by are not available yet")
 
@@ -67,7 +69,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	if seed != "" {
 		s, err := strconv.ParseUint(seed, 10, 64)
 		if err != nil {
-			return fail(exitSettings, &core.OptionError{Option: "seed", Value: seed, Reason: "a seed is a whole number from 0 to 18446744073709551615"})
+			return fail(exitSettings, &core.OptionError{Option: "seed", Value: seed, Reason: fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(core.MaxSeed))})
 		}
 		opt.Seed = &s
 	}
@@ -76,7 +78,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	if err != nil {
 		return fail(exitData, err)
 	}
-	result, err := core.Analyze(data, opt)
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+	defer stop()
+	bar := newProgressBar(stderr)
+	result, err := core.AnalyzeContext(ctx, data, opt, bar.show)
+	bar.clear()
 	var oe *core.OptionError
 	switch {
 	case errors.As(err, &oe):

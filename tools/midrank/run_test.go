@@ -81,7 +81,11 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--alpha", "1.5", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
 		{[]string{"--json", "--alpha", "1.5", "-"}, data, exitSettings, `"option":"alpha"`, "alpha"},
 		{[]string{"--json", "--alpha", "high", "-"}, data, exitSettings, `{"error":{"message":`, "invalid value"},
-		{[]string{"--pvalue", "monte-carlo", "-"}, data, exitSettings, "", "not available yet"},
+		{[]string{"--posthoc", "dunn", "-"}, data, exitSettings, "", "not available yet"},
+		{[]string{"--json", "--pvalue", "monte-carlo", "--resamples", "2000", "--seed", "9", "-"}, data, exitOK, `"resamples":2000,"seed":9`, ""},
+		{[]string{"--pvalue", "exact", "-"}, wideUntied(4, 15), exitSettings, "", "beyond the budget"},
+		{[]string{"--seed", "9007199254740992", "-"}, data, exitSettings, "", "from 0 to 9007199254740991"},
+		{[]string{"--resamples", "-5", "-"}, data, exitSettings, "", "from 1 to"},
 		{[]string{"--posthoc", "tukey", "-"}, data, exitSettings, "", "choose one of"},
 		{[]string{"--seed", "x", "-"}, data, exitSettings, "", "whole number"},
 		{[]string{"--layout", "diagonal", "-"}, data, exitSettings, "", "auto, wide or long"},
@@ -108,4 +112,26 @@ func TestWrap(t *testing.T) {
 			t.Errorf("wrap broke around '=': %q", got)
 		}
 	}
+}
+
+// wideUntied writes k groups of n distinct values in the wide layout.
+func wideUntied(k, n int) string {
+	var b strings.Builder
+	for g := range k {
+		if g > 0 {
+			b.WriteString(",")
+		}
+		fmt.Fprintf(&b, "g%d", g+1)
+	}
+	b.WriteString("\n")
+	for i := range n {
+		for g := range k {
+			if g > 0 {
+				b.WriteString(",")
+			}
+			fmt.Fprintf(&b, "%d", i*k+g)
+		}
+		b.WriteString("\n")
+	}
+	return b.String()
 }
