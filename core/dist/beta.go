@@ -21,7 +21,7 @@ func (d Beta) CDF(x float64) float64 {
 		return 1
 	}
 	a, b := d.A, d.B
-	front := exp(lgamma(a+b) - lgamma(a) - lgamma(b) + a*log(x) + b*log1p(-x))
+	front := exp(lgamma(a+b) - lgamma(a) - lgamma(b) + a*log(x) + b*math.Log1p(-x))
 	if x < (a+1)/(a+b+2) {
 		return front * betaFraction(a, b, x) / a
 	}

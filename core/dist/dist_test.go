@@ -141,3 +141,22 @@ func TestBetaAgainstGonum(t *testing.T) {
 		}
 	}
 }
+
+// TestNormal: the upper tail against math.Erfc, and far out against
+// 50-digit mpmath values via the identity erfc(x) = Q(½, x²) on the tested
+// chi-square tail (P(χ²(1) ≥ z²) = 2·P(Z ≥ z)).
+func TestNormal(t *testing.T) {
+	for _, z := range []float64{-3, -0.5, 0, 0.3, 1.96, 4, 8, 20, 35} {
+		if got, want := NormalUpper(z), 0.5*math.Erfc(z/math.Sqrt2); math.Abs(got-want) > 1e-15*want {
+			t.Errorf("NormalUpper(%v) = %v, math.Erfc gives %v", z, got, want)
+		}
+	}
+	for _, z := range []float64{2, 5, 20, 36} {
+		if got, want := NormalTwoSided(z), (ChiSquared{1}).Survival(z*z); math.Abs(got-want) > 1e-12*want {
+			t.Errorf("NormalTwoSided(%v) = %v, chi-square(1) tail %v", z, got, want)
+		}
+	}
+	if z := NormalQuantileUpper(0.025); math.Abs(z-1.959963984540054) > 1e-12 {
+		t.Errorf("NormalQuantileUpper(0.025) = %v, want 1.959963984540054 (common practice)", z)
+	}
+}

@@ -21,7 +21,9 @@ import "math"
 // used everywhere in this package; they need only +, −, ×, ÷ and exact bit
 // operations (Frexp, Ldexp), which IEEE 754 makes identical on every
 // platform. (Go fuses multiply-add only where the target allows it; the
-// amd64 default GOAMD64=v1 and wasm do not.)
+// amd64 default GOAMD64=v1 and wasm do not.) math.Log1p, math.Expm1 and
+// math.Sqrt are safe to use as they are: the first two are portable Go on
+// both targets and call nothing else, and a square root is correctly rounded.
 
 // exp returns e**x, as the standard library's portable math.Exp.
 func exp(x float64) float64 {
@@ -112,17 +114,4 @@ func log(x float64) float64 {
 	R := t1 + t2
 	hfsq := 0.5 * f * f
 	return k*ln2Hi - ((hfsq - (s*(hfsq+R) + k*ln2Lo)) - f)
-}
-
-// log1p returns ln(1+y) accurately for small y, from log alone, by the
-// classic correction: with u = 1+y rounded, ln(1+y) ≈ ln(u)·y/(u−1), whose
-// error is a few units in the last place (Goldberg 1991, "What every computer
-// scientist should know about floating-point arithmetic", ACM Computing
-// Surveys 23(1), theorem 4).
-func log1p(y float64) float64 {
-	u := 1 + y
-	if u == 1 {
-		return y
-	}
-	return log(u) * y / (u - 1)
 }
