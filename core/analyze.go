@@ -12,8 +12,10 @@ import (
 	"fmt"
 	"slices"
 
+	"midrank/core/adjust"
 	"midrank/core/describe"
 	"midrank/core/kruskal"
+	"midrank/core/posthoc"
 	"midrank/core/rank"
 	"midrank/core/report"
 	"midrank/core/table"
@@ -94,6 +96,7 @@ type Result struct {
 	Ties               []rank.Tie    `json:"ties"`
 	TiesTotal          int           `json:"ties_total"`
 	TiesComplete       bool          `json:"ties_complete"` // false: ties is empty, ask Page for them
+	PostHoc            *PostHoc      `json:"posthoc"`       // null when no post-hoc method was asked for
 	Warnings           []string      `json:"warnings"`
 	Decision           string        `json:"decision"`
 
@@ -153,6 +156,9 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 		r.EtaSquared, r.EtaSquaredSize = &eta, &size
 	}
 	r.QuantileMethod = describe.Method
+	if err := r.comparePairs(ctx, s, ranking); err != nil {
+		return nil, err
+	}
 
 	r.TiesTotal = len(ranking.Ties)
 	r.RanksComplete = r.N <= ListLimit
@@ -175,6 +181,19 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	}
 	if mc := r.MonteCarlo; mc != nil {
 		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh
+	}
+	if ph := r.PostHoc; ph != nil {
+		facts.PairMethod, facts.AdjustName, facts.PairsTested = posthoc.Names[ph.Method], adjust.Names[ph.Adjust], len(ph.Pairs)
+		for _, p := range ph.Pairs {
+			if !p.Significant {
+				continue
+			}
+			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: p.PAdjusted, Superiority: p.ProbSuperiority}
+			if p.ProbSuperiority < 0.5 {
+				d.Higher, d.Lower, d.Superiority = p.B, p.A, 1-p.ProbSuperiority
+			}
+			facts.Differences = append(facts.Differences, d)
+		}
 	}
 	r.Decision = report.Decision(facts)
 	return r, nil

@@ -4,8 +4,11 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"slices"
 	"strings"
 
+	"midrank/core/adjust"
+	"midrank/core/posthoc"
 	"midrank/core/table"
 )
 
@@ -20,8 +23,8 @@ type Options struct {
 	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
 	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples, default 100,000
 	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed, default 1
-	PostHoc   string  `json:"posthoc,omitempty"`   // none (default for now); dunn, conover, dscf, mann-whitney reserved
-	Adjust    string  `json:"adjust,omitempty"`    // none (default for now); holm, bonferroni, sidak, hochberg, bh, by reserved
+	PostHoc   string  `json:"posthoc,omitempty"`   // dunn (default), conover, dscf, mann-whitney, none
+	Adjust    string  `json:"adjust,omitempty"`    // holm (default), bonferroni, sidak, hochberg, bh, by, none
 }
 
 // Defaults and ranges of the settings.
@@ -46,15 +49,11 @@ func (e *OptionError) Error() string {
 	return fmt.Sprintf("%s %q: %s", e.Option, e.Value, e.Reason)
 }
 
-// The method names each reserved setting will take; the ones not yet built
-// answer "not available yet" so that scripts written now keep working later.
+// The method names of each setting; the first is the default.
 var (
 	pvalueMethods  = []string{"auto", "asymptotic", "exact", "monte-carlo"}
-	pvalueBuilt    = pvalueMethods
-	posthocMethods = []string{"none", "dunn", "conover", "dscf", "mann-whitney"}
-	posthocBuilt   = []string{"none"}
-	adjustMethods  = []string{"none", "holm", "bonferroni", "sidak", "hochberg", "bh", "by"}
-	adjustBuilt    = []string{"none"}
+	posthocMethods = posthoc.Methods
+	adjustMethods  = adjust.Methods
 )
 
 // DecodeOptions reads options from JSON, refusing unknown keys so that a
@@ -116,13 +115,13 @@ func (o Options) validate() (settings, error) {
 		return s, &OptionError{"alpha", fmt.Sprint(o.Alpha), "the significance level must lie strictly between 0 and 1, for example 0.05"}
 	}
 	var err error
-	if s.pvalue, err = choose("pvalue", o.PValue, pvalueMethods, pvalueBuilt); err != nil {
+	if s.pvalue, err = choose("pvalue", o.PValue, pvalueMethods); err != nil {
 		return s, err
 	}
-	if s.posthoc, err = choose("posthoc", o.PostHoc, posthocMethods, posthocBuilt); err != nil {
+	if s.posthoc, err = choose("posthoc", o.PostHoc, posthocMethods); err != nil {
 		return s, err
 	}
-	if s.adjust, err = choose("adjust", o.Adjust, adjustMethods, adjustBuilt); err != nil {
+	if s.adjust, err = choose("adjust", o.Adjust, adjustMethods); err != nil {
 		return s, err
 	}
 	s.resamples = o.Resamples
@@ -142,21 +141,13 @@ func (o Options) validate() (settings, error) {
 	return s, nil
 }
 
-// choose checks a method name against the known and the built ones; "" is
-// the first built one.
-func choose(option, value string, known, built []string) (string, error) {
+// choose checks a method name against the known ones; "" is the first.
+func choose(option, value string, known []string) (string, error) {
 	if value == "" {
-		return built[0], nil
+		return known[0], nil
 	}
-	for _, b := range built {
-		if value == b {
-			return value, nil
-		}
-	}
-	for _, k := range known {
-		if value == k {
-			return "", &OptionError{option, value, fmt.Sprintf("not available yet; use %s", strings.Join(built, " or "))}
-		}
+	if slices.Contains(known, value) {
+		return value, nil
 	}
 	return "", &OptionError{option, value, "choose one of " + strings.Join(known, ", ")}
 }

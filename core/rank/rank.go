@@ -89,9 +89,10 @@ func (r Ranking) RankOf(v float64) (rank float64, shared int) {
 	return float64(lo+1+hi) / 2, hi - lo
 }
 
-// sortKey maps a float64 to a uint64 whose unsigned order is the numeric
-// order: positive numbers get their sign bit set, negative ones all bits flipped.
-func sortKey(v float64) uint64 {
+// Key maps a float64 (not NaN) to a uint64 whose unsigned order is the
+// numeric order: positive numbers get their sign bit set, negative ones all
+// bits flipped. -0 sorts just below +0.
+func Key(v float64) uint64 {
 	b := math.Float64bits(v)
 	if b>>63 == 1 {
 		return ^b
@@ -99,8 +100,8 @@ func sortKey(v float64) uint64 {
 	return b | 1<<63
 }
 
-// fromSortKey inverts sortKey.
-func fromSortKey(k uint64) float64 {
+// FromKey inverts Key.
+func FromKey(k uint64) float64 {
 	if k>>63 == 1 {
 		return math.Float64frombits(k &^ (1 << 63))
 	}
@@ -143,7 +144,7 @@ func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 	keys := make([]uint64, n)
 	var count [passes][buckets]int32
 	for i, v := range values {
-		k := sortKey(v)
+		k := Key(v)
 		keys[i] = k
 		// unrolled, with constant shifts: the masks prove every index in
 		// range, so the compiler drops the bounds checks
@@ -180,7 +181,7 @@ func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 	// decode the keys in place: the float64s reuse the keys' memory
 	sorted := unsafe.Slice((*float64)(unsafe.Pointer(unsafe.SliceData(keys))), n)
 	for i, k := range keys {
-		sorted[i] = fromSortKey(k)
+		sorted[i] = FromKey(k)
 	}
 	return sorted, tags
 }

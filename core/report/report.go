@@ -33,6 +33,19 @@ type Facts struct {
 	Resamples int
 	Seed      uint64
 	Low, High float64 // the 99% interval
+
+	// pairwise comparisons, when made
+	PairMethod  string // the procedure in words, "" when none was run
+	AdjustName  string // how the family was controlled, in words
+	PairsTested int
+	Differences []Difference // the significant pairs
+}
+
+// Difference is a pair that differs significantly.
+type Difference struct {
+	Higher, Lower string  // the group that tends higher, and the other
+	PAdjusted     float64 //
+	Superiority   float64 // P(higher > lower) + ½P(equal)
 }
 
 // Straddles reports whether a Monte Carlo interval holds alpha, so that more
@@ -73,12 +86,17 @@ func Decision(f Facts) string {
 	if Significant(f.P, f.Alpha) {
 		fmt.Fprintf(&b, "At the chosen significance level of %s this is statistically significant: the groups do not all share one distribution, and at least one group tends to have higher or lower values than another. ",
 			Number(f.Alpha))
-		b.WriteString("The test alone does not say which groups differ; compare pairs of groups to find out. ")
+		if f.PairMethod == "" {
+			b.WriteString("The test alone does not say which groups differ; compare pairs of groups to find out. ")
+		}
 	} else {
 		fmt.Fprintf(&b, "At the chosen significance level of %s this is not statistically significant: the data give no clear evidence that the groups' distributions differ. That is not proof that they are the same; small groups can miss real differences. ",
 			Number(f.Alpha))
 	}
 	fmt.Fprintf(&b, "The effect size ε² = %s is %s by common benchmarks. ", Number(f.Epsilon), f.Size)
+	if f.PairMethod != "" {
+		writePairs(&b, f)
+	}
 	b.WriteString("The test compares whole distributions; speak of a difference in medians only if the groups' distributions have a similar shape and spread. ")
 	if small := smallGroups(f.Labels, f.Sizes); len(small) > 0 && f.Method == "asymptotic" {
 		fmt.Fprintf(&b, "%s fewer than %d values, so the chi-square approximation behind p is rough; read p with care. ",
@@ -90,6 +108,34 @@ func Decision(f Facts) string {
 
 // Caution is said wherever a result could inform a decision about people.
 const Caution = "Statistical evidence is not a clinical, legal or employment decision: weigh it with the context, follow local rules, and consult qualified professionals."
+
+// writePairs says how the pairs were compared and which differ.
+func writePairs(b *strings.Builder, f Facts) {
+	fmt.Fprintf(b, "All %d pairs of groups were compared with %s, with two-sided p-values; the family of comparisons was controlled with %s. ",
+		f.PairsTested, f.PairMethod, f.AdjustName)
+	if !Significant(f.P, f.Alpha) {
+		b.WriteString("Because the overall test is not significant, the pairwise results are shown for completeness and should not be read as findings. ")
+		return
+	}
+	if len(f.Differences) == 0 {
+		b.WriteString("No pair differs significantly after the adjustment, so the overall difference cannot be pinned on particular groups. ")
+		return
+	}
+	for _, d := range f.Differences {
+		fmt.Fprintf(b, "Values in %s tend to be higher than in %s: adjusted %s, probability of superiority %s. ",
+			d.Higher, d.Lower, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
+	}
+	if rest := f.PairsTested - len(f.Differences); rest > 0 {
+		fmt.Fprintf(b, "The other %d %s no significant difference. ", rest, plural(rest, "pair shows", "pairs show"))
+	}
+}
+
+func plural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
 
 func methodWords(m string) string {
 	switch m {

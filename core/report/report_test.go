@@ -56,3 +56,20 @@ func TestNumber(t *testing.T) {
 		}
 	}
 }
+
+func TestDecisionPairs(t *testing.T) {
+	f := Facts{Labels: []string{"A", "B", "C"}, Sizes: []int{8, 8, 8}, H: 9, DF: 2, P: 0.011, Method: "asymptotic", Alpha: 0.05,
+		Epsilon: 0.39, Size: "large", PairMethod: "Dunn's test (Dunn 1964)", AdjustName: "Holm's step-down method (Holm 1979)", PairsTested: 3,
+		Differences: []Difference{{Higher: "C", Lower: "A", PAdjusted: 0.008, Superiority: 0.84}}}
+	got := Decision(f)
+	for _, s := range []string{"All 3 pairs of groups were compared with Dunn's test", "controlled with Holm's",
+		"Values in C tend to be higher than in A: adjusted p = 0.008, probability of superiority 0.84.", "The other 2 pairs show no significant difference."} {
+		if !strings.Contains(got, s) {
+			t.Errorf("decision lacks %q:\n%s", s, got)
+		}
+	}
+	f.P = 0.3
+	if got := Decision(f); !strings.Contains(got, "shown for completeness and should not be read as findings") || strings.Contains(got, "tend to be higher") {
+		t.Errorf("not significant overall, but:\n%s", got)
+	}
+}

@@ -9,8 +9,11 @@ import (
 	"os"
 	"os/signal"
 	"strconv"
+	"strings"
 
 	"midrank/core"
+	"midrank/core/adjust"
+	"midrank/core/posthoc"
 )
 
 // Exit statuses.
@@ -43,8 +46,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.StringVar(&opt.PValue, "pvalue", "auto", "auto (exact when it fits, else chi-square or Monte Carlo), asymptotic, exact or monte-carlo")
 	fs.IntVar(&opt.Resamples, "resamples", core.DefaultResamples, "Monte Carlo resamples")
 	fs.StringVar(&seed, "seed", "", fmt.Sprintf("Monte Carlo seed, a whole number from 0 to %d (default %d)", uint64(core.MaxSeed), core.DefaultSeed))
-	fs.StringVar(&opt.PostHoc, "posthoc", "none", "none; dunn, conover, dscf and mann-whitney are not available yet")
-	fs.StringVar(&opt.Adjust, "adjust", "none", "none; holm, bonferroni, sidak, hochberg, bh and by are not available yet")
+	fs.StringVar(&opt.PostHoc, "posthoc", "dunn", "pairwise comparisons: "+strings.Join(posthoc.Methods, ", "))
+	fs.StringVar(&opt.Adjust, "adjust", "holm", "multiplicity adjustment: "+strings.Join(adjust.Methods, ", "))
 
 	fail := func(code int, err error) int {
 		fmt.Fprintln(stderr, "midrank:", err)

@@ -81,7 +81,7 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--alpha", "1.5", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
 		{[]string{"--json", "--alpha", "1.5", "-"}, data, exitSettings, `"option":"alpha"`, "alpha"},
 		{[]string{"--json", "--alpha", "high", "-"}, data, exitSettings, `{"error":{"message":`, "invalid value"},
-		{[]string{"--posthoc", "dunn", "-"}, data, exitSettings, "", "not available yet"},
+		{[]string{"--posthoc", "conover", "--adjust", "bh", "-"}, data, exitOK, "Pairs of groups", ""},
 		{[]string{"--json", "--pvalue", "monte-carlo", "--resamples", "2000", "--seed", "9", "-"}, data, exitOK, `"resamples":2000,"seed":9`, ""},
 		{[]string{"--pvalue", "exact", "-"}, wideUntied(4, 15), exitSettings, "", "beyond the budget"},
 		{[]string{"--seed", "9007199254740992", "-"}, data, exitSettings, "", "from 0 to 9007199254740991"},

@@ -57,6 +57,7 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	t.Flush()
 	fmt.Fprintln(w)
 
+	writePairs(w, r)
 	writeTies(w, r, showRanks)
 	if showRanks {
 		writeRanks(w, r)
@@ -67,6 +68,31 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 			fmt.Fprintln(w, wrap("- "+m, 78, "  "))
 		}
 	}
+}
+
+func writePairs(w io.Writer, r *core.Result) {
+	ph := r.PostHoc
+	if ph == nil {
+		return
+	}
+	fmt.Fprintf(w, "Pairs of groups (%s, p adjusted by %s; shift: Hodges–Lehmann, %s%% interval)\n", ph.Method, ph.Adjust, num(100*ph.Confidence))
+	t := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprintln(t, "  first\tsecond\tstatistic\tp\tadjusted p\tdiffer\tP(first > second)\tshift\tinterval\t")
+	for _, p := range ph.Pairs {
+		differ := ""
+		if p.Significant {
+			differ = "yes"
+		}
+		fmt.Fprintf(t, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s to %s\t\n", p.A, p.B, num(p.Statistic), num(p.P), num(p.PAdjusted), differ,
+			strconv.FormatFloat(p.ProbSuperiority, 'f', 3, 64), num(p.Shift), num(p.ShiftLow), num(p.ShiftHigh))
+	}
+	t.Flush()
+	fmt.Fprint(w, "  Letters (groups sharing a letter are not told apart):")
+	for _, g := range r.Groups {
+		fmt.Fprintf(w, " %s %s;", g.Label, ph.Letters[g.Label])
+	}
+	fmt.Fprintln(w)
+	fmt.Fprintln(w)
 }
 
 func writeTies(w io.Writer, r *core.Result, all bool) {
@@ -132,7 +158,8 @@ func wrap(text string, width int, indent string) string {
 	line := indent
 	var words []string
 	for _, w := range strings.Fields(text) {
-		if n := len(words); n > 0 && (w == "=" || words[n-1] == "=" || strings.HasSuffix(words[n-1], " =")) {
+		if n := len(words); n > 0 && (w == "=" || w == "<" || words[n-1] == "=" || words[n-1] == "<" ||
+			strings.HasSuffix(words[n-1], " =") || strings.HasSuffix(words[n-1], " <")) {
 			words[n-1] += " " + w
 			continue
 		}

@@ -1,0 +1,93 @@
+// Package adjust corrects p-values for multiple comparisons, each method as
+// R's p.adjust defines it (monotone in the raw p-values, capped at 1).
+package adjust
+
+import (
+	"fmt"
+	"math"
+	"slices"
+)
+
+// Methods lists the method names in the order they are offered.
+var Methods = []string{"holm", "bonferroni", "sidak", "hochberg", "bh", "by", "none"}
+
+// Names gives each method's name for prose.
+var Names = map[string]string{
+	"holm":       "Holm's step-down method (Holm 1979)",
+	"bonferroni": "the Bonferroni correction",
+	"sidak":      "the Šidák correction (Šidák 1967)",
+	"hochberg":   "Hochberg's step-up method (Hochberg 1988)",
+	"bh":         "the Benjamini–Hochberg false discovery rate (Benjamini & Hochberg 1995)",
+	"by":         "the Benjamini–Yekutieli false discovery rate (Benjamini & Yekutieli 2001)",
+	"none":       "no adjustment",
+}
+
+// Adjust returns the adjusted p-values of p by method. With m the number of
+// p-values and p₍₁₎ ≤ … ≤ p₍m₎ the sorted ones:
+//
+//	bonferroni  min(1, m·p)
+//	sidak       1 − (1 − p)^m, as −expm1(m·log1p(−p)) so small p keep their digits
+//	holm        max over j ≤ i of min(1, (m − j + 1)·p₍j₎)
+//	hochberg    min over j ≥ i of min(1, (m − j + 1)·p₍j₎)
+//	bh          min over j ≥ i of min(1, m/j·p₍j₎)
+//	by          min over j ≥ i of min(1, (Σ 1/l)·m/j·p₍j₎)
+//	none        p
+func Adjust(p []float64, method string) ([]float64, error) {
+	m := float64(len(p))
+	out := make([]float64, len(p))
+	order := make([]int, len(p)) // ascending p, ties in input order
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortStableFunc(order, func(a, b int) int {
+		switch {
+		case p[a] < p[b]:
+			return -1
+		case p[a] > p[b]:
+			return 1
+		}
+		return 0
+	})
+	switch method {
+	case "none":
+		copy(out, p)
+	case "bonferroni":
+		for i, v := range p {
+			out[i] = math.Min(1, m*v)
+		}
+	case "sidak":
+		for i, v := range p {
+			out[i] = math.Min(1, -math.Expm1(m*math.Log1p(-v)))
+		}
+	case "holm":
+		run := 0.0
+		for j, i := range order {
+			run = math.Max(run, math.Min(1, (m-float64(j))*p[i]))
+			out[i] = run
+		}
+	case "hochberg", "bh", "by":
+		factor := 1.0
+		if method == "by" {
+			factor = 0
+			for l := 1; l <= len(p); l++ {
+				factor += 1 / float64(l)
+			}
+		}
+		run := 1.0
+		for j := len(order) - 1; j >= 0; j-- {
+			i := order[j]
+			rank := float64(j + 1)
+			var v float64
+			if method == "hochberg" {
+				v = (m - rank + 1) * p[i]
+			} else {
+				v = factor * m / rank * p[i]
+			}
+			run = math.Min(run, math.Min(1, v))
+			out[i] = run
+		}
+	default:
+		return nil, fmt.Errorf("adjust: unknown method %q", method)
+	}
+	return out, nil
+}

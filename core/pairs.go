@@ -1,0 +1,75 @@
+package core
+
+import (
+	"context"
+
+	"midrank/core/adjust"
+	"midrank/core/letters"
+	"midrank/core/posthoc"
+	"midrank/core/rank"
+	"midrank/core/report"
+)
+
+// PostHoc is the result of the pairwise comparisons.
+type PostHoc struct {
+	Method     string            `json:"method"`
+	Adjust     string            `json:"adjust"`
+	Confidence float64           `json:"confidence"` // of the Hodges–Lehmann intervals, 1 − alpha
+	Pairs      []PairResult      `json:"pairs"`
+	Letters    map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
+}
+
+// PairResult is one comparison, a before b in input order.
+type PairResult struct {
+	A           string  `json:"a"`
+	B           string  `json:"b"`
+	Statistic   float64 `json:"statistic"` // signed, positive when a tends higher; U of a for mann-whitney
+	P           float64 `json:"p"`         // two-sided
+	PAdjusted   float64 `json:"p_adjusted"`
+	Significant bool    `json:"significant"` // p_adjusted ≤ alpha
+	Exact       bool    `json:"exact"`       // mann-whitney: exact null distribution
+	// effect sizes
+	ProbSuperiority float64 `json:"probability_of_superiority"` // P(a > b) + ½P(a = b)
+	CliffsDelta     float64 `json:"cliffs_delta"`
+	Shift           float64 `json:"hodges_lehmann"` // median of a − b
+	ShiftLow        float64 `json:"hodges_lehmann_low"`
+	ShiftHigh       float64 `json:"hodges_lehmann_high"`
+}
+
+// comparePairs runs the post-hoc procedure, adjusts the p-values and letters
+// the groups.
+func (r *Result) comparePairs(ctx context.Context, s settings, ranking rank.Ranking) error {
+	if s.posthoc == "none" {
+		return nil
+	}
+	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, r.H, 1-s.alpha)
+	if err != nil {
+		return err
+	}
+	raw := make([]float64, len(pairs))
+	for i, p := range pairs {
+		raw[i] = p.P
+	}
+	adjusted, err := adjust.Adjust(raw, s.adjust)
+	if err != nil {
+		return err
+	}
+	ph := &PostHoc{Method: s.posthoc, Adjust: s.adjust, Confidence: 1 - s.alpha, Letters: map[string]string{}}
+	k := len(r.Groups)
+	differ := make([]bool, k*k)
+	for i, p := range pairs {
+		sig := report.Significant(adjusted[i], s.alpha)
+		differ[p.A*k+p.B], differ[p.B*k+p.A] = sig, sig
+		ph.Pairs = append(ph.Pairs, PairResult{
+			A: r.Groups[p.A].Label, B: r.Groups[p.B].Label,
+			Statistic: p.Statistic, P: p.P, PAdjusted: adjusted[i], Significant: sig, Exact: p.Exact,
+			ProbSuperiority: p.ProbSuperiority, CliffsDelta: p.CliffsDelta,
+			Shift: p.Shift, ShiftLow: p.ShiftLow, ShiftHigh: p.ShiftHigh,
+		})
+	}
+	for g, l := range letters.Display(k, func(a, b int) bool { return differ[a*k+b] }) {
+		ph.Letters[r.Groups[g].Label] = l
+	}
+	r.PostHoc = ph
+	return nil
+}
