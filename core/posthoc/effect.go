@@ -2,6 +2,7 @@ package posthoc
 
 import (
 	"math"
+	"slices"
 
 	"midrank/core/dist"
 	"midrank/core/rank"
@@ -59,7 +60,8 @@ func effects(a, b []float64, confidence float64) Effect {
 	if total%2 == 1 {
 		e.Shift = kthDifference(a, b, total/2+1)
 	} else {
-		e.Shift = (kthDifference(a, b, total/2) + kthDifference(a, b, total/2+1)) / 2
+		below := kthDifference(a, b, total/2)
+		e.Shift = (below + nextDifference(a, b, below, total/2)) / 2
 	}
 	z := dist.NormalQuantileUpper((1 - confidence) / 2)
 	c := int(math.Floor(m/2 - z*math.Sqrt(m*float64(len(a)+len(b)+1)/12)))
@@ -70,37 +72,107 @@ func effects(a, b []float64, confidence float64) Effect {
 }
 
 // kthDifference returns the k-th smallest (from 1) of the differences
-// a[i] − b[j] of two ascending slices, without forming them: a bisection
-// over the ordered float64 values, each step counting the differences at or
-// below a candidate in one merge-like pass. It ends after at most 64 steps
-// on the one float64 value where the count reaches k, which is a difference.
+// a[i] − b[j] of two ascending slices, without forming all of them. It
+// bisects the values, each step counting the differences at or below a
+// candidate in one merge-like pass, until at most a few thousand differences
+// lie between the bounds (or, with ties, the upper bound is itself the
+// answer); those are then listed and the answer picked from them. A few
+// dozen passes replace the na·nb differences.
 func kthDifference(a, b []float64, k int) float64 {
-	lo := rank.Key(a[0] - b[len(b)-1]) // the smallest difference
-	hi := rank.Key(a[len(a)-1] - b[0]) // the largest
-	for lo < hi {
+	lo := a[0] - b[len(b)-1] // the smallest difference
+	hi := a[len(a)-1] - b[0] // the largest
+	cLo, _ := countAtMost(a, b, lo)
+	if cLo >= k {
+		return lo
+	}
+	cHi := len(a) * len(b)
+	// invariant: cLo = #(≤ lo) < k ≤ cHi = #(≤ hi)
+	// sorting the listed differences costs about as much as one pass per
+	// 40 of them, so list no more than a quarter of a pass's length
+	listable := max(1024, (len(a)+len(b))/4)
+	for cHi-cLo > listable {
 		mid := lo + (hi-lo)/2
-		if countAtMost(a, b, rank.FromKey(mid)) >= k {
-			hi = mid
+		if mid <= lo || mid >= hi {
+			return hi // lo and hi are neighbours: every difference between is hi
+		}
+		if c, top := countAtMost(a, b, mid); c >= k {
+			// hi becomes the largest difference at or below mid; with tied
+			// values one difference can repeat more often than the list
+			// holds, so stop when the k-th is that difference itself
+			hi, cHi = top, c
+			if countBelow(a, b, hi) < k {
+				return hi
+			}
 		} else {
-			lo = mid + 1
+			lo, cLo = mid, c
 		}
 	}
-	d := rank.FromKey(lo)
+	between := make([]float64, 0, cHi-cLo)
+	j, l := 0, 0 // for ascending x, a[i] − b[j] ≤ hi from j on, and ≤ lo from l on
+	for _, x := range a {
+		for j < len(b) && x-b[j] > hi {
+			j++
+		}
+		for l < len(b) && x-b[l] > lo {
+			l++
+		}
+		for _, y := range b[j:l] {
+			between = append(between, x-y)
+		}
+	}
+	slices.Sort(between)
+	d := between[k-cLo-1]
 	if d == 0 {
-		d = 0 // the search can stop on -0, which equals 0 in every count
+		d = 0 // never report -0
 	}
 	return d
 }
 
-// countAtMost counts the pairs with a[i] − b[j] ≤ d. For ascending a the
-// first j with a[i] − b[j] ≤ d only moves right.
-func countAtMost(a, b []float64, d float64) int {
-	count, j := 0, 0
+// nextDifference is the (k+1)-th smallest difference given d, the k-th: d
+// again if it repeats, else the smallest difference above d (one pass).
+func nextDifference(a, b []float64, d float64, k int) float64 {
+	if c, _ := countAtMost(a, b, d); c > k {
+		return d
+	}
+	next := math.Inf(1)
+	j := 0 // for ascending x, a[i] − b[j] > d exactly for j below a bound that only moves right
 	for _, x := range a {
 		for j < len(b) && x-b[j] > d {
+			j++
+		}
+		if j > 0 {
+			next = min(next, x-b[j-1])
+		}
+	}
+	return next
+}
+
+// countBelow counts the pairs with a[i] − b[j] < d.
+func countBelow(a, b []float64, d float64) int {
+	count, j := 0, 0
+	for _, x := range a {
+		for j < len(b) && x-b[j] >= d {
 			j++
 		}
 		count += len(b) - j
 	}
 	return count
+}
+
+// countAtMost counts the pairs with a[i] − b[j] ≤ d, and finds the largest
+// such difference. For ascending a the first j with a[i] − b[j] ≤ d only
+// moves right, and a[i] − b[j] is the largest for that a[i].
+func countAtMost(a, b []float64, d float64) (count int, top float64) {
+	top = math.Inf(-1)
+	j := 0
+	for _, x := range a {
+		for j < len(b) && x-b[j] > d {
+			j++
+		}
+		if j < len(b) {
+			count += len(b) - j
+			top = max(top, x-b[j])
+		}
+	}
+	return count, top
 }

@@ -10,8 +10,12 @@ package posthoc
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
+	"runtime"
+	"sync"
+	"sync/atomic"
 
 	"midrank/core/dist"
 	"midrank/core/exact"
@@ -48,30 +52,56 @@ func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence f
 	var pairs []Pair
 	for a := 0; a < k; a++ {
 		for b := a + 1; b < k; b++ {
-			if err := ctx.Err(); err != nil {
-				return nil, err
-			}
-			p := Pair{A: a, B: b}
-			switch method {
-			case "dunn":
-				p.Statistic, p.P = dunn(r, a, b)
-			case "conover":
-				p.Statistic, p.P = conover(r, h, a, b)
-			case "dscf":
-				p.Statistic, p.P = dscf(r, a, b)
-			case "mann-whitney":
-				var err error
-				if p.Statistic, p.P, p.Exact, err = mannWhitney(ctx, r, a, b); err != nil {
-					return nil, err
-				}
-			default:
-				return nil, fmt.Errorf("posthoc: unknown method %q", method)
-			}
-			p.Effect = effects(groups[a], groups[b], confidence)
-			pairs = append(pairs, p)
+			pairs = append(pairs, Pair{A: a, B: b})
 		}
 	}
+	if _, ok := Names[method]; !ok {
+		return nil, fmt.Errorf("posthoc: unknown method %q", method)
+	}
+	// pairs are independent: share them among the cores, each result in
+	// its own slot, so the answer does not depend on the sharing
+	var next atomic.Int64
+	errs := make([]error, len(pairs))
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(pairs)) {
+		wg.Go(func() {
+			for {
+				i := int(next.Add(1) - 1)
+				if i >= len(pairs) || ctx.Err() != nil {
+					return
+				}
+				errs[i] = compare(ctx, method, r, h, confidence, groups, &pairs[i])
+			}
+		})
+	}
+	wg.Wait()
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	if err := errors.Join(errs...); err != nil {
+		return nil, err
+	}
 	return pairs, nil
+}
+
+// compare fills in one pair.
+func compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64, groups [][]float64, p *Pair) error {
+	a, b := p.A, p.B
+	switch method {
+	case "dunn":
+		p.Statistic, p.P = dunn(r, a, b)
+	case "conover":
+		p.Statistic, p.P = conover(r, h, a, b)
+	case "dscf":
+		p.Statistic, p.P = dscf(r, a, b)
+	case "mann-whitney":
+		var err error
+		if p.Statistic, p.P, p.Exact, err = mannWhitney(ctx, r, a, b); err != nil {
+			return err
+		}
+	}
+	p.Effect = effects(groups[a], groups[b], confidence)
+	return nil
 }
 
 // dunn is Dunn's (1964) z for the difference of mean ranks, with the tie

@@ -5,6 +5,7 @@ import (
 	"context"
 	"math"
 	"os"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -153,6 +154,40 @@ func TestSymmetry(t *testing.T) {
 				if q.A == p.A && q.B == p.B && (math.Abs(q.Statistic+p.Statistic) > 1e-12 || math.Abs(q.P-p.P) > 1e-12) {
 					t.Errorf("%s pair %d–%d: %v %v swapped to %v %v", method, p.A, p.B, p.Statistic, p.P, q.Statistic, q.P)
 				}
+			}
+		}
+	}
+}
+
+// TestKthDifference: against sorting all differences, with ties, negatives
+// and both small and listable sizes.
+func TestKthDifference(t *testing.T) {
+	cases := [][2][]float64{
+		{{1, 2, 3}, {1, 2, 3}},
+		{{-5, 0, 0, 2.5, 7}, {-1, 0, 3}},
+		{{0.1, 0.2, 0.3, 0.4}, {0.3}},
+	}
+	big := [2][]float64{make([]float64, 300), make([]float64, 250)}
+	for i := range big[0] {
+		big[0][i] = float64(i%37) * 0.7
+	}
+	for i := range big[1] {
+		big[1][i] = float64(i%23)*1.3 - 4
+	}
+	slices.Sort(big[0])
+	slices.Sort(big[1])
+	cases = append(cases, big)
+	for _, c := range cases {
+		var all []float64
+		for _, x := range c[0] {
+			for _, y := range c[1] {
+				all = append(all, x-y)
+			}
+		}
+		slices.Sort(all)
+		for k := 1; k <= len(all); k += max(1, len(all)/97) {
+			if got := kthDifference(c[0], c[1], k); got != all[k-1] {
+				t.Fatalf("kthDifference(%d) = %v, want %v", k, got, all[k-1])
 			}
 		}
 	}
