@@ -59,6 +59,8 @@ async function analyse() {
     layout: $("layout").value,
     alpha: Number($("alpha").value),
     pvalue: $("pvalue").value,
+    posthoc: $("posthoc").value,
+    adjust: $("adjust").value,
     resamples: Number($("resamples").value),
     seed: Number($("seed").value),
   };
@@ -121,9 +123,11 @@ function render() {
   $("epsilon-word").textContent = "(" + r.epsilon_squared_size + ")";
   $("eta-word").textContent = r.eta_squared_size ? "(" + r.eta_squared_size + ")" : "";
 
+  const letters = r.posthoc ? r.posthoc.letters : {};
   const rows = r.groups.map((g) => row([g.label, g.n, g.missing, fmt(g.median), fmt(g.q1), fmt(g.q3),
-    fmt(g.min), fmt(g.max), fmt(g.mean_rank), fmt(g.rank_sum)]));
+    fmt(g.min), fmt(g.max), fmt(g.mean_rank), fmt(g.rank_sum), letters[g.label] || ""]));
   $("group-rows").replaceChildren(...rows);
+  showPairs();
 
   const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
   $("notes").replaceChildren(...notes);
@@ -132,6 +136,47 @@ function render() {
   showTies();
   rankOffset = 0;
   showRanks();
+}
+
+let pairsSorted = false;
+
+function showPairs() {
+  const ph = result.posthoc;
+  $("pairs-box").hidden = !ph;
+  if (!ph) return;
+  $("pairs-hint").textContent = result.significant
+    ? "Groups that share a letter in the table above could not be told apart at the chosen level."
+    : "The overall test is not significant: these pairwise results are shown for completeness and should not be read as findings.";
+  const pairs = ph.pairs.slice();
+  if (pairsSorted) pairs.sort((x, y) => x.p_adjusted - y.p_adjusted);
+  $("pair-rows").replaceChildren(...pairs.map((p) => row([p.a, p.b, fmt(p.statistic), fmtP(p.p), fmtP(p.p_adjusted),
+    p.significant ? "yes" : "", p.probability_of_superiority.toFixed(3), p.cliffs_delta.toFixed(3), fmt(p.hodges_lehmann),
+    fmt(p.hodges_lehmann_low) + " to " + fmt(p.hodges_lehmann_high)], p.significant ? "tied" : "")));
+  const labels = result.groups.map((g) => g.label);
+  const head = document.createElement("tr");
+  for (const text of [""].concat(labels)) {
+    const th = document.createElement("th");
+    th.scope = "col";
+    th.textContent = text;
+    head.append(th);
+  }
+  $("matrix-head").replaceChildren(head);
+  const cell = new Map(ph.pairs.map((p) => [p.a + "\u0000" + p.b, p]));
+  $("matrix-rows").replaceChildren(...labels.map((a) => {
+    const tr = document.createElement("tr");
+    const th = document.createElement("th");
+    th.scope = "row";
+    th.textContent = a;
+    tr.append(th);
+    for (const b of labels) {
+      const td = document.createElement("td");
+      const p = cell.get(a + "\u0000" + b) || cell.get(b + "\u0000" + a);
+      td.textContent = p ? fmtP(p.p_adjusted) : "–";
+      if (p && p.significant) td.className = "differ";
+      tr.append(td);
+    }
+    return tr;
+  }));
 }
 
 function setFigure(key, text) {
@@ -179,6 +224,7 @@ async function showTies() {
 }
 
 $("analyse").addEventListener("click", analyse);
+$("sort-pairs").addEventListener("click", () => { pairsSorted = !pairsSorted; showPairs(); });
 $("prev-page").addEventListener("click", () => { rankOffset = Math.max(0, rankOffset - PAGE_ROWS); showRanks(); });
 $("next-page").addEventListener("click", () => { rankOffset += PAGE_ROWS; showRanks(); });
 $("copy-decision").addEventListener("click", async () => {

@@ -164,6 +164,26 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("pairs and letters match the core", func(t *testing.T) {
+		ph := want.PostHoc
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#pair-rows tr").length`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if rows != len(ph.Pairs) {
+			t.Errorf("%d pair rows, want %d", rows, len(ph.Pairs))
+		}
+		letters, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#group-rows tr")].map(r => r.lastElementChild.textContent)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, g := range want.Groups {
+			if letters[i] != ph.Letters[g.Label] {
+				t.Errorf("group %s shows letters %q, want %q", g.Label, letters[i], ph.Letters[g.Label])
+			}
+		}
+	})
+
 	t.Run("screenshot", func(t *testing.T) {
 		png, err := chromedp.Run(b.ctx, chromedp.FullScreenshot(100))
 		if err != nil {
