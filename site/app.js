@@ -6,7 +6,16 @@
 const PAGE_ROWS = 200;
 const $ = (id) => document.getElementById(id);
 
-const worker = new Worker("worker.js");
+// The single-file build carries the worker's source, the module and the
+// demo data in inert text blocks (see tools/internal/sitebuild).
+const offline = document.getElementById("worker-source");
+const worker = offline
+  ? new Worker(URL.createObjectURL(new Blob([offline.textContent], { type: "text/javascript" })))
+  : new Worker("worker.js");
+if (offline) {
+  const bytes = Uint8Array.from(atob(document.getElementById("module-base64").textContent), (c) => c.charCodeAt(0));
+  worker.postMessage({ kind: "module", bytes }, [bytes.buffer]);
+}
 let nextId = 1;
 let latest = 0; // the id of the latest request: older replies are dropped
 let result = null;
@@ -48,8 +57,9 @@ worker.onmessage = (event) => {
 
 async function start() {
   if ($("data").value.trim() === "") {
-    const response = await fetch("demo.tsv");
-    $("data").value = await response.text();
+    $("data").value = offline
+      ? document.getElementById("demo-data").textContent
+      : await (await fetch("demo.tsv")).text();
   }
   analyse();
 }

@@ -2,21 +2,36 @@
 // freezes. Messages: {id, kind: "analyze", data, options} and
 // {id, kind: "page", list, offset, count}; replies: {id, json}, and
 // {id, kind: "progress", stage, done, total} during long computations.
-importScripts("wasm_exec.js");
+// Served, it loads wasm_exec.js and fetches the module itself; in the
+// single-file build it runs from a blob: URL with wasm_exec.js prepended,
+// and the page sends the module's bytes first: {kind: "module", bytes}.
+const fromBlob = self.location.protocol === "blob:";
+if (!fromBlob) importScripts("wasm_exec.js");
 
-const ready = (async () => {
-  const go = new Go();
-  const { instance } = await WebAssembly.instantiateStreaming(fetch("midrank.wasm"), go.importObject);
-  go.run(instance); // main registers globalThis.midrank, then waits for calls
-  return globalThis.midrank;
-})();
+let ready = null;
 
-ready.then((m) => postMessage({ kind: "ready", version: m.version }),
-  (err) => postMessage({ kind: "failed", message: String(err) }));
+function start(source) {
+  ready = (async () => {
+    const go = new Go();
+    const { instance } = source instanceof Uint8Array
+      ? await WebAssembly.instantiate(source, go.importObject)
+      : await WebAssembly.instantiateStreaming(fetch(source), go.importObject);
+    go.run(instance); // main registers globalThis.midrank, then waits for calls
+    return globalThis.midrank;
+  })();
+  ready.then((m) => postMessage({ kind: "ready", version: m.version }),
+    (err) => postMessage({ kind: "failed", message: String(err) }));
+}
+
+if (!fromBlob) start("midrank.wasm");
 
 onmessage = async (event) => {
-  const m = await ready;
   const q = event.data;
+  if (q.kind === "module") {
+    start(q.bytes);
+    return;
+  }
+  const m = await ready;
   const json = q.kind === "page"
     ? m.page(q.list, q.offset, q.count)
     : m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options),

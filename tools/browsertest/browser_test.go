@@ -17,6 +17,7 @@ import (
 	"testing"
 	"time"
 
+	"github.com/chromedp/cdproto/cdp"
 	"github.com/chromedp/cdproto/log"
 	"github.com/chromedp/cdproto/network"
 	"github.com/chromedp/cdproto/runtime"
@@ -49,22 +50,48 @@ func (b *browser) snapshot() (requests, console []string) {
 	return append([]string(nil), b.requests...), append([]string(nil), b.console...)
 }
 
-// start builds the site, serves it on loopback with the production headers
-// and opens it in Chromium with the flags this machine needs.
+var (
+	buildOnce sync.Once
+	built     string
+	buildErr  error
+)
+
+// site builds the site once for all tests of this package.
+func site(t *testing.T) string {
+	t.Helper()
+	buildOnce.Do(func() {
+		built, buildErr = os.MkdirTemp("", "midrank-site")
+		if buildErr == nil {
+			var log strings.Builder
+			if _, err := sitebuild.Build("../..", built, &log); err != nil {
+				buildErr = fmt.Errorf("%v\n%s", err, log.String())
+			}
+		}
+	})
+	if buildErr != nil {
+		t.Fatalf("building the site: %v", buildErr)
+	}
+	return built
+}
+
+// start serves the built site on loopback with the production headers and
+// opens it in Chromium.
 func start(t *testing.T) *browser {
+	t.Helper()
+	srv := httptest.NewServer(static.Handler(os.DirFS(site(t))))
+	t.Cleanup(srv.Close)
+	return open(t, srv.URL+"/", srv.URL+"/")
+}
+
+// open starts a fresh Chromium with the flags this machine needs, records
+// every request and console message, and navigates to url. Requests are
+// expected to start with origin.
+func open(t *testing.T, url, origin string) *browser {
 	t.Helper()
 	chromium, err := exec.LookPath("chromium")
 	if err != nil {
 		t.Fatal("Chromium is needed for the browser tests: make test installs it (apt-get install chromium)")
 	}
-	dist := t.TempDir()
-	var buildLog strings.Builder
-	if err := sitebuild.Build("../..", dist, &buildLog); err != nil {
-		t.Fatalf("building the site: %v\n%s", err, buildLog.String())
-	}
-	srv := httptest.NewServer(static.Handler(os.DirFS(dist)))
-	t.Cleanup(srv.Close)
-
 	opts := []chromedp.ExecAllocatorOption{
 		chromedp.ExecPath(chromium),
 		chromedp.Headless, chromedp.NoSandbox, chromedp.DisableGPU, chromedp.NoFirstRun,
@@ -75,7 +102,7 @@ func start(t *testing.T) *browser {
 		chromedp.UserDataDir(t.TempDir()),
 		chromedp.WindowSize(1200, 900),
 	}
-	b := &browser{origin: srv.URL}
+	b := &browser{origin: origin}
 	actx, cancelAlloc := chromedp.NewExecAllocator(context.Background(), opts...)
 	ctx, cancelCtx := chromedp.NewContext(actx, chromedp.WithListener(func(ev any) {
 		switch e := ev.(type) {
@@ -99,10 +126,30 @@ func start(t *testing.T) *browser {
 	}))
 	t.Cleanup(func() { cancelCtx(); cancelAlloc() })
 	b.ctx = ctx
-	if err := chromedp.Do(ctx, chromedp.Navigate(srv.URL+"/")); err != nil {
+	if err := chromedp.Do(ctx, chromedp.Navigate(url)); err != nil {
 		t.Fatal(err)
 	}
 	return b
+}
+
+// checkRequests fails for any request outside the page's own origin and
+// for console messages that report a blocked load or an error.
+func (b *browser) checkRequests(t *testing.T) {
+	t.Helper()
+	requests, console := b.snapshot()
+	if len(requests) == 0 {
+		t.Fatal("no requests were recorded")
+	}
+	for _, u := range requests {
+		if !strings.HasPrefix(u, b.origin) && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
+			t.Errorf("request outside %s: %s", b.origin, u)
+		}
+	}
+	for _, m := range console {
+		if strings.Contains(m, "Content Security Policy") || strings.HasPrefix(m, "exception") || strings.HasPrefix(m, "error") {
+			t.Errorf("console: %s", m)
+		}
+	}
 }
 
 // waitFor polls a JavaScript condition until it holds.
@@ -246,20 +293,45 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("nothing is requested from another origin", func(t *testing.T) {
-		requests, console := b.snapshot()
-		if len(requests) == 0 {
-			t.Fatal("no requests were recorded")
-		}
-		for _, u := range requests {
-			if !strings.HasPrefix(u, b.origin+"/") && !strings.HasPrefix(u, "data:") && !strings.HasPrefix(u, "blob:") {
-				t.Errorf("request to another origin: %s", u)
-			}
-		}
-		for _, m := range console {
-			if strings.Contains(m, "Content Security Policy") || strings.HasPrefix(m, "exception") || strings.HasPrefix(m, "error") {
-				t.Errorf("console: %s", m)
-			}
-		}
-		fmt.Fprintf(os.Stderr, "browser requests: %d, all from %s\n", len(requests), b.origin)
+		b.checkRequests(t)
 	})
+}
+
+// TestOfflineFile opens the single-file build from disk with the network
+// switched off and analyses the demo: the same decision and H as the core.
+func TestOfflineFile(t *testing.T) {
+	path := filepath.Join(site(t), sitebuild.OfflineName)
+	b := open(t, "about:blank", "file://")
+	offline := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		_, err := cdp.Call(ctx, tg, network.EmulateNetworkConditionsByRule, network.EmulateNetworkConditionsByRuleParams{
+			MatchedNetworkConditions: []*network.Conditions{{Offline: true, DownloadThroughput: -1, UploadThroughput: -1}}})
+		return err
+	})
+	if err := chromedp.Do(b.ctx, offline, chromedp.Navigate("file://"+path)); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
+	demo, err := os.ReadFile("../../site/demo.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, err := core.Analyze(demo, core.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := b.text(t, "#decision"); got != want.Decision {
+		t.Errorf("offline decision:\n%s\nwant:\n%s", got, want.Decision)
+	}
+	if got := b.text(t, `[data-result="h"]`); got != shown(want.H) {
+		t.Errorf("offline H shown as %q, want %q", got, shown(want.H))
+	}
+	requests, _ := b.snapshot()
+	var kept []string
+	for _, u := range requests {
+		if u != "about:blank" {
+			kept = append(kept, u)
+		}
+	}
+	b.requests = kept
+	b.checkRequests(t)
 }

@@ -21,7 +21,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	if err := fs.Parse(args); err != nil {
 		return 2
 	}
-	if err := sitebuild.Build(".", *out, stdout); err != nil {
+	if _, err := sitebuild.Build(".", *out, stdout); err != nil {
 		fmt.Fprintln(stderr, "build:", err)
 		return 1
 	}

@@ -5,9 +5,11 @@
 package static
 
 import (
+	"io"
 	"io/fs"
 	"net/http"
 	"path"
+	"regexp"
 	"strings"
 )
 
@@ -39,24 +41,89 @@ func Headers(h http.Header) {
 	h.Set("Permissions-Policy", "camera=(), microphone=(), geolocation=(), usb=(), serial=(), bluetooth=(), payment=(), interest-cohort=()")
 }
 
-// Handler serves the files of site: GET and HEAD only, "/" as index.html.
+// hashed matches the names the build gives assets: name.<10 hex digits>.ext.
+var hashed = regexp.MustCompile(`\.[0-9a-f]{10}\.[a-z]+$`)
+
+// Handler serves the files of site: GET and HEAD only, "/" as index.html,
+// with the precompressed .br or .gz copy when the client accepts it, and
+// caching that never goes stale: hashed names are immutable, the page is
+// revalidated every time.
 func Handler(site fs.FS) http.Handler {
-	files := http.FileServerFS(site)
 	return http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
-		Headers(w.Header())
+		h := w.Header()
+		Headers(h)
 		if r.Method != http.MethodGet && r.Method != http.MethodHead {
-			w.Header().Set("Allow", "GET, HEAD")
+			h.Set("Allow", "GET, HEAD")
 			http.Error(w, "only GET and HEAD are served", http.StatusMethodNotAllowed)
 			return
 		}
-		name := r.URL.Path
-		if strings.HasSuffix(name, "/") {
-			name += "index.html"
+		name := strings.TrimPrefix(path.Clean("/"+r.URL.Path), "/")
+		if name == "" || strings.HasSuffix(r.URL.Path, "/") {
+			name = path.Join(name, "index.html")
 		}
+		if strings.HasSuffix(name, ".gz") || strings.HasSuffix(name, ".br") {
+			http.NotFound(w, r) // the copies are served by negotiation only
+			return
+		}
+		f, info, err := open(site, name)
+		if err != nil {
+			http.NotFound(w, r)
+			return
+		}
+		defer f.Close()
 		if t, ok := contentTypes[path.Ext(name)]; ok {
-			w.Header().Set("Content-Type", t)
+			h.Set("Content-Type", t)
 		}
-		w.Header().Set("Cache-Control", "no-cache")
-		files.ServeHTTP(w, r)
+		if hashed.MatchString(name) {
+			h.Set("Cache-Control", "public, max-age=31536000, immutable")
+		} else {
+			h.Set("Cache-Control", "no-cache")
+		}
+		h.Add("Vary", "Accept-Encoding")
+		accepted := r.Header.Get("Accept-Encoding")
+		for _, enc := range [...]struct{ token, ext string }{{"br", ".br"}, {"gzip", ".gz"}} {
+			if !acceptsEncoding(accepted, enc.token) {
+				continue
+			}
+			if cf, cinfo, err := open(site, name+enc.ext); err == nil {
+				defer cf.Close()
+				h.Set("Content-Encoding", enc.token)
+				http.ServeContent(w, r, name, cinfo.ModTime(), cf)
+				return
+			}
+		}
+		http.ServeContent(w, r, name, info.ModTime(), f)
 	})
+}
+
+// open opens a regular file of site for seeking.
+func open(site fs.FS, name string) (io.ReadSeekCloser, fs.FileInfo, error) {
+	f, err := site.Open(name)
+	if err != nil {
+		return nil, nil, err
+	}
+	info, err := f.Stat()
+	if err != nil || info.IsDir() {
+		f.Close()
+		return nil, nil, fs.ErrNotExist
+	}
+	rs, ok := f.(io.ReadSeekCloser)
+	if !ok {
+		f.Close()
+		return nil, nil, fs.ErrNotExist
+	}
+	return rs, info, nil
+}
+
+// acceptsEncoding reports whether an Accept-Encoding header allows token
+// (listed without q=0).
+func acceptsEncoding(header, token string) bool {
+	for _, part := range strings.Split(header, ",") {
+		name, params, _ := strings.Cut(strings.TrimSpace(part), ";")
+		if strings.EqualFold(strings.TrimSpace(name), token) {
+			q := strings.ReplaceAll(params, " ", "")
+			return q != "q=0" && q != "q=0.0" && q != "q=0.00" && q != "q=0.000"
+		}
+	}
+	return false
 }
