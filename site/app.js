@@ -55,7 +55,29 @@ worker.onmessage = (event) => {
   if (resolve) resolve(m.json);
 };
 
+// The settings on the form, by request key.
+const fields = ["layout", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
+const numeric = new Set(["alpha", "resamples", "seed"]);
+
+function formOptions() {
+  const options = {};
+  for (const f of fields) options[f] = numeric.has(f) ? Number($(f).value) : $(f).value;
+  return options;
+}
+
 async function start() {
+  if (location.hash.startsWith("#r1.")) {
+    const { body } = await ask({ kind: "open-link", fragment: location.hash });
+    if (body.error) {
+      showProblem(body.error);
+      $("status").textContent = "The link could not be opened; the page is ready for your own data.";
+      return;
+    } else {
+      $("data").value = body.data;
+      for (const f of fields) if (body.options[f] !== undefined) $(f).value = String(body.options[f]);
+      $("demo-note").hidden = true;
+    }
+  }
   if ($("data").value.trim() === "") {
     $("data").value = offline
       ? document.getElementById("demo-data").textContent
@@ -65,16 +87,9 @@ async function start() {
 }
 
 async function analyse() {
-  const options = {
-    layout: $("layout").value,
-    alpha: Number($("alpha").value),
-    pvalue: $("pvalue").value,
-    posthoc: $("posthoc").value,
-    adjust: $("adjust").value,
-    resamples: Number($("resamples").value),
-    seed: Number($("seed").value),
-  };
+  const options = formOptions();
   $("status").textContent = "Analysing…";
+  $("link-box").hidden = true;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
   const { id, body } = await ask({ kind: "analyze", data: $("data").value, options });
   if (id !== latest) return;
@@ -234,6 +249,33 @@ async function showTies() {
 }
 
 $("analyse").addEventListener("click", analyse);
+
+// Links longer than this are cut by some mail and chat programs.
+const SAFE_LINK = 2000;
+
+$("make-link").addEventListener("click", async () => {
+  const { body } = await ask({ kind: "link", data: $("data").value, options: formOptions() });
+  if (body.error) {
+    showProblem(body.error);
+    return;
+  }
+  const url = location.href.split("#")[0] + body.link;
+  let note = "This link contains your data itself (" + url.length.toLocaleString() + " characters): anyone who has it can see the data. " +
+    "It never reaches a server, because browsers do not send the part after # anywhere.";
+  if (url.length > SAFE_LINK) note += " It is longer than " + SAFE_LINK.toLocaleString() + " characters, which some mail and chat programs cut: send it as a file or check that it arrives whole.";
+  $("link-note").textContent = note;
+  $("link-text").value = url;
+  $("link-box").hidden = false;
+});
+$("copy-link").addEventListener("click", async () => {
+  try {
+    await navigator.clipboard.writeText($("link-text").value);
+    $("status").textContent = "The link is on the clipboard.";
+  } catch {
+    $("link-text").select();
+    $("status").textContent = "Copying was refused by the browser; the link is selected, copy it by hand.";
+  }
+});
 $("sort-pairs").addEventListener("click", () => { pairsSorted = !pairsSorted; showPairs(); });
 $("prev-page").addEventListener("click", () => { rankOffset = Math.max(0, rankOffset - PAGE_ROWS); showRanks(); });
 $("next-page").addEventListener("click", () => { rankOffset += PAGE_ROWS; showRanks(); });

@@ -1,6 +1,7 @@
 // Worker: owns Go's wasm_exec.js and the statistics module, so the page never
 // freezes. Messages: {id, kind: "analyze", data, options} and
-// {id, kind: "page", list, offset, count}; replies: {id, json}, and
+// {id, kind: "page", list, offset, count}, {id, kind: "link", data, options}
+// and {id, kind: "open-link", fragment}; replies: {id, json}, and
 // {id, kind: "progress", stage, done, total} during long computations.
 // Served, it loads wasm_exec.js and fetches the module itself; in the
 // single-file build it runs from a blob: URL with wasm_exec.js prepended,
@@ -32,9 +33,20 @@ onmessage = async (event) => {
     return;
   }
   const m = await ready;
-  const json = q.kind === "page"
-    ? m.page(q.list, q.offset, q.count)
-    : m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options),
-      (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+  let json;
+  switch (q.kind) {
+    case "page":
+      json = m.page(q.list, q.offset, q.count);
+      break;
+    case "link":
+      json = m.link(q.data, JSON.stringify(q.options));
+      break;
+    case "open-link":
+      json = m.openLink(q.fragment);
+      break;
+    default:
+      json = m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options),
+        (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+  }
   postMessage({ id: q.id, kind: q.kind, json });
 };

@@ -4,6 +4,8 @@
 //
 //	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
 //	globalThis.midrank.page(list, offset, count) → pageJSON
+//	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
+//	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
 //	globalThis.midrank.version
 //
 // where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
@@ -17,6 +19,7 @@ package main
 
 import (
 	"context"
+	"encoding/json"
 	"errors"
 	"syscall/js"
 	"unsafe"
@@ -34,9 +37,11 @@ var last *core.Result
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
-		"analyze": js.FuncOf(analyze),
-		"page":    js.FuncOf(page),
-		"version": core.Version,
+		"analyze":  js.FuncOf(analyze),
+		"page":     js.FuncOf(page),
+		"link":     js.FuncOf(shareLink),
+		"openLink": js.FuncOf(openLink),
+		"version":  core.Version,
 	}))
 }
 
@@ -80,6 +85,37 @@ func page(_ js.Value, args []js.Value) any {
 		return string(core.EncodeError(errors.New(`page: the list is "ranks" or "ties"`)))
 	}
 	return string(core.EncodePage(last.Page(list, args[1].Int(), args[2].Int())))
+}
+
+func shareLink(_ js.Value, args []js.Value) any {
+	if len(args) < 2 {
+		return string(core.EncodeError(errors.New("link(data, optionsJSON) needs two arguments")))
+	}
+	opt, err := core.DecodeOptions([]byte(args[1].String()))
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	fragment, err := core.ShareLink(bytesOf(args[0]), opt)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	b, _ := json.Marshal(map[string]string{"link": fragment}) // a string only: cannot fail
+	return string(b)
+}
+
+func openLink(_ js.Value, args []js.Value) any {
+	if len(args) < 1 {
+		return string(core.EncodeError(errors.New("openLink(fragment) needs the fragment")))
+	}
+	req, err := core.OpenLink(args[0].String())
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	b, err := json.Marshal(map[string]any{"data": req.Data, "options": req.Options})
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	return string(b)
 }
 
 // throttled calls fn when the progress has moved by a percent or more.

@@ -89,3 +89,19 @@ func TestProgressCallback(t *testing.T) {
 		t.Errorf("analyze = %.200s with %d progress calls", got, calls)
 	}
 }
+
+func TestLinks(t *testing.T) {
+	m := module()
+	made := m.Call("link", "A,B\n1,2\n3,4\n", `{"alpha":0.1,"posthoc":"conover"}`).String()
+	if !strings.Contains(made, `"link":"#r1.`) {
+		t.Fatalf("link = %s", made)
+	}
+	frag := made[strings.Index(made, "#r1."):strings.LastIndex(made, `"`)]
+	opened := m.Call("openLink", frag).String()
+	if !strings.Contains(opened, `"data":"A,B\n1,2\n3,4\n"`) || !strings.Contains(opened, `"alpha":0.1`) || !strings.Contains(opened, `"posthoc":"conover"`) {
+		t.Errorf("openLink = %s", opened)
+	}
+	if bad := m.Call("openLink", "#r1.%%%").String(); !strings.Contains(bad, "cannot be opened") {
+		t.Errorf("openLink of a broken link = %s", bad)
+	}
+}

@@ -292,6 +292,37 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a share link reopens the analysis", func(t *testing.T) {
+		data := "Team A,Team B,Team C\n4,5,2\n3,5,1\n4,4,2\n5,5,3\n"
+		b.analyse(t, data)
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#alpha", "0.1"), chromedp.Click("#make-link")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("link-text").value.includes("#r1.")`)
+		url, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("link-text").value`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		r := open(t, url, b.origin)
+		r.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
+		want, err := core.Analyze([]byte(data), core.Options{Alpha: 0.1})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := r.text(t, "#decision"); got != want.Decision {
+			t.Errorf("reopened decision:\n%s\nwant:\n%s", got, want.Decision)
+		}
+		alpha, _ := chromedp.Run(r.ctx, chromedp.Evaluate[string](`document.getElementById("alpha").value`))
+		if alpha != "0.1" {
+			t.Errorf("alpha restored as %q", alpha)
+		}
+		broken := open(t, b.origin+"#r1.$$$", b.origin)
+		broken.waitFor(t, `!document.getElementById("problem").hidden`)
+		if got := broken.text(t, "#problem"); !strings.Contains(got, "cannot be opened") {
+			t.Errorf("a broken link shows %q", got)
+		}
+	})
+
 	t.Run("nothing is requested from another origin", func(t *testing.T) {
 		b.checkRequests(t)
 	})

@@ -39,6 +39,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	var seed string
 	asJSON := fs.Bool("json", false, "print the result as JSON")
 	showRanks := fs.Bool("ranks", false, "list every value with its rank, and every tie")
+	printLink := fs.Bool("link", false, "print a share link that carries the data and settings, instead of the report")
+	linkBase := fs.String("link-base", "", "the page's address to put before the link fragment, e.g. http://intranet/midrank/")
+	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. fragment or the whole address) instead of FILE")
 	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide or long")
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
@@ -66,7 +69,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		*asJSON = wantsJSON(args)
 		return fail(exitSettings, fmt.Errorf("%v (midrank -h lists the flags)", err))
 	}
-	if fs.NArg() != 1 {
+	if *fromLink != "" {
+		if fs.NArg() != 0 {
+			return fail(exitSettings, errors.New("give either a FILE or --open, not both"))
+		}
+	} else if fs.NArg() != 1 {
 		return fail(exitSettings, errors.New("give one input file, or - for standard input (midrank -h lists the flags)"))
 	}
 	if seed != "" {
@@ -77,8 +84,16 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		opt.Seed = &s
 	}
 
-	data, err := readInput(fs.Arg(0), stdin)
-	if err != nil {
+	var data []byte
+	var err error
+	if *fromLink != "" {
+		_, fragment, _ := strings.Cut(*fromLink, "#")
+		req, err := core.OpenLink(fragment)
+		if err != nil {
+			return fail(exitData, err)
+		}
+		data, opt = []byte(req.Data), req.Options
+	} else if data, err = readInput(fs.Arg(0), stdin); err != nil {
 		return fail(exitData, err)
 	}
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
@@ -92,6 +107,14 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return fail(exitSettings, err)
 	case err != nil:
 		return fail(exitData, err)
+	}
+	if *printLink {
+		fragment, err := core.ShareLink(data, opt)
+		if err != nil {
+			return fail(exitSettings, err)
+		}
+		fmt.Fprintln(stdout, *linkBase+fragment)
+		return exitOK
 	}
 	if *asJSON {
 		b, err := core.Encode(result)

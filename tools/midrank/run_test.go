@@ -135,3 +135,26 @@ func wideUntied(k, n int) string {
 	}
 	return b.String()
 }
+
+// TestLinkRoundTrip: --link prints a link that --open analyses to the same JSON.
+func TestLinkRoundTrip(t *testing.T) {
+	const data = "A,B,C\n1,2,3\n4,5,6\n7,8,9\n"
+	var link, direct, reopened, stderr bytes.Buffer
+	if code := run([]string{"--link", "--link-base", "http://intranet/midrank/", "--alpha", "0.1", "--posthoc", "dscf", "-"}, strings.NewReader(data), &link, &stderr); code != exitOK {
+		t.Fatalf("--link: exit %d: %s", code, stderr.String())
+	}
+	if !strings.HasPrefix(link.String(), "http://intranet/midrank/#r1.") {
+		t.Fatalf("link %q", link.String())
+	}
+	run([]string{"--json", "--alpha", "0.1", "--posthoc", "dscf", "-"}, strings.NewReader(data), &direct, &stderr)
+	if code := run([]string{"--json", "--open", strings.TrimSpace(link.String())}, nil, &reopened, &stderr); code != exitOK {
+		t.Fatalf("--open: exit %d: %s", code, stderr.String())
+	}
+	if direct.String() != reopened.String() {
+		t.Errorf("the reopened link analyses differently:\n%.200s\n%.200s", direct.String(), reopened.String())
+	}
+	var out bytes.Buffer
+	if code := run([]string{"--open", "#r1.$$$"}, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "cannot be opened") {
+		t.Errorf("a broken link: exit %d, %q", code, stderr.String())
+	}
+}

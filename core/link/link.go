@@ -1,0 +1,75 @@
+// Package link packs an analysis request into the fragment of a URL, which
+// browsers never send to a server, so that a result can be shared by
+// sending an address:
+//
+//	#r1.<base64url without padding (RFC 4648 §5) of the raw DEFLATE stream (RFC 1951) of the request JSON>
+//
+// Decoding is bounded: a link longer than MaxLink characters or expanding
+// beyond MaxJSON bytes is refused before it can exhaust memory.
+package link
+
+import (
+	"bytes"
+	"compress/flate"
+	"encoding/base64"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+)
+
+// Prefix starts every link fragment of this format.
+const Prefix = "#r1."
+
+// Limits of decoding.
+const (
+	MaxLink = 8 << 20  // characters of a fragment
+	MaxJSON = 64 << 20 // bytes of the request it expands to
+)
+
+// Error is a link that cannot be opened.
+type Error struct{ Reason string }
+
+func (e *Error) Error() string { return "the link cannot be opened: " + e.Reason }
+
+// Encode packs request JSON into a fragment.
+func Encode(request []byte) string {
+	var b bytes.Buffer
+	w, _ := flate.NewWriter(&b, flate.BestCompression) // the level is valid: no error
+	w.Write(request)                                   // a bytes.Buffer does not fail
+	w.Close()
+	return Prefix + base64.RawURLEncoding.EncodeToString(b.Bytes())
+}
+
+// Decode unpacks a fragment (with or without the leading '#') into request
+// JSON.
+func Decode(fragment string) ([]byte, error) {
+	if !strings.HasPrefix(fragment, "#") {
+		fragment = "#" + fragment
+	}
+	if !strings.HasPrefix(fragment, Prefix) {
+		return nil, &Error{fmt.Sprintf("it does not start with %q; copy the whole address", Prefix)}
+	}
+	body := fragment[len(Prefix):]
+	if len(body) > MaxLink {
+		return nil, &Error{fmt.Sprintf("it is longer than %d characters", MaxLink)}
+	}
+	packed, err := base64.RawURLEncoding.DecodeString(body)
+	if err != nil {
+		var bad base64.CorruptInputError
+		if errors.As(err, &bad) {
+			return nil, &Error{fmt.Sprintf("character %d is not part of a link; it may have been cut or changed in transit", int(bad)+len(Prefix)+1)}
+		}
+		return nil, &Error{"it is damaged (" + err.Error() + ")"}
+	}
+	r := flate.NewReader(bytes.NewReader(packed))
+	defer r.Close()
+	out, err := io.ReadAll(io.LimitReader(r, MaxJSON+1))
+	if err != nil {
+		return nil, &Error{"it is damaged or incomplete (" + err.Error() + ")"}
+	}
+	if len(out) > MaxJSON {
+		return nil, &Error{fmt.Sprintf("it expands to more than %d MB", MaxJSON>>20)}
+	}
+	return out, nil
+}
