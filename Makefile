@@ -3,7 +3,7 @@ GO ?= go
 WASMEXEC := $(shell $(GO) env GOROOT)/lib/wasm
 FUZZTIME ?= 10s
 
-.PHONY: build serve test test-deps test-go test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
+.PHONY: build serve edge edge-dev edge-deps test test-deps test-go test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -13,13 +13,26 @@ build:
 serve: build
 	$(GO) run ./tools/serve --addr 127.0.0.1:8080 --dir dist
 
+# edge: build the site and the edge worker (tools/edge/build, run by tools/edge/workerd.capnp)
+edge:
+	$(GO) run ./tools/build --out dist --edge
+
+# edge-dev: run the edge worker in the local edge runtime on http://127.0.0.1:8787/
+edge-dev: edge edge-deps
+	cd tools/edge && node_modules/.bin/workerd serve workerd.capnp
+
+# edge-deps: install the pinned local edge runtime (npm package workerd, see tools/edge/package-lock.json)
+edge-deps:
+	@test -x tools/edge/node_modules/.bin/workerd || (cd tools/edge && npm ci --no-audit --no-fund)
+
 # test: every check that must pass before a change lands
 test: fmt-check vet check-core test-deps test-go test-wasm fuzz
 
-# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js)
+# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js, the edge runtime)
 test-deps:
 	@command -v chromium >/dev/null 2>&1 || { apt-get update && apt-get install -y chromium; }
-	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs; }
+	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs npm; }
+	@$(MAKE) --no-print-directory edge-deps
 
 # test-go: the Go tests natively, the browser tests in headless Chromium among them
 test-go:
@@ -51,6 +64,7 @@ fuzz:
 	$(GO) test ./core/table -run '^$$' -fuzz '^FuzzParse$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 	$(GO) test ./core -run '^$$' -fuzz '^FuzzAnalyze$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzRank$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
+	$(GO) test ./core/link -run '^$$' -fuzz '^FuzzDecode$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
 # bench: the speed and memory benchmarks
 bench:
@@ -66,4 +80,4 @@ reference:
 
 # clean: remove build output
 clean:
-	rm -rf dist
+	rm -rf dist tools/edge/build tools/edge/site

@@ -12,5 +12,8 @@ require (
 
 require (
 	github.com/go-json-experiment/json v0.0.0-20260213210345-44df1a37e875 // indirect
+	github.com/syumai/workers v0.33.0 // indirect
 	github.com/tdewolff/parse/v2 v2.25.0 // indirect
 )
+
+tool github.com/syumai/workers/cmd/workers-assets-gen
