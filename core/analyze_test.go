@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"os"
 	"strings"
 	"testing"
 
@@ -177,6 +178,32 @@ func TestListsAreNeverNull(t *testing.T) {
 	for _, key := range []string{`"ties":[]`, `"warnings":[`, `"ranks":[`} {
 		if !strings.Contains(string(b), key) {
 			t.Errorf("JSON lacks %s: %s", key, b)
+		}
+	}
+}
+
+// TestLettersMatchPairs: on the example cases and every post-hoc method,
+// two groups share a letter exactly when their pair is not significant.
+func TestLettersMatchPairs(t *testing.T) {
+	for _, name := range []string{"insectsprays_ties.csv", "airquality_missing.csv", "clinic_demo_invented.tsv", "plantgrowth_long.csv"} {
+		data, err := os.ReadFile("../testdata/cases/" + name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, method := range []string{"dunn", "conover", "dscf", "mann-whitney"} {
+			r, err := Analyze(data, Options{PostHoc: method, PValue: "asymptotic"})
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, p := range r.PostHoc.Pairs {
+				shared := strings.ContainsAny(r.PostHoc.Letters[p.A], r.PostHoc.Letters[p.B])
+				if shared == p.Significant {
+					t.Errorf("%s %s: %s (%s) and %s (%s): significant %v", name, method, p.A, r.PostHoc.Letters[p.A], p.B, r.PostHoc.Letters[p.B], p.Significant)
+				}
+				if p.PAdjusted < p.P {
+					t.Errorf("%s %s: adjusted %v below raw %v", name, method, p.PAdjusted, p.P)
+				}
+			}
 		}
 	}
 }

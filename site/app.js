@@ -9,18 +9,26 @@ const $ = (id) => document.getElementById(id);
 // The single-file build carries the worker's source, the module and the
 // demo data in inert text blocks (see tools/internal/sitebuild).
 const offline = document.getElementById("worker-source");
-const worker = offline
-  ? new Worker(URL.createObjectURL(new Blob([offline.textContent], { type: "text/javascript" })))
-  : new Worker("worker.js");
-if (offline) {
-  const bytes = Uint8Array.from(atob(document.getElementById("module-base64").textContent), (c) => c.charCodeAt(0));
-  worker.postMessage({ kind: "module", bytes }, [bytes.buffer]);
-}
+const moduleBytes = offline
+  ? Uint8Array.from(atob(document.getElementById("module-base64").textContent), (c) => c.charCodeAt(0))
+  : null;
+let worker = null;
+let started = false;
 let nextId = 1;
 let latest = 0; // the id of the latest request: older replies are dropped
 let result = null;
 let rankOffset = 0;
 const pending = new Map();
+
+// startWorker starts a fresh worker; Cancel terminates the old one, since a
+// running module cannot be interrupted.
+function startWorker() {
+  worker = offline
+    ? new Worker(URL.createObjectURL(new Blob([offline.textContent], { type: "text/javascript" })))
+    : new Worker("worker.js");
+  if (offline) worker.postMessage({ kind: "module", bytes: moduleBytes.slice() });
+  worker.onmessage = onWorkerMessage;
+}
 
 function ask(message) {
   const id = nextId++;
@@ -30,13 +38,17 @@ function ask(message) {
   }).then((json) => ({ id, body: JSON.parse(json) }));
 }
 
-worker.onmessage = (event) => {
+function onWorkerMessage(event) {
   const m = event.data;
   if (m.kind === "ready") {
     $("version").textContent = m.version;
+    document.documentElement.dataset.moduleReadyMs = String(Math.round(m.ms));
     $("analyse").disabled = false;
-    $("status").textContent = "Ready.";
-    start();
+    if (!started) {
+      started = true;
+      $("status").textContent = "Ready.";
+      start();
+    }
     return;
   }
   if (m.kind === "failed") {
@@ -53,7 +65,19 @@ worker.onmessage = (event) => {
   const resolve = pending.get(m.id);
   pending.delete(m.id);
   if (resolve) resolve(m.json);
-};
+}
+
+startWorker();
+
+function cancel() {
+  worker.terminate();
+  for (const resolve of pending.values()) resolve(JSON.stringify({ cancelled: true }));
+  pending.clear();
+  latest = nextId++; // any reply still on its way is stale
+  $("cancel").hidden = true;
+  $("status").textContent = "Cancelled. The results shown, if any, are from the previous analysis.";
+  startWorker();
+}
 
 // The settings on the form, by request key.
 const fields = ["layout", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
@@ -90,9 +114,11 @@ async function analyse() {
   const options = formOptions();
   $("status").textContent = "Analysing…";
   $("link-box").hidden = true;
+  $("cancel").hidden = false;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
   const { id, body } = await ask({ kind: "analyze", data: $("data").value, options });
-  if (id !== latest) return;
+  if (id !== latest || body.cancelled) return;
+  $("cancel").hidden = true;
   if (body.error) {
     showProblem(body.error);
     return;
@@ -249,6 +275,7 @@ async function showTies() {
 }
 
 $("analyse").addEventListener("click", analyse);
+$("cancel").addEventListener("click", cancel);
 
 // Links longer than this are cut by some mail and chat programs.
 const SAFE_LINK = 2000;

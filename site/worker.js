@@ -11,16 +11,19 @@ if (!fromBlob) importScripts("wasm_exec.js");
 
 let ready = null;
 
+// start compiles and runs the module from its bytes or its address, and
+// reports how long the module took to be ready once its bytes were there.
 function start(source) {
+  let arrived = 0;
   ready = (async () => {
+    const bytes = source instanceof Uint8Array ? source : await (await fetch(source)).arrayBuffer();
+    arrived = performance.now();
     const go = new Go();
-    const { instance } = source instanceof Uint8Array
-      ? await WebAssembly.instantiate(source, go.importObject)
-      : await WebAssembly.instantiateStreaming(fetch(source), go.importObject);
+    const { instance } = await WebAssembly.instantiate(bytes, go.importObject);
     go.run(instance); // main registers globalThis.midrank, then waits for calls
     return globalThis.midrank;
   })();
-  ready.then((m) => postMessage({ kind: "ready", version: m.version }),
+  ready.then((m) => postMessage({ kind: "ready", version: m.version, ms: performance.now() - arrived }),
     (err) => postMessage({ kind: "failed", message: String(err) }));
 }
 

@@ -323,6 +323,36 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("Cancel stops a long Monte Carlo run at once", func(t *testing.T) {
+		if err := chromedp.Do(b.ctx,
+			chromedp.SetValue("#data", string(demo)), chromedp.SetValue("#pvalue", "monte-carlo"),
+			chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+		if err := chromedp.Do(b.ctx, chromedp.Click("#cancel")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Cancelled")`)
+		// the restarted worker answers the next request
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "asymptotic"), chromedp.SetValue("#resamples", "100000")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `!document.getElementById("analyse").disabled`)
+		b.analyse(t, string(demo))
+		if got := b.text(t, `[data-result="p_method"]`); got != "chi-square approximation" {
+			t.Errorf("after Cancel the next analysis shows method %q", got)
+		}
+	})
+
+	t.Run("module ready time", func(t *testing.T) {
+		ms, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.moduleReadyMs`))
+		if err != nil || ms == "" {
+			t.Fatalf("no ready time recorded: %v", err)
+		}
+		t.Logf("the module was ready %s ms after its bytes arrived (a figure for the notes, not a pass mark)", ms)
+	})
+
 	t.Run("nothing is requested from another origin", func(t *testing.T) {
 		b.checkRequests(t)
 	})
