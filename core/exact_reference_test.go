@@ -88,20 +88,26 @@ func deref(p *float64) any {
 	return *p
 }
 
+// parseGroups reads "1,2;3,4" as two groups of values.
+func parseGroups(text string) [][]float64 {
+	var groups [][]float64
+	for _, g := range strings.Split(text, ";") {
+		var vs []float64
+		for _, s := range strings.Split(g, ",") {
+			v, _ := strconv.ParseFloat(s, 64)
+			vs = append(vs, v)
+		}
+		groups = append(groups, vs)
+	}
+	return groups
+}
+
 // TestExactPValues: exact p-values of small samples of R's open datasets,
 // with ties, equal scipy.stats.permutation_test in exact mode
 // (testdata/reference/exact_pvalues.tsv).
 func TestExactPValues(t *testing.T) {
 	for _, row := range readTSV(t, "exact_pvalues.tsv") {
-		var groups [][]float64
-		for _, g := range strings.Split(row[1], ";") {
-			var vs []float64
-			for _, s := range strings.Split(g, ",") {
-				v, _ := strconv.ParseFloat(s, 64)
-				vs = append(vs, v)
-			}
-			groups = append(groups, vs)
-		}
+		groups := parseGroups(row[1])
 		want, _ := strconv.ParseFloat(row[2], 64)
 		r, err := Analyze(longText(groups), Options{PValue: "exact", Layout: "long"})
 		if err != nil {
@@ -122,15 +128,7 @@ func TestExactPValues(t *testing.T) {
 // by construction (same core), and p̂ is never 0.
 func TestMonteCarloCoversExact(t *testing.T) {
 	for _, row := range readTSV(t, "exact_pvalues.tsv") {
-		var groups [][]float64
-		for _, g := range strings.Split(row[1], ";") {
-			var vs []float64
-			for _, s := range strings.Split(g, ",") {
-				v, _ := strconv.ParseFloat(s, 64)
-				vs = append(vs, v)
-			}
-			groups = append(groups, vs)
-		}
+		groups := parseGroups(row[1])
 		want, _ := strconv.ParseFloat(row[2], 64)
 		r, err := Analyze(longText(groups), Options{PValue: "monte-carlo", Layout: "long", Resamples: 100_000})
 		if err != nil {

@@ -1,9 +1,7 @@
 package dist
 
 import (
-	"bufio"
 	"math"
-	"os"
 	"strconv"
 	"strings"
 	"testing"
@@ -15,16 +13,8 @@ import (
 // values (testdata/reference/chi2_tail.tsv, made by
 // tools/reference/chi2_tail.py), down to 1e-284.
 func TestChiSquaredSurvivalMpmath(t *testing.T) {
-	f, err := os.Open("../../testdata/reference/chi2_tail.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	s := bufio.NewScanner(f)
-	s.Scan()
 	checked := 0
-	for s.Scan() {
-		c := strings.Split(s.Text(), "\t")
+	for _, c := range readRows(t, "chi2_tail.tsv") {
 		if !strings.HasPrefix(c[3], "mpmath") {
 			continue
 		}
@@ -104,16 +94,8 @@ func TestElementary(t *testing.T) {
 // difference lgamma(a+b) − lgamma(b) loses about five digits, which is far
 // below anything a Monte Carlo interval is read to.
 func TestClopperPearson(t *testing.T) {
-	f, err := os.Open("../../testdata/reference/clopper_pearson.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	s := bufio.NewScanner(f)
-	s.Scan()
 	checked := 0
-	for s.Scan() {
-		c := strings.Split(s.Text(), "\t")
+	for _, c := range readRows(t, "clopper_pearson.tsv") {
 		x, _ := strconv.Atoi(c[0])
 		n, _ := strconv.Atoi(c[1])
 		lo, _ := strconv.ParseFloat(c[2], 64)

@@ -187,10 +187,12 @@ func shown(v float64) string {
 	return strconv.FormatFloat(v, 'g', 4, 64)
 }
 
-func TestPage(t *testing.T) {
-	b := start(t)
+// smokeTest is what every way of hosting the page must pass: the demo
+// renders the core's decision and figures. It returns the demo and the
+// core's result for it.
+func (b *browser) smokeTest(t *testing.T) ([]byte, *core.Result) {
+	t.Helper()
 	b.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
-
 	demo, err := os.ReadFile("../../site/demo.tsv")
 	if err != nil {
 		t.Fatal(err)
@@ -199,17 +201,28 @@ func TestPage(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if got := b.text(t, "#decision"); got != want.Decision {
+		t.Errorf("decision on the page:\n%s\nwant:\n%s", got, want.Decision)
+	}
+	if got := b.text(t, `[data-result="h"]`); got != shown(want.H) {
+		t.Errorf("H shown as %q, want %q", got, shown(want.H))
+	}
+	if got := b.text(t, `[data-result="df"]`); got != strconv.Itoa(want.DF) {
+		t.Errorf("df shown as %q, want %d", got, want.DF)
+	}
+	return demo, want
+}
+
+func TestPage(t *testing.T) {
+	b := start(t)
+	var demo []byte
+	var want *core.Result
 	t.Run("demo renders its decision", func(t *testing.T) {
-		if got := b.text(t, "#decision"); got != want.Decision {
-			t.Errorf("decision on the page:\n%s\nwant:\n%s", got, want.Decision)
-		}
-		if got := b.text(t, `[data-result="h"]`); got != shown(want.H) {
-			t.Errorf("H shown as %q, want %q", got, shown(want.H))
-		}
-		if got := b.text(t, `[data-result="df"]`); got != strconv.Itoa(want.DF) {
-			t.Errorf("df shown as %q, want %d", got, want.DF)
-		}
+		demo, want = b.smokeTest(t)
 	})
+	if want == nil {
+		t.FailNow()
+	}
 
 	t.Run("pairs and letters match the core", func(t *testing.T) {
 		ph := want.PostHoc
@@ -371,21 +384,7 @@ func TestOfflineFile(t *testing.T) {
 	if err := chromedp.Do(b.ctx, offline, chromedp.Navigate("file://"+path)); err != nil {
 		t.Fatal(err)
 	}
-	b.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
-	demo, err := os.ReadFile("../../site/demo.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	want, err := core.Analyze(demo, core.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if got := b.text(t, "#decision"); got != want.Decision {
-		t.Errorf("offline decision:\n%s\nwant:\n%s", got, want.Decision)
-	}
-	if got := b.text(t, `[data-result="h"]`); got != shown(want.H) {
-		t.Errorf("offline H shown as %q, want %q", got, shown(want.H))
-	}
+	b.smokeTest(t)
 	requests, _ := b.snapshot()
 	var kept []string
 	for _, u := range requests {

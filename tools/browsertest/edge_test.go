@@ -12,7 +12,6 @@ import (
 	"testing"
 	"time"
 
-	"midrank/core"
 	"midrank/tools/internal/sitebuild"
 	"midrank/tools/internal/static"
 )
@@ -88,18 +87,7 @@ func TestEdgeWorker(t *testing.T) {
 	}
 
 	b := open(t, base+"/", base+"/")
-	b.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
-	demo, err := os.ReadFile("../../site/demo.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	want, err := core.Analyze(demo, core.Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if got := b.text(t, "#decision"); got != want.Decision {
-		t.Errorf("edge decision:\n%s\nwant:\n%s", got, want.Decision)
-	}
+	b.smokeTest(t)
 	b.checkRequests(t)
 }
 
