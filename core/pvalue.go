@@ -55,17 +55,12 @@ type permutationProblem struct {
 func newProblem(ranking rank.Ranking) *permutationProblem {
 	n := len(ranking.Sorted)
 	p := &permutationProblem{sizes: ranking.Sizes}
-	// doubled midranks of each tie block: positions i+1 … j share (i+1+j)/2
+	// doubled midranks of each tie block, 2·(i+1+j)/2
 	var doubled []int64
 	var counts []int
-	for i := 0; i < n; {
-		j := i + 1
-		for j < n && ranking.Sorted[j] == ranking.Sorted[i] {
-			j++
-		}
+	for i, j := range ranking.Blocks() {
 		doubled = append(doubled, int64(i+1+j))
 		counts = append(counts, j-i)
-		i = j
 	}
 	p.base = doubled[0]
 	for _, d := range doubled[1:] {

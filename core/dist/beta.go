@@ -57,30 +57,11 @@ func betaFraction(a, b, x float64) float64 {
 	for m := 1; m < maxIter; m++ {
 		fm := float64(m)
 		m2 := 2 * fm
-		aa := fm * (b - fm) * x / ((qam + m2) * (a + m2))
-		d = 1 + aa*d
-		if math.Abs(d) < tiny {
-			d = tiny
-		}
-		c = 1 + aa/c
-		if math.Abs(c) < tiny {
-			c = tiny
-		}
-		d = 1 / d
-		h *= d * c
-		aa = -(a + fm) * (qab + fm) * x / ((a + m2) * (qap + m2))
-		d = 1 + aa*d
-		if math.Abs(d) < tiny {
-			d = tiny
-		}
-		c = 1 + aa/c
-		if math.Abs(c) < tiny {
-			c = tiny
-		}
-		d = 1 / d
-		delta := d * c
-		h *= delta
-		if math.Abs(delta-1) < epsilon {
+		var even, odd float64
+		c, d, even = lentz(fm*(b-fm)*x/((qam+m2)*(a+m2)), 1, c, d)
+		c, d, odd = lentz(-(a+fm)*(qab+fm)*x/((a+m2)*(qap+m2)), 1, c, d)
+		h *= even * odd
+		if math.Abs(odd-1) < epsilon {
 			break
 		}
 	}

@@ -63,24 +63,32 @@ func upperGamma(a, x float64) float64 {
 	d := 1 / b
 	h := d
 	for i := 1; i < maxIter; i++ {
-		an := -float64(i) * (float64(i) - a)
 		b += 2
-		d = an*d + b
-		if math.Abs(d) < tiny {
-			d = tiny
-		}
-		c = b + an/c
-		if math.Abs(c) < tiny {
-			c = tiny
-		}
-		d = 1 / d
-		delta := d * c
+		var delta float64
+		c, d, delta = lentz(-float64(i)*(float64(i)-a), b, c, d)
 		h *= delta
 		if math.Abs(delta-1) < epsilon {
 			break
 		}
 	}
 	return prefactor * h
+}
+
+// lentz takes one step of the modified Lentz evaluation of a continued
+// fraction b₀ + a₁/(b₁ + a₂/(b₂ + …)) (Press et al. 2007, §5.2): given the
+// term aₙ/bₙ and the running c and d, it returns the new c and d and the
+// factor c·d by which the value so far is multiplied.
+func lentz(an, bn, c, d float64) (float64, float64, float64) {
+	d = bn + an*d
+	if math.Abs(d) < tiny {
+		d = tiny
+	}
+	c = bn + an/c
+	if math.Abs(c) < tiny {
+		c = tiny
+	}
+	d = 1 / d
+	return c, d, c * d
 }
 
 // gammaDensity is the density of the Gamma(a, 1) law at x > 0,

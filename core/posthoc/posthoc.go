@@ -149,15 +149,9 @@ func conover(r rank.Ranking, h float64, a, b int) (float64, float64) {
 // sumSquaredRanks is Σr² over all midranks, block by block.
 func sumSquaredRanks(r rank.Ranking) float64 {
 	sum := 0.0
-	n := len(r.Sorted)
-	for i := 0; i < n; {
-		j := i + 1
-		for j < n && r.Sorted[j] == r.Sorted[i] {
-			j++
-		}
-		mid := float64(i+1+j) / 2
+	for i, j := range r.Blocks() {
+		mid := rank.Midrank(i, j)
 		sum += float64(j-i) * mid * mid
-		i = j
 	}
 	return sum
 }
@@ -167,12 +161,7 @@ func sumSquaredRanks(r rank.Ranking) float64 {
 // once, keeping the two groups' members.
 func pairRanking(r rank.Ranking, a, b int) (w float64, na, nb int, tieSum float64) {
 	pos := 0 // positions taken so far in the pair's own order
-	n := len(r.Sorted)
-	for i := 0; i < n; {
-		j := i + 1
-		for j < n && r.Sorted[j] == r.Sorted[i] {
-			j++
-		}
+	for i, j := range r.Blocks() {
 		inA, inB := 0, 0
 		for _, g := range r.Groups[i:j] {
 			switch int(g) {
@@ -183,15 +172,13 @@ func pairRanking(r rank.Ranking, a, b int) (w float64, na, nb int, tieSum float6
 			}
 		}
 		if t := inA + inB; t > 0 {
-			mid := float64(2*pos+t+1) / 2
-			w += float64(inA) * mid
+			w += float64(inA) * rank.Midrank(pos, pos+t)
 			ft := float64(t)
 			tieSum += ft*ft*ft - ft
 			pos += t
 			na += inA
 			nb += inB
 		}
-		i = j
 	}
 	return w, na, nb, tieSum
 }

@@ -8,6 +8,7 @@
 package rank
 
 import (
+	"iter"
 	"math"
 	"slices"
 	"sort"
@@ -43,14 +44,8 @@ type Ranking struct {
 func Rank(values []float64, groups []int32, k int) Ranking {
 	r := Ranking{Sizes: make([]int, k), RankSums: make([]float64, k)}
 	r.Sorted, r.Groups = sortTagged(values, groups)
-	n := len(r.Sorted)
-	for i := 0; i < n; {
-		j := i + 1
-		for j < n && r.Sorted[j] == r.Sorted[i] {
-			j++
-		}
-		// positions i+1 … j share their mean
-		mid := float64(i+1+j) / 2
+	for i, j := range r.Blocks() {
+		mid := Midrank(i, j)
 		for _, g := range r.Groups[i:j] {
 			r.Sizes[g]++
 			r.RankSums[g] += mid
@@ -60,10 +55,31 @@ func Rank(values []float64, groups []int32, k int) Ranking {
 			ft := float64(t)
 			r.TieSum += ft*ft*ft - ft
 		}
-		i = j
 	}
 	return r
 }
+
+// Blocks yields the tie blocks of the sorted values, in ascending order:
+// positions i … j−1 (from 0) hold one value.
+func (r Ranking) Blocks() iter.Seq2[int, int] {
+	return func(yield func(int, int) bool) {
+		n := len(r.Sorted)
+		for i := 0; i < n; {
+			j := i + 1
+			for j < n && r.Sorted[j] == r.Sorted[i] {
+				j++
+			}
+			if !yield(i, j) {
+				return
+			}
+			i = j
+		}
+	}
+}
+
+// Midrank is the rank shared by positions i … j−1 (from 0): the mean of the
+// ranks i+1 … j.
+func Midrank(i, j int) float64 { return float64(i+1+j) / 2 }
 
 // Midranks returns the midrank of each value, in input order.
 func Midranks(values []float64) []float64 {

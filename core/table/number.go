@@ -51,26 +51,13 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 	// so it cannot overflow where it matters.
 	var mant uint64
 	start := i
-	for ; i < len(s); i++ {
-		d := s[i] - '0'
-		if d > 9 {
-			break
-		}
-		mant = mant*10 + uint64(d)
-	}
+	i, mant = digitRun(s, i, mant)
 	digits, fracDigits := i-start, 0
 	markAt := -1
 	if i < len(s) && (s[i] == '.' || (comma && s[i] == ',')) {
 		markAt = i
-		i++
-		fracStart := i
-		for ; i < len(s); i++ {
-			d := s[i] - '0'
-			if d > 9 {
-				break
-			}
-			mant = mant*10 + uint64(d)
-		}
+		fracStart := i + 1
+		i, mant = digitRun(s, fracStart, mant)
 		fracDigits = i - fracStart
 		digits += fracDigits
 	}
@@ -120,6 +107,19 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 		f = -f
 	}
 	return finite(f, usedComma)
+}
+
+// digitRun reads the decimal digits of s from i on into mant, returning the
+// position after them.
+func digitRun(s []byte, i int, mant uint64) (int, uint64) {
+	for ; i < len(s); i++ {
+		d := s[i] - '0'
+		if d > 9 {
+			break
+		}
+		mant = mant*10 + uint64(d)
+	}
+	return i, mant
 }
 
 // slowParse converts a cell already checked against the grammar; a decimal
