@@ -89,7 +89,32 @@ function formOptions() {
   return options;
 }
 
+// What the user typed and chose is kept in this browser's own storage,
+// on this computer only, so that a reload loses nothing.
+const KEPT = "midrank.workspace.v1";
+
+function keep() {
+  try {
+    localStorage.setItem(KEPT, JSON.stringify({ data: $("data").value, options: formOptions() }));
+  } catch {
+    // storage may be full or switched off; the page works without it
+  }
+}
+
+function restoreKept() {
+  try {
+    const kept = JSON.parse(localStorage.getItem(KEPT) || "null");
+    if (!kept) return false;
+    $("data").value = kept.data;
+    for (const f of fields) if (kept.options[f] !== undefined) $(f).value = String(kept.options[f]);
+    return kept.data.trim() !== "";
+  } catch {
+    return false;
+  }
+}
+
 async function start() {
+  if (!location.hash.startsWith("#r1.") && restoreKept()) $("demo-note").hidden = true;
   if (location.hash.startsWith("#r1.")) {
     const { body } = await ask({ kind: "open-link", fragment: location.hash });
     if (body.error) {
@@ -112,6 +137,7 @@ async function start() {
 
 async function analyse() {
   const options = formOptions();
+  keep();
   $("status").textContent = "Analysing…";
   $("link-box").hidden = true;
   $("cancel").hidden = false;
@@ -275,6 +301,95 @@ async function showTies() {
 }
 
 $("analyse").addEventListener("click", analyse);
+$("data").addEventListener("input", keep);
+for (const f of fields) $(f).addEventListener("change", keep);
+$("forget").addEventListener("click", () => {
+  localStorage.removeItem(KEPT);
+  $("status").textContent = "Nothing is kept in this browser any more; the text on the page stays until you leave it.";
+});
+
+// Files are read with the File API in this tab; nothing is sent anywhere.
+function readFile(file) {
+  const reader = new FileReader();
+  reader.onload = () => {
+    $("data").value = reader.result;
+    $("demo-note").hidden = true;
+    keep();
+    analyse();
+  };
+  reader.onerror = () => showProblem({ message: "The file " + file.name + " could not be read: " + reader.error });
+  reader.readAsText(file);
+}
+$("file").addEventListener("change", () => { if ($("file").files[0]) readFile($("file").files[0]); });
+$("data").addEventListener("dragover", (e) => { e.preventDefault(); $("data").classList.add("dropping"); });
+$("data").addEventListener("dragleave", () => $("data").classList.remove("dropping"));
+$("data").addEventListener("drop", (e) => {
+  e.preventDefault();
+  $("data").classList.remove("dropping");
+  if (e.dataTransfer.files[0]) readFile(e.dataTransfer.files[0]);
+});
+
+// Downloads are made in the page from the result: a Blob and a link.
+function download(name, type, text) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement("a");
+  a.href = url;
+  a.download = name;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+function csvCell(v) {
+  const s = String(v);
+  return /[",\n\r]/.test(s) ? '"' + s.replace(/"/g, '""') + '"' : s;
+}
+
+function csv(rows) {
+  return rows.map((r) => r.map(csvCell).join(",")).join("\r\n") + "\r\n";
+}
+
+$("save-groups").addEventListener("click", () => {
+  if (!result) return;
+  const letters = result.posthoc ? result.posthoc.letters : {};
+  download("midrank-groups.csv", "text/csv", csv([["group", "values", "missing", "median", "lower_quartile", "upper_quartile",
+    "lowest", "highest", "mean_rank", "rank_sum", "letters"]].concat(result.groups.map((g) => [g.label, g.n, g.missing,
+    g.median, g.q1, g.q3, g.min, g.max, g.mean_rank, g.rank_sum, letters[g.label] || ""]))));
+});
+$("save-pairs").addEventListener("click", () => {
+  if (!result || !result.posthoc) return;
+  download("midrank-pairs.csv", "text/csv", csv([["first", "second", "statistic", "p", "p_adjusted", "significant",
+    "probability_of_superiority", "cliffs_delta", "hodges_lehmann", "hodges_lehmann_low", "hodges_lehmann_high"]].concat(
+    result.posthoc.pairs.map((p) => [p.a, p.b, p.statistic, p.p, p.p_adjusted, p.significant, p.probability_of_superiority,
+      p.cliffs_delta, p.hodges_lehmann, p.hodges_lehmann_low, p.hodges_lehmann_high]))));
+});
+$("save-markdown").addEventListener("click", () => {
+  if (!result) return;
+  const r = result;
+  const md = (cells) => "| " + cells.map((c) => String(c).replace(/\|/g, "\\|")).join(" | ") + " |";
+  const lines = ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
+    r.decision, "", "## Test figures", "", md(["figure", "value"]), md(["---", "---"]),
+    md(["H, corrected for ties", r.h]), md(["H before the correction", r.h_uncorrected]), md(["tie correction C", r.tie_correction]),
+    md(["degrees of freedom", r.df]), md(["p-value", r.p_value]), md(["how p was found", r.p_method_reason]),
+    md(["H needed at alpha " + r.alpha + " (chi-square)", r.critical_value]),
+    md(["epsilon squared", r.epsilon_squared + " (" + r.epsilon_squared_size + ")"]),
+    md(["eta squared (H)", r.eta_squared === null ? "undefined" : r.eta_squared + " (" + r.eta_squared_size + ")"]),
+    "", "## Groups", "", "Quartiles: " + r.quantile_method + ".", "",
+    md(["group", "values", "missing", "median", "lower quartile", "upper quartile", "mean rank", "rank sum"]),
+    md(["---", "---", "---", "---", "---", "---", "---", "---"])].concat(
+    r.groups.map((g) => md([g.label, g.n, g.missing, g.median, g.q1, g.q3, g.mean_rank, g.rank_sum])));
+  if (r.posthoc) {
+    lines.push("", "## Pairs (" + r.posthoc.method + ", adjusted by " + r.posthoc.adjust + ")", "",
+      md(["first", "second", "statistic", "p", "adjusted p", "P(first > second)", "shift"]),
+      md(["---", "---", "---", "---", "---", "---", "---"]));
+    for (const p of r.posthoc.pairs) {
+      lines.push(md([p.a, p.b, p.statistic, p.p, p.p_adjusted, p.probability_of_superiority, p.hodges_lehmann]));
+    }
+  }
+  if (r.warnings.length) lines.push("", "## Take note", "", ...r.warnings.map((w) => "- " + w));
+  download("midrank-report.md", "text/markdown", lines.join("\n") + "\n");
+});
 $("cancel").addEventListener("click", cancel);
 
 // Links longer than this are cut by some mail and chat programs.

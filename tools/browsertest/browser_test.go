@@ -358,6 +358,27 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("what was typed survives a reload until it is cleared", func(t *testing.T) {
+		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
+		b.analyse(t, typed)
+		if err := chromedp.Do(b.ctx, chromedp.Reload()); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+		got, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("data").value`))
+		if err != nil || got != typed {
+			t.Errorf("after a reload the data is %q (%v), want %q", got, err, typed)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.Click("#forget"), chromedp.Reload()); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+		got, _ = chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("data").value`))
+		if got != string(demo) {
+			t.Errorf("after clearing and a reload the data is %q, want the demo", got)
+		}
+	})
+
 	t.Run("module ready time", func(t *testing.T) {
 		ms, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.moduleReadyMs`))
 		if err != nil || ms == "" {
