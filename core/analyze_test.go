@@ -207,3 +207,30 @@ func TestLettersMatchPairs(t *testing.T) {
 		}
 	}
 }
+
+// FuzzDecodeOptions: any options JSON either decodes or fails with an
+// *OptionError, and decoded options analyse without a panic.
+func FuzzDecodeOptions(f *testing.F) {
+	f.Add([]byte(`{"alpha":0.1,"pvalue":"exact","posthoc":"dscf"}`))
+	f.Add([]byte(`{"seed":-1}`))
+	f.Add([]byte(`{"resamples":1e9}`))
+	f.Fuzz(func(t *testing.T, options []byte) {
+		opt, err := DecodeOptions(options)
+		if err != nil {
+			var oe *OptionError
+			if !errors.As(err, &oe) {
+				t.Fatalf("error %T %v", err, err)
+			}
+			return
+		}
+		if opt.Resamples > 10_000 {
+			opt.Resamples = 10_000 // keep each run short
+		}
+		if _, err := Analyze([]byte("A,B,C\n1,2,3\n4,5,6\n"), opt); err != nil {
+			var oe *OptionError
+			if !errors.As(err, &oe) {
+				t.Fatalf("Analyze error %T %v", err, err)
+			}
+		}
+	})
+}
