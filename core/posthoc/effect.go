@@ -90,17 +90,25 @@ func kthDifference(a, b []float64, k int) float64 {
 	// sorting the listed differences costs about as much as one pass per
 	// 40 of them, so list no more than a quarter of a pass's length
 	listable := max(1024, (len(a)+len(b))/4)
-	for cHi-cLo > listable {
+	for step := 0; cHi-cLo > listable; step++ {
+		// alternate a step that interpolates on the counts (fast where the
+		// differences are spread smoothly) with a bisection (sure progress)
 		mid := lo + (hi-lo)/2
-		if mid <= lo || mid >= hi {
-			return hi // lo and hi are neighbours: every difference between is hi
+		if step%2 == 0 {
+			mid = lo + (hi-lo)*(float64(k-cLo)/float64(cHi-cLo))
+		}
+		if !(mid > lo && mid < hi) {
+			mid = lo + (hi-lo)/2
+			if !(mid > lo && mid < hi) {
+				return hi // lo and hi are neighbours: every difference between is hi
+			}
 		}
 		if c, top := countAtMost(a, b, mid); c >= k {
 			// hi becomes the largest difference at or below mid; with tied
 			// values one difference can repeat more often than the list
-			// holds, so stop when the k-th is that difference itself
+			// holds, so on bisection steps check whether the k-th is hi itself
 			hi, cHi = top, c
-			if countBelow(a, b, hi) < k {
+			if step%2 == 1 && countBelow(a, b, hi) < k {
 				return hi
 			}
 		} else {
