@@ -244,6 +244,22 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("pictures show every group and value", func(t *testing.T) {
+		counts, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]int](`[
+			document.querySelectorAll("#plot-values svg rect[fill=none]").length,
+			document.querySelectorAll("#plot-values svg circle, #plot-values svg rect:not([fill=none]), #plot-values svg path").length,
+			document.querySelectorAll("#plot-ranks svg text").length]`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if counts[0] != want.K || counts[1] != want.N {
+			t.Errorf("value plot has %d boxes and %d markers, want %d and %d", counts[0], counts[1], want.K, want.N)
+		}
+		if caption := b.text(t, "#plot-ranks-caption"); !strings.Contains(caption, "Mean rank of each group") {
+			t.Errorf("mean-rank caption %q", caption)
+		}
+	})
+
 	t.Run("screenshot", func(t *testing.T) {
 		png, err := chromedp.Run(b.ctx, chromedp.FullScreenshot(100))
 		if err != nil {
