@@ -66,6 +66,7 @@ fuzz:
 	$(GO) test ./core/rank -run '^$$' -fuzz '^FuzzRank$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 	$(GO) test ./core/link -run '^$$' -fuzz '^FuzzDecode$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 	$(GO) test ./core -run '^$$' -fuzz '^FuzzDecodeOptions$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
+	$(GO) test ./core/jsonlite -run '^$$' -fuzz '^FuzzParseObject$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
 # bench: the speed and memory benchmarks
 bench:

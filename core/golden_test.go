@@ -2,6 +2,7 @@ package core
 
 import (
 	"bytes"
+	"encoding/json"
 	"flag"
 	"os"
 	"testing"
@@ -76,5 +77,46 @@ func TestDemoIsACase(t *testing.T) {
 	}
 	if !bytes.Equal(site, c) {
 		t.Error("site/demo.tsv and testdata/cases/clinic_demo_invented.tsv differ; copy one over the other")
+	}
+}
+
+// TestEncodeMatchesStructTags: the hand-written encoder gives exactly what
+// encoding/json gives for Result's json tags (HTML escaping off), for every
+// case, so the tags stay the documentation of the format.
+func TestEncodeMatchesStructTags(t *testing.T) {
+	cases, err := casefiles.List("../testdata/cases")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range cases {
+		data, _ := os.ReadFile(c.Input)
+		var options []byte
+		if c.Options != "" {
+			options, _ = os.ReadFile(c.Options)
+		}
+		opt, err := DecodeOptions(options)
+		if err != nil {
+			continue
+		}
+		r, err := Analyze(data, opt)
+		if err != nil {
+			continue
+		}
+		got, _ := Encode(r)
+		var want bytes.Buffer
+		enc := json.NewEncoder(&want)
+		enc.SetEscapeHTML(false)
+		if err := enc.Encode(r); err != nil {
+			t.Fatal(err)
+		}
+		if !bytes.Equal(got, want.Bytes()) {
+			t.Errorf("%s: Encode differs from encoding/json", c.Name)
+		}
+		p := r.Page(ListRanks, 1, 3)
+		want.Reset()
+		enc.Encode(p)
+		if got := EncodePage(p); !bytes.Equal(got, want.Bytes()) {
+			t.Errorf("%s: EncodePage = %s, encoding/json %s", c.Name, got, want.Bytes())
+		}
 	}
 }

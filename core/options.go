@@ -2,12 +2,13 @@ package core
 
 import (
 	"bytes"
-	"encoding/json"
 	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 
 	"midrank/core/adjust"
+	"midrank/core/jsonlite"
 	"midrank/core/posthoc"
 	"midrank/core/table"
 )
@@ -63,12 +64,125 @@ func DecodeOptions(data []byte) (Options, error) {
 	if len(bytes.TrimSpace(data)) == 0 {
 		return o, nil
 	}
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&o); err != nil {
+	names, values, err := jsonlite.ParseObject(data)
+	if err == nil {
+		err = o.set(names, values, nil)
+	}
+	if err != nil {
 		return o, &OptionError{Option: "options", Value: string(data), Reason: "not valid options JSON (" + err.Error() + ")"}
 	}
 	return o, nil
+}
+
+// set assigns the members of a parsed object to the options; other names
+// go to extra, or are an error when extra is nil. A null member keeps the
+// default.
+func (o *Options) set(names []string, values map[string]jsonlite.Value, extra func(name string, v jsonlite.Value) error) error {
+	for _, name := range names {
+		v := values[name]
+		if v.Kind == jsonlite.Null {
+			continue
+		}
+		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal,
+			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
+		if dst, ok := text[name]; ok {
+			if v.Kind != jsonlite.String {
+				return fmt.Errorf("%q must be a string", name)
+			}
+			*dst = v.Text
+			continue
+		}
+		switch name {
+		case "alpha":
+			f, err := number(name, v)
+			if err != nil {
+				return err
+			}
+			o.Alpha = f
+		case "resamples":
+			n, err := wholeNumber(name, v)
+			if err != nil {
+				return err
+			}
+			o.Resamples = int(n)
+		case "seed":
+			n, err := wholeNumber(name, v)
+			if err != nil || n < 0 {
+				return fmt.Errorf("%q must be a whole number from 0", name)
+			}
+			seed := uint64(n)
+			o.Seed = &seed
+		default:
+			if extra == nil {
+				return fmt.Errorf("unknown option %q", name)
+			}
+			if err := extra(name, v); err != nil {
+				return err
+			}
+		}
+	}
+	return nil
+}
+
+func number(name string, v jsonlite.Value) (float64, error) {
+	if v.Kind != jsonlite.Number {
+		return 0, fmt.Errorf("%q must be a number", name)
+	}
+	return strconv.ParseFloat(v.Text, 64)
+}
+
+// wholeNumber reads an integer that fits int64 (written without fraction).
+func wholeNumber(name string, v jsonlite.Value) (int64, error) {
+	if v.Kind != jsonlite.Number {
+		return 0, fmt.Errorf("%q must be a whole number", name)
+	}
+	n, err := strconv.ParseInt(v.Text, 10, 64)
+	if err != nil {
+		return 0, fmt.Errorf("%q must be a whole number", name)
+	}
+	return n, nil
+}
+
+// JSON renders the options that differ from the defaults as an object.
+func (o Options) JSON() []byte {
+	var w jsonlite.Writer
+	w.BeginObject()
+	o.write(&w)
+	w.EndObject()
+	return w.Bytes()
+}
+
+// write appends the options that differ from the defaults, with the names
+// of their json tags, as members of an open object.
+func (o Options) write(w *jsonlite.Writer) {
+	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}} {
+		if f.v != "" {
+			w.Key(f.name)
+			w.String(f.v)
+		}
+	}
+	if o.Alpha != 0 {
+		w.Key("alpha")
+		w.Float(o.Alpha)
+	}
+	if o.PValue != "" {
+		w.Key("pvalue")
+		w.String(o.PValue)
+	}
+	if o.Resamples != 0 {
+		w.Key("resamples")
+		w.Int(int64(o.Resamples))
+	}
+	if o.Seed != nil {
+		w.Key("seed")
+		w.Uint(*o.Seed)
+	}
+	for _, f := range []struct{ name, v string }{{"posthoc", o.PostHoc}, {"adjust", o.Adjust}} {
+		if f.v != "" {
+			w.Key(f.name)
+			w.String(f.v)
+		}
+	}
 }
 
 // settings are validated options in the form the analysis uses.

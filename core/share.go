@@ -1,9 +1,7 @@
 package core
 
 import (
-	"bytes"
-	"encoding/json"
-
+	"midrank/core/jsonlite"
 	"midrank/core/link"
 )
 
@@ -14,19 +12,25 @@ type Request struct {
 	Options
 }
 
+// JSON renders the request: "data" first, then the options that differ
+// from the defaults.
+func (r Request) JSON() []byte {
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.Key("data")
+	w.String(r.Data)
+	r.Options.write(&w)
+	w.EndObject()
+	return w.Bytes()
+}
+
 // ShareLink packs data and options into a link fragment (package link). The
 // link holds the data itself: whoever has the link can read it.
 func ShareLink(data []byte, opt Options) (string, error) {
 	if _, err := opt.validate(); err != nil {
 		return "", err
 	}
-	var b bytes.Buffer
-	enc := json.NewEncoder(&b)
-	enc.SetEscapeHTML(false)
-	if err := enc.Encode(Request{Data: string(data), Options: opt}); err != nil {
-		return "", err
-	}
-	return link.Encode(bytes.TrimSuffix(b.Bytes(), []byte("\n"))), nil
+	return link.Encode(Request{Data: string(data), Options: opt}.JSON()), nil
 }
 
 // OpenLink unpacks a link fragment into the data and options it carries,
@@ -37,13 +41,27 @@ func OpenLink(fragment string) (Request, error) {
 		return Request{}, err
 	}
 	var r Request
-	dec := json.NewDecoder(bytes.NewReader(raw))
-	dec.DisallowUnknownFields()
-	if err := dec.Decode(&r); err != nil {
+	names, values, err := jsonlite.ParseObject(raw)
+	if err == nil {
+		err = r.Options.set(names, values, func(name string, v jsonlite.Value) error {
+			if name != "data" || v.Kind != jsonlite.String {
+				return &link.Error{Reason: "it holds " + quote(name) + ", which is not part of a Midrank request"}
+			}
+			r.Data = v.Text
+			return nil
+		})
+	}
+	if err != nil {
 		return Request{}, &link.Error{Reason: "what it holds is not a Midrank request (" + err.Error() + ")"}
 	}
 	if _, err := r.Options.validate(); err != nil {
 		return Request{}, err
 	}
 	return r, nil
+}
+
+func quote(s string) string {
+	var w jsonlite.Writer
+	w.String(s)
+	return string(w.Bytes())
 }

@@ -19,12 +19,12 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"errors"
 	"syscall/js"
 	"unsafe"
 
 	"midrank/core"
+	"midrank/core/jsonlite"
 )
 
 func main() {
@@ -99,8 +99,12 @@ func shareLink(_ js.Value, args []js.Value) any {
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
-	b, _ := json.Marshal(map[string]string{"link": fragment}) // a string only: cannot fail
-	return string(b)
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.Key("link")
+	w.String(fragment)
+	w.EndObject()
+	return string(w.Bytes())
 }
 
 func openLink(_ js.Value, args []js.Value) any {
@@ -111,11 +115,14 @@ func openLink(_ js.Value, args []js.Value) any {
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
-	b, err := json.Marshal(map[string]any{"data": req.Data, "options": req.Options})
-	if err != nil {
-		return string(core.EncodeError(err))
-	}
-	return string(b)
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.Key("data")
+	w.String(req.Data)
+	w.Key("options")
+	w.Raw(req.Options.JSON())
+	w.EndObject()
+	return string(w.Bytes())
 }
 
 // throttled calls fn when the progress has moved by a percent or more.
