@@ -406,6 +406,16 @@ async function showTies() {
 
 $("analyse").addEventListener("click", analyse);
 $("data").addEventListener("input", keep);
+
+// Small inputs are analysed again as you type, once typing pauses.
+const LIVE_LIMIT = 20000; // characters
+let typingTimer = 0;
+$("data").addEventListener("input", () => {
+  clearTimeout(typingTimer);
+  if ($("data").value.length <= LIVE_LIMIT && $("pvalue").value !== "monte-carlo") {
+    typingTimer = setTimeout(analyse, 400);
+  }
+});
 for (const f of fields) $(f).addEventListener("change", keep);
 $("forget").addEventListener("click", () => {
   localStorage.removeItem(KEPT);
@@ -468,6 +478,97 @@ $("save-pairs").addEventListener("click", () => {
     result.posthoc.pairs.map((p) => [p.a, p.b, p.statistic, p.p, p.p_adjusted, p.significant, p.probability_of_superiority,
       p.cliffs_delta, p.hodges_lehmann, p.hodges_lehmann_low, p.hodges_lehmann_high]))));
 });
+// svgText serialises a drawn picture as a standalone SVG file.
+function svgSource(id) {
+  const svg = $(id).querySelector("svg").cloneNode(true);
+  svg.setAttribute("xmlns", "http://www.w3.org/2000/svg");
+  svg.setAttribute("color", getComputedStyle($(id)).color);
+  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(svg);
+}
+
+for (const button of document.querySelectorAll(".save-svg")) {
+  button.addEventListener("click", () => {
+    if (result) download("midrank-" + button.dataset.plot + ".svg", "image/svg+xml", svgSource(button.dataset.plot));
+  });
+}
+for (const button of document.querySelectorAll(".save-png")) {
+  button.addEventListener("click", () => {
+    if (!result) return;
+    const id = button.dataset.plot;
+    const box = $(id).querySelector("svg").viewBox.baseVal;
+    const image = new Image();
+    const url = URL.createObjectURL(new Blob([svgSource(id)], { type: "image/svg+xml" }));
+    image.onload = () => {
+      const canvas = document.createElement("canvas");
+      canvas.width = box.width * 2;
+      canvas.height = box.height * 2;
+      const ctx = canvas.getContext("2d");
+      ctx.fillStyle = "#ffffff";
+      ctx.fillRect(0, 0, canvas.width, canvas.height);
+      ctx.drawImage(image, 0, 0, canvas.width, canvas.height);
+      URL.revokeObjectURL(url);
+      canvas.toBlob((png) => {
+        const a = document.createElement("a");
+        a.href = URL.createObjectURL(png);
+        a.download = "midrank-" + id + ".png";
+        document.body.append(a);
+        a.click();
+        a.remove();
+      }, "image/png");
+    };
+    image.src = url;
+  });
+}
+
+// The HTML report is one file with everything inside: figures, tables,
+// pictures, settings, version and date. User text is escaped.
+function escapeHTML(s) {
+  return String(s).replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]);
+}
+
+function htmlTable(head, rows) {
+  return "<table><thead><tr>" + head.map((h) => "<th>" + escapeHTML(h) + "</th>").join("") + "</tr></thead><tbody>" +
+    rows.map((r) => "<tr>" + r.map((c) => "<td>" + escapeHTML(c) + "</td>").join("") + "</tr>").join("") + "</tbody></table>";
+}
+
+$("save-html").addEventListener("click", () => {
+  if (!result) return;
+  const r = result;
+  const settings = formOptions();
+  const letters = r.posthoc ? r.posthoc.letters : {};
+  const parts = [
+    "<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>Kruskal–Wallis report</title>",
+    "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1f2328}",
+    "table{border-collapse:collapse;margin:.5rem 0 1rem}th,td{border-bottom:1px solid #d9d4c7;padding:.2rem .6rem;text-align:right}",
+    "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
+    "<h1>Kruskal–Wallis H test</h1>",
+    "<p class=\"note\">Made with Midrank " + escapeHTML(r.version) + " on " + new Date().toISOString().slice(0, 10) +
+      ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
+    "<h2>In plain words</h2><p>" + escapeHTML(r.decision) + "</p>",
+    "<h2>Test figures</h2>" + htmlTable(["figure", "value"], [["H, corrected for ties", r.h], ["H before the correction", r.h_uncorrected],
+      ["tie correction C", r.tie_correction], ["degrees of freedom", r.df], ["p-value", r.p_value], ["how p was found", r.p_method_reason],
+      ["H needed at alpha " + r.alpha + " (chi-square)", r.critical_value],
+      ["epsilon squared", r.epsilon_squared + " (" + r.epsilon_squared_size + ")"],
+      ["eta squared (H)", r.eta_squared === null ? "undefined" : r.eta_squared + " (" + r.eta_squared_size + ")"]]),
+    "<h2>Groups</h2><p class=\"note\">Quartiles: " + escapeHTML(r.quantile_method) + ".</p>" +
+      htmlTable(["group", "values", "missing", "median", "lower quartile", "upper quartile", "lowest", "highest", "mean rank", "rank sum", "letters"],
+        r.groups.map((g) => [g.label, g.n, g.missing, g.median, g.q1, g.q3, g.min, g.max, g.mean_rank, g.rank_sum, letters[g.label] || ""])),
+  ];
+  if (r.posthoc) {
+    parts.push("<h2>Pairs</h2><p class=\"note\">" + escapeHTML(r.posthoc.method + ", p adjusted by " + r.posthoc.adjust +
+      "; two-sided; shift: Hodges–Lehmann with its " + Math.round(100 * r.posthoc.confidence) + "% interval.") + "</p>" +
+      htmlTable(["first", "second", "statistic", "p", "adjusted p", "differ", "P(first > second)", "shift", "interval"],
+        r.posthoc.pairs.map((p) => [p.a, p.b, p.statistic, p.p, p.p_adjusted, p.significant ? "yes" : "", p.probability_of_superiority,
+          p.hodges_lehmann, p.hodges_lehmann_low + " to " + p.hodges_lehmann_high])));
+  }
+  parts.push("<h2>Pictures</h2>" + svgSource("plot-values").replace(/^<\?xml[^>]*>\n/, "") + "<p class=\"note\">" +
+    escapeHTML($("plot-values-caption").textContent) + "</p>" + svgSource("plot-ranks").replace(/^<\?xml[^>]*>\n/, "") +
+    "<p class=\"note\">" + escapeHTML($("plot-ranks-caption").textContent) + "</p>");
+  if (r.warnings.length) parts.push("<h2>Take note</h2><ul>" + r.warnings.map((w) => "<li>" + escapeHTML(w) + "</li>").join("") + "</ul>");
+  parts.push("</body></html>\n");
+  download("midrank-report.html", "text/html", parts.join(""));
+});
+
 $("save-markdown").addEventListener("click", () => {
   if (!result) return;
   const r = result;

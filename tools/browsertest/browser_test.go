@@ -403,6 +403,27 @@ func TestPage(t *testing.T) {
 		t.Logf("the module was ready %s ms after its bytes arrived (a figure for the notes, not a pass mark)", ms)
 	})
 
+	t.Run("the HTML report holds the decision and keeps labels as text", func(t *testing.T) {
+		b.analyse(t, "<i>Ward</i>,B\n1,2\n3,4\n5,6\n")
+		// catch the file instead of saving it
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`URL.createObjectURL = (blob) => { window.savedBlob = blob; return "data:,"; }; HTMLAnchorElement.prototype.click = () => {}; true`)); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("save-html").click(); true`)); err != nil {
+			t.Fatal(err)
+		}
+		html, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`window.savedBlob.text()`, chromedp.EvalAwaitPromise))
+		if err != nil {
+			_, console := b.snapshot()
+			t.Fatal(err, console)
+		}
+		decision := b.text(t, "#decision")
+		escaped := strings.NewReplacer("&", "&amp;", "<", "&lt;", ">", "&gt;", `"`, "&quot;", "'", "&#39;").Replace(decision)
+		if !strings.Contains(html, escaped) || !strings.Contains(html, "&lt;i&gt;Ward&lt;/i&gt;") || strings.Contains(html, "<i>Ward") || !strings.Contains(html, "<svg") {
+			t.Errorf("the report lacks the decision, the escaped label or the pictures:\n%.600s", html)
+		}
+	})
+
 	t.Run("nothing is requested from another origin", func(t *testing.T) {
 		b.checkRequests(t)
 	})
