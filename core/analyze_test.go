@@ -117,11 +117,20 @@ func TestLargeListsArePaged(t *testing.T) {
 // FuzzAnalyze: every accepted input yields a result whose JSON encodes
 // (so holds no NaN or Inf), with ranks summing to N(N+1)/2 and 0 ≤ p ≤ 1.
 func FuzzAnalyze(f *testing.F) {
-	f.Add([]byte("A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n"), 0.05)
-	f.Add([]byte("site,minutes\nNorth,3\nSouth,4\nNorth,NA\nEast,4\n"), 0.01)
-	f.Add([]byte("x;y\n1,5;2\n1e300;-1e300\n"), 0.5)
-	f.Fuzz(func(t *testing.T, data []byte, alpha float64) {
-		r, err := Analyze(data, Options{Alpha: alpha})
+	f.Add([]byte("A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n"), 0.05, uint8(0))
+	f.Add([]byte("site,minutes\nNorth,3\nSouth,4\nNorth,NA\nEast,4\n"), 0.01, uint8(1))
+	f.Add([]byte("x;y\n1,5;2\n1e300;-1e300\n"), 0.5, uint8(2))
+	f.Fuzz(func(t *testing.T, data []byte, alpha float64, mode uint8) {
+		// every p-value method and post-hoc procedure, each kept quick:
+		// few resamples, and the exact method only on small samples
+		opt := Options{Alpha: alpha, PValue: "asymptotic", PostHoc: posthocMethods[int(mode)%len(posthocMethods)]}
+		switch {
+		case mode&0x10 != 0:
+			opt.PValue, opt.Resamples = "monte-carlo", 200
+		case mode&0x20 != 0 && len(data) < 40:
+			opt.PValue = "exact"
+		}
+		r, err := Analyze(data, opt)
 		if err != nil {
 			return
 		}

@@ -137,6 +137,7 @@ func FuzzRank(f *testing.F) {
 	f.Add(make([]byte, 8*20))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		var values []float64
+		data = data[:min(len(data), 8*4096)] // long inputs add nothing but time
 		for ; len(data) >= 8; data = data[8:] {
 			v := math.Float64frombits(binary.LittleEndian.Uint64(data))
 			if math.IsNaN(v) {
