@@ -220,6 +220,7 @@ function render() {
 // Pictures are SVG drawn from the core's numbers. The palette is Okabe &
 // Ito's (2008), safe for colour-blind readers, and every group also has its
 // own marker shape, so the pictures read in grey print too.
+const MAX_MARKERS = 5000; // beyond this many values the picture shows the boxes only
 const PALETTE = ["#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "#000000", "#F0E442"];
 const SVG = "http://www.w3.org/2000/svg";
 
@@ -276,7 +277,8 @@ function drawValues() {
     svgEl("line", { x1: cx - w / 2, x2: cx + w / 2, y1: y(g.median), y2: y(g.median), stroke: "currentColor", "stroke-width": 3 }, svg);
     svgText(svg, cx, height - bottom + 18, g.label, { "text-anchor": "middle" });
   });
-  if (r.ranks_complete) {
+  const drawEach = r.ranks_complete && r.n <= MAX_MARKERS;
+  if (drawEach) {
     // tied values are stacked side by side, others spread by their rank
     const index = new Map(r.groups.map((g, i) => [g.label, i]));
     const seen = new Map();
@@ -292,7 +294,7 @@ function drawValues() {
   svgText(svg, 14, top + (height - top - bottom) / 2, "value", { transform: `rotate(-90 14 ${top + (height - top - bottom) / 2})`, "text-anchor": "middle" });
   $("plot-values").replaceChildren(svg);
   $("plot-values-caption").textContent = "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
-    (r.ranks_complete ? "; every value is a marker beside its box, tied values side by side." : " (too many values to draw each one).");
+    (drawEach ? "; every value is a marker beside its box, tied values side by side." : " (with " + r.n.toLocaleString() + " values, too many to draw each one).");
 }
 
 function drawMeanRanks() {

@@ -395,6 +395,20 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("time for 100,000 pasted rows", func(t *testing.T) {
+		var text strings.Builder
+		text.WriteString("site,minutes\n")
+		for i := range 100_000 {
+			fmt.Fprintf(&text, "%s,%d.%d\n", []string{"North", "South", "East", "West"}[i%4], (i*7919)%240, i%10)
+		}
+		start := time.Now()
+		b.analyse(t, text.String())
+		t.Logf("100,000 rows: %v from Analyse to rendered results (a figure for the notes, not a pass mark)", time.Since(start).Round(time.Millisecond))
+		if got := b.text(t, `[data-result="df"]`); got != "3" {
+			t.Errorf("df shown as %q, want 3", got)
+		}
+	})
+
 	t.Run("module ready time", func(t *testing.T) {
 		ms, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.moduleReadyMs`))
 		if err != nil || ms == "" {
