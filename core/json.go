@@ -3,6 +3,7 @@ package core
 import (
 	"errors"
 	"slices"
+	"strconv"
 
 	"midrank/core/jsonlite"
 	"midrank/core/rank"
@@ -135,21 +136,31 @@ func Encode(r *Result) ([]byte, error) {
 	return append(w.Bytes(), '\n'), nil
 }
 
+// writeRanks writes the per-value list, the longest part of a response,
+// element by element into one scratch buffer: labels are quoted once per
+// group, and no call is made per member.
 func writeRanks(w *jsonlite.Writer, ranks []RankedValue) {
 	w.BeginArray()
+	quoted := map[string][]byte{}
+	var buf []byte
 	for _, v := range ranks {
-		w.BeginObject()
-		w.Key("group")
-		w.String(v.Group)
-		w.Key("value")
-		w.Float(v.Value)
-		w.Key("rank")
-		w.Float(v.Rank)
-		w.Key("line")
-		w.Int(int64(v.Line))
-		w.Key("shared")
-		w.Int(int64(v.Shared))
-		w.EndObject()
+		q, ok := quoted[v.Group]
+		if !ok {
+			q = jsonlite.AppendString(nil, v.Group)
+			quoted[v.Group] = q
+		}
+		buf = append(buf[:0], `{"group":`...)
+		buf = append(buf, q...)
+		buf = append(buf, `,"value":`...)
+		buf = jsonlite.AppendFloat(buf, v.Value)
+		buf = append(buf, `,"rank":`...)
+		buf = jsonlite.AppendFloat(buf, v.Rank)
+		buf = append(buf, `,"line":`...)
+		buf = strconv.AppendInt(buf, int64(v.Line), 10)
+		buf = append(buf, `,"shared":`...)
+		buf = strconv.AppendInt(buf, int64(v.Shared), 10)
+		buf = append(buf, '}')
+		w.Raw(buf)
 	}
 	w.EndArray()
 }

@@ -44,7 +44,7 @@ func (w *Writer) EndArray() { w.first = w.first[:len(w.first)-1]; w.b = append(w
 // Key writes a member name; the member's value follows.
 func (w *Writer) Key(name string) {
 	w.comma()
-	w.b = appendString(w.b, name)
+	w.b = AppendString(w.b, name)
 	w.b = append(w.b, ':')
 	w.first[len(w.first)-1] = true // the value that follows takes no comma; the next Key does
 }
@@ -53,7 +53,7 @@ func (w *Writer) Key(name string) {
 func (w *Writer) Raw(json []byte) { w.comma(); w.b = append(w.b, json...) }
 
 // String writes a string value.
-func (w *Writer) String(s string) { w.comma(); w.b = appendString(w.b, s) }
+func (w *Writer) String(s string) { w.comma(); w.b = AppendString(w.b, s) }
 
 // Float writes a finite number as encoding/json does: the shortest decimal
 // that reads back the same, with an exponent below 1e-6 and from 1e21.
@@ -119,10 +119,10 @@ func AppendFloat(b []byte, f float64) []byte {
 
 const hex = "0123456789abcdef"
 
-// appendString quotes s as encoding/json does with HTML escaping off:
+// AppendString quotes s as encoding/json does with HTML escaping off:
 // quote, backslash and control characters escaped, invalid UTF-8 as
 // U+FFFD, and U+2028 and U+2029 escaped for JavaScript.
-func appendString(b []byte, s string) []byte {
+func AppendString(b []byte, s string) []byte {
 	b = append(b, '"')
 	start := 0
 	for i := 0; i < len(s); {

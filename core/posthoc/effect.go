@@ -179,7 +179,9 @@ func countAtMost(a, b []float64, d float64) (count int, top float64) {
 		}
 		if j < len(b) {
 			count += len(b) - j
-			top = max(top, x-b[j])
+			if v := x - b[j]; v > top { // no builtin max: it pays for NaN and -0, which cannot occur
+				top = v
+			}
 		}
 	}
 	return count, top
