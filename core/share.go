@@ -40,6 +40,12 @@ func OpenLink(fragment string) (Request, error) {
 	if err != nil {
 		return Request{}, err
 	}
+	return ParseRequest(raw)
+}
+
+// ParseRequest reads request JSON (as a link carries it), refusing unknown
+// keys and settings that cannot be used.
+func ParseRequest(raw []byte) (Request, error) {
 	var r Request
 	names, values, err := jsonlite.ParseObject(raw)
 	if err == nil {

@@ -113,20 +113,90 @@ function restoreKept() {
   }
 }
 
-async function start() {
-  if (!location.hash.startsWith("#r1.") && restoreKept()) $("demo-note").hidden = true;
-  if (location.hash.startsWith("#r1.")) {
-    const { body } = await ask({ kind: "open-link", fragment: location.hash });
-    if (body.error) {
-      showProblem(body.error);
-      $("status").textContent = "The link could not be opened; the page is ready for your own data.";
-      return;
-    } else {
-      $("data").value = body.data;
-      for (const f of fields) if (body.options[f] !== undefined) $(f).value = String(body.options[f]);
-      $("demo-note").hidden = true;
-    }
+// Sealed links (#s1.) wrap the plain link's DEFLATE bytes in AES-256-GCM
+// under a key from PBKDF2-HMAC-SHA-256 (600,000 rounds), the format of Go's
+// core/sealed, here with the browser's own Web Crypto.
+const SEALED = "#s1.";
+const ITERATIONS = 600000;
+
+function fromBase64url(s) {
+  s = s.replace(/-/g, "+").replace(/_/g, "/");
+  while (s.length % 4) s += "=";
+  return Uint8Array.from(atob(s), (c) => c.charCodeAt(0));
+}
+
+function toBase64url(bytes) {
+  let s = "";
+  for (let i = 0; i < bytes.length; i += 0x8000) s += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return btoa(s).replace(/\+/g, "-").replace(/\//g, "_").replace(/=+$/, "");
+}
+
+async function sealingKey(passphrase, salt) {
+  if (!globalThis.crypto || !crypto.subtle) {
+    throw new Error("passphrase links need the page opened over HTTPS, from this computer or from a file");
   }
+  const base = await crypto.subtle.importKey("raw", new TextEncoder().encode(passphrase), "PBKDF2", false, ["deriveKey"]);
+  return crypto.subtle.deriveKey({ name: "PBKDF2", hash: "SHA-256", salt, iterations: ITERATIONS }, base,
+    { name: "AES-GCM", length: 256 }, false, ["encrypt", "decrypt"]);
+}
+
+async function seal(plainLink, passphrase) {
+  const packed = fromBase64url(plainLink.slice("#r1.".length));
+  const head = crypto.getRandomValues(new Uint8Array(28)); // salt (16) and nonce (12)
+  const key = await sealingKey(passphrase, head.subarray(0, 16));
+  const sealed = new Uint8Array(await crypto.subtle.encrypt(
+    { name: "AES-GCM", iv: head.subarray(16), additionalData: new TextEncoder().encode(SEALED) }, key, packed));
+  const out = new Uint8Array(head.length + sealed.length);
+  out.set(head);
+  out.set(sealed, head.length);
+  return SEALED + toBase64url(out);
+}
+
+async function unseal(fragment, passphrase) {
+  let raw;
+  try {
+    raw = fromBase64url(fragment.slice(SEALED.length));
+  } catch {
+    throw new Error("the link cannot be opened: it is damaged; it may have been cut or changed in transit");
+  }
+  if (raw.length < 28 + 16) throw new Error("the link cannot be opened: it is damaged; it may have been cut or changed in transit");
+  const key = await sealingKey(passphrase, raw.subarray(0, 16));
+  try {
+    const packed = await crypto.subtle.decrypt(
+      { name: "AES-GCM", iv: raw.subarray(16, 28), additionalData: new TextEncoder().encode(SEALED) }, key, raw.subarray(28));
+    return "#r1." + toBase64url(new Uint8Array(packed));
+  } catch {
+    throw new Error("the link cannot be opened: the passphrase does not open it, or the link was changed");
+  }
+}
+
+// openLink restores the data and settings a link carries; false when it
+// cannot be opened (the message is shown).
+async function openLink(fragment) {
+  const { body } = await ask({ kind: "open-link", fragment });
+  if (body.error) {
+    showProblem(body.error);
+    $("status").textContent = "The link could not be opened; the page is ready for your own data.";
+    return false;
+  }
+  $("problem").hidden = true;
+  $("data").value = body.data;
+  for (const f of fields) if (body.options[f] !== undefined) $(f).value = String(body.options[f]);
+  $("demo-note").hidden = true;
+  return true;
+}
+
+async function start() {
+  const linked = location.hash.startsWith("#r1.") || location.hash.startsWith("#s1.");
+  if (!linked && restoreKept()) $("demo-note").hidden = true;
+  if (location.hash.startsWith("#s1.")) {
+    // a protected link waits for its passphrase
+    $("unlock").hidden = false;
+    $("unlock-passphrase").focus();
+    $("status").textContent = "Enter the passphrase to open the link.";
+    return;
+  }
+  if (linked && !(await openLink(location.hash))) return;
   if ($("data").value.trim() === "") {
     $("data").value = offline
       ? document.getElementById("demo-data").textContent
@@ -602,15 +672,46 @@ $("cancel").addEventListener("click", cancel);
 // Links longer than this are cut by some mail and chat programs.
 const SAFE_LINK = 2000;
 
+$("unlock").addEventListener("submit", async (event) => {
+  event.preventDefault();
+  $("status").textContent = "Opening the link…";
+  let fragment;
+  try {
+    fragment = await unseal(location.hash, $("unlock-passphrase").value);
+  } catch (err) {
+    showProblem({ message: err.message });
+    $("status").textContent = "The link is still locked.";
+    return;
+  }
+  if (await openLink(fragment)) {
+    $("unlock").hidden = true;
+    analyse();
+  }
+});
+
 $("make-link").addEventListener("click", async () => {
+  const passphrase = $("link-passphrase").value;
+  $("status").textContent = passphrase ? "Sealing the link with the passphrase…" : "Making the link…";
   const { body } = await ask({ kind: "link", data: $("data").value, options: formOptions() });
   if (body.error) {
     showProblem(body.error);
     return;
   }
-  const url = location.href.split("#")[0] + body.link;
-  let note = "This link contains your data itself (" + url.length.toLocaleString() + " characters): anyone who has it can see the data. " +
-    "It never reaches a server, because browsers do not send the part after # anywhere.";
+  let fragment = body.link;
+  if (passphrase) {
+    try {
+      fragment = await seal(fragment, passphrase);
+    } catch (err) {
+      showProblem({ message: "The link could not be sealed: " + err.message + "." });
+      return;
+    }
+  }
+  const url = location.href.split("#")[0] + fragment;
+  let note = passphrase
+    ? "This link contains your data, encrypted (" + url.length.toLocaleString() + " characters): only someone who also has the passphrase can open it. Send the passphrase another way. "
+    : "This link contains your data itself (" + url.length.toLocaleString() + " characters): anyone who has it can see the data. ";
+  note += "It never reaches a server, because browsers do not send the part after # anywhere.";
+  $("status").textContent = "The link is ready.";
   if (url.length > SAFE_LINK) note += " It is longer than " + SAFE_LINK.toLocaleString() + " characters, which some mail and chat programs cut: send it as a file or check that it arrives whole.";
   $("link-note").textContent = note;
   $("link-text").value = url;

@@ -6,6 +6,7 @@ package browsertest
 
 import (
 	"context"
+	"crypto/rand"
 	"fmt"
 	"net/http/httptest"
 	"os"
@@ -24,6 +25,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"midrank/core"
+	"midrank/core/sealed"
 	"midrank/tools/internal/sitebuild"
 	"midrank/tools/internal/static"
 )
@@ -345,6 +347,57 @@ func TestPage(t *testing.T) {
 		if alpha != "0.1" {
 			t.Errorf("alpha restored as %q", alpha)
 		}
+		// sealed with a passphrase: the reopened page asks for it, refuses a
+		// wrong one and stays usable, and opens with the right one
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#link-passphrase", "amber fox"), chromedp.Click("#make-link")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("link-text").value.includes("#s1.")`)
+		sealedURL, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("link-text").value`))
+		if strings.Contains(sealedURL, "Team") {
+			t.Errorf("the sealed link shows its data: %s", sealedURL)
+		}
+		// the page seals with Web Crypto; the command line's Go must open it
+		_, fragment, _ := strings.Cut(sealedURL, "#")
+		raw, err := sealed.Open("#"+fragment, "amber fox")
+		if err != nil {
+			t.Fatalf("Go cannot open the page's sealed link: %v", err)
+		}
+		if req, err := core.ParseRequest(raw); err != nil || req.Data != data || req.Alpha != 0.1 {
+			t.Errorf("the page's sealed link holds %+v, %v", req, err)
+		}
+		s := open(t, sealedURL, b.origin)
+		s.waitFor(t, `!document.getElementById("unlock").hidden && !document.getElementById("analyse").disabled`)
+		if err := chromedp.Do(s.ctx, chromedp.SetValue("#unlock-passphrase", "grey fox"), chromedp.Click("#unlock-open")); err != nil {
+			t.Fatal(err)
+		}
+		s.waitFor(t, `!document.getElementById("problem").hidden`)
+		if got := s.text(t, "#problem"); !strings.Contains(got, "passphrase does not open") {
+			t.Errorf("a wrong passphrase shows %q", got)
+		}
+		if err := chromedp.Do(s.ctx, chromedp.SetValue("#unlock-passphrase", "amber fox"), chromedp.Click("#unlock-open")); err != nil {
+			t.Fatal(err)
+		}
+		s.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
+		if got := s.text(t, "#decision"); got != want.Decision {
+			t.Errorf("the unsealed decision:\n%s\nwant:\n%s", got, want.Decision)
+		}
+
+		// and a link sealed by Go opens in the page
+		goSealed, err := sealed.Seal(core.Request{Data: data, Options: core.Options{Alpha: 0.1}}.JSON(), "slate owl", rand.Reader)
+		if err != nil {
+			t.Fatal(err)
+		}
+		g := open(t, b.origin+"/"+goSealed, b.origin)
+		g.waitFor(t, `!document.getElementById("unlock").hidden && !document.getElementById("analyse").disabled`)
+		if err := chromedp.Do(g.ctx, chromedp.SetValue("#unlock-passphrase", "slate owl"), chromedp.Click("#unlock-open")); err != nil {
+			t.Fatal(err)
+		}
+		g.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
+		if got := g.text(t, "#decision"); got != want.Decision {
+			t.Errorf("the Go-sealed link's decision:\n%s\nwant:\n%s", got, want.Decision)
+		}
+
 		broken := open(t, b.origin+"#r1.$$$", b.origin)
 		broken.waitFor(t, `!document.getElementById("problem").hidden`)
 		if got := broken.text(t, "#problem"); !strings.Contains(got, "cannot be opened") {

@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"crypto/rand"
 	"errors"
 	"flag"
 	"fmt"
@@ -14,6 +15,7 @@ import (
 	"midrank/core"
 	"midrank/core/adjust"
 	"midrank/core/posthoc"
+	"midrank/core/sealed"
 )
 
 // Exit statuses.
@@ -41,7 +43,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	showRanks := fs.Bool("ranks", false, "list every value with its rank, and every tie")
 	printLink := fs.Bool("link", false, "print a share link that carries the data and settings, instead of the report")
 	linkBase := fs.String("link-base", "", "the page's address to put before the link fragment, e.g. http://intranet/midrank/")
-	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. fragment or the whole address) instead of FILE")
+	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. or #s1. fragment or the whole address) instead of FILE")
+	passphrase := fs.String("passphrase", "", "with --link: seal the link with this passphrase; with --open: the passphrase of a sealed link (also read from MIDRANK_PASSPHRASE)")
 	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide or long")
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
@@ -88,7 +91,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	var err error
 	if *fromLink != "" {
 		_, fragment, _ := strings.Cut(*fromLink, "#")
-		req, err := core.OpenLink(fragment)
+		req, err := openLink("#"+fragment, passphraseOf(*passphrase))
 		if err != nil {
 			return fail(exitData, err)
 		}
@@ -109,7 +112,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		return fail(exitData, err)
 	}
 	if *printLink {
-		fragment, err := core.ShareLink(data, opt)
+		var fragment string
+		if p := passphraseOf(*passphrase); p != "" {
+			fragment, err = sealLink(data, opt, p)
+		} else {
+			fragment, err = core.ShareLink(data, opt)
+		}
 		if err != nil {
 			return fail(exitSettings, err)
 		}
@@ -126,6 +134,35 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	}
 	writeReport(stdout, result, *showRanks)
 	return exitOK
+}
+
+// sealLink is a share link encrypted under a passphrase (package sealed).
+func sealLink(data []byte, opt core.Options, passphrase string) (string, error) {
+	if _, err := core.ShareLink(data, opt); err != nil { // checks the options
+		return "", err
+	}
+	return sealed.Seal(core.Request{Data: string(data), Options: opt}.JSON(), passphrase, rand.Reader)
+}
+
+// openLink opens a plain or a sealed link.
+func openLink(fragment, passphrase string) (core.Request, error) {
+	if !sealed.Is(fragment) {
+		return core.OpenLink(fragment)
+	}
+	raw, err := sealed.Open(fragment, passphrase)
+	if err != nil {
+		return core.Request{}, err
+	}
+	return core.ParseRequest(raw)
+}
+
+// passphraseOf prefers the flag and falls back to MIDRANK_PASSPHRASE, which
+// keeps the passphrase out of the shell's history.
+func passphraseOf(flagValue string) string {
+	if flagValue != "" {
+		return flagValue
+	}
+	return os.Getenv("MIDRANK_PASSPHRASE")
 }
 
 // wantsJSON finds --json among arguments that failed to parse, so that the

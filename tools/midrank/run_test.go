@@ -158,3 +158,18 @@ func TestLinkRoundTrip(t *testing.T) {
 		t.Errorf("a broken link: exit %d, %q", code, stderr.String())
 	}
 }
+
+func TestSealedLink(t *testing.T) {
+	const data = "A,B\n1,2\n3,4\n5,6\n"
+	var link, out, stderr bytes.Buffer
+	if code := run([]string{"--link", "--passphrase", "blue kite", "-"}, strings.NewReader(data), &link, &stderr); code != exitOK || !strings.HasPrefix(link.String(), "#s1.") {
+		t.Fatalf("--link --passphrase: exit %d, %q, %s", code, link.String(), stderr.String())
+	}
+	if code := run([]string{"--json", "--open", strings.TrimSpace(link.String()), "--passphrase", "blue kite"}, nil, &out, &stderr); code != exitOK || !strings.Contains(out.String(), `"n":6`) {
+		t.Errorf("--open with the passphrase: exit %d, %.100s", code, out.String())
+	}
+	stderr.Reset()
+	if code := run([]string{"--open", strings.TrimSpace(link.String()), "--passphrase", "red kite"}, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "passphrase does not open") {
+		t.Errorf("--open with a wrong passphrase: exit %d, %q", code, stderr.String())
+	}
+}
