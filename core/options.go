@@ -162,16 +162,13 @@ func (o Options) write(w *jsonlite.Writer) {
 		}
 	}
 	if o.Alpha != 0 {
-		w.Key("alpha")
-		w.Float(o.Alpha)
+		w.FloatMember("alpha", o.Alpha)
 	}
 	if o.PValue != "" {
-		w.Key("pvalue")
-		w.String(o.PValue)
+		w.StringMember("pvalue", o.PValue)
 	}
 	if o.Resamples != 0 {
-		w.Key("resamples")
-		w.Int(int64(o.Resamples))
+		w.IntMember("resamples", o.Resamples)
 	}
 	if o.Seed != nil {
 		w.Key("seed")

@@ -17,8 +17,7 @@ type Request struct {
 func (r Request) JSON() []byte {
 	var w jsonlite.Writer
 	w.BeginObject()
-	w.Key("data")
-	w.String(r.Data)
+	w.StringMember("data", r.Data)
 	r.Options.write(&w)
 	w.EndObject()
 	return w.Bytes()

@@ -101,8 +101,7 @@ func shareLink(_ js.Value, args []js.Value) any {
 	}
 	var w jsonlite.Writer
 	w.BeginObject()
-	w.Key("link")
-	w.String(fragment)
+	w.StringMember("link", fragment)
 	w.EndObject()
 	return string(w.Bytes())
 }
@@ -117,8 +116,7 @@ func openLink(_ js.Value, args []js.Value) any {
 	}
 	var w jsonlite.Writer
 	w.BeginObject()
-	w.Key("data")
-	w.String(req.Data)
+	w.StringMember("data", req.Data)
 	w.Key("options")
 	w.Raw(req.Options.JSON())
 	w.EndObject()

@@ -98,6 +98,23 @@ func (w *Writer) OptInt(i *int) {
 	w.Int(int64(*i))
 }
 
+// Members of objects: a name and its value in one call.
+
+// FloatMember writes "name": f.
+func (w *Writer) FloatMember(name string, f float64) { w.Key(name); w.Float(f) }
+
+// IntMember writes "name": i.
+func (w *Writer) IntMember(name string, i int) { w.Key(name); w.Int(int64(i)) }
+
+// StringMember writes "name": s.
+func (w *Writer) StringMember(name, s string) { w.Key(name); w.String(s) }
+
+// BoolMember writes "name": v.
+func (w *Writer) BoolMember(name string, v bool) { w.Key(name); w.Bool(v) }
+
+// OptFloatMember writes "name": *f, or null.
+func (w *Writer) OptFloatMember(name string, f *float64) { w.Key(name); w.OptFloat(f) }
+
 // AppendFloat formats f as encoding/json does (its floatEncoder for 64 bits).
 func AppendFloat(b []byte, f float64) []byte {
 	abs := math.Abs(f)
