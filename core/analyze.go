@@ -123,11 +123,11 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	if err != nil {
 		return nil, err
 	}
-	sizes, err := checkGroups(t)
-	if err != nil {
+	ranking := rank.Rank(t.Values, t.Groups, len(t.Labels))
+	sizes := ranking.Sizes
+	if err := checkGroups(t, sizes); err != nil {
 		return nil, err
 	}
-	ranking := rank.Rank(t.Values, t.Groups, len(t.Labels))
 	if len(ranking.Ties) == 1 && ranking.Ties[0].Count == len(t.Values) {
 		return nil, &table.Error{
 			Reason: fmt.Sprintf("all %d values are equal (%s), so there is nothing to rank", len(t.Values), report.Number(t.Values[0])),
@@ -199,16 +199,12 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	return r, nil
 }
 
-// checkGroups returns the group sizes, or an error when a group has no
-// values or fewer than two groups have any.
-func checkGroups(t *table.Table) ([]int, error) {
-	sizes := make([]int, len(t.Labels))
-	for _, g := range t.Groups {
-		sizes[g]++
-	}
+// checkGroups refuses data where a group has no values or fewer than two
+// groups have any.
+func checkGroups(t *table.Table, sizes []int) error {
 	for i, s := range sizes {
 		if s == 0 {
-			return nil, &table.Error{Group: t.Labels[i],
+			return &table.Error{Group: t.Labels[i],
 				Reason: fmt.Sprintf("it has no values (%d cells are missing)", t.Missing[i]),
 				Fix:    "fill in its values, or remove the group from the data"}
 		}
@@ -221,9 +217,9 @@ func checkGroups(t *table.Table) ([]int, error) {
 			e.Group = t.Labels[0]
 			e.Reason = "this is the only group in the data"
 		}
-		return nil, e
+		return e
 	}
-	return sizes, nil
+	return nil
 }
 
 func describeInput(t *table.Table) Input {

@@ -37,10 +37,7 @@ type MonteCarlo struct {
 }
 
 // permutationProblem is the data in the integer form that the exact and
-// Monte Carlo methods work on: scores x = (2r − 2r₁)/g for midranks r, r₁
-// the smallest and g the gcd of the differences, which order the outcomes
-// exactly as H does (a shift and a scale change T = Σ sᵢ²/nᵢ only by an
-// increasing affine map).
+// Monte Carlo methods work on (exact.Scores).
 type permutationProblem struct {
 	sizes    []int
 	blocks   []exact.Block
@@ -62,16 +59,11 @@ func newProblem(ranking rank.Ranking) *permutationProblem {
 		doubled = append(doubled, int64(i+1+j))
 		counts = append(counts, j-i)
 	}
-	p.base = doubled[0]
-	for _, d := range doubled[1:] {
-		p.gcd = gcd(p.gcd, d-p.base)
-	}
+	p.blocks, p.gcd, p.base = exact.Scores(doubled, counts)
 	p.scores = make([]int64, 0, n)
-	for b, d := range doubled {
-		score := (d - p.base) / p.gcd
-		p.blocks = append(p.blocks, exact.Block{Score: score, Count: counts[b]})
-		for range counts[b] {
-			p.scores = append(p.scores, score)
+	for _, b := range p.blocks {
+		for range b.Count {
+			p.scores = append(p.scores, b.Score)
 		}
 	}
 	sums := make([]int64, len(p.sizes))
@@ -82,21 +74,8 @@ func newProblem(ranking rank.Ranking) *permutationProblem {
 		p.total += s
 	}
 	p.observed = exact.Statistic(p.sizes, sums)
-	p.weights = make([]int64, len(p.sizes))
-	unit := make([]int64, len(p.sizes))
-	for i := range p.sizes {
-		unit[i] = 1
-		p.weights[i] = exact.Statistic(p.sizes, unit)
-		unit[i] = 0
-	}
+	p.weights = exact.Weights(p.sizes)
 	return p
-}
-
-func gcd(a, b int64) int64 {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
 }
 
 // h turns the integer statistic T into H (with the tie correction c):

@@ -85,14 +85,42 @@ type Limits struct {
 	layer     func(states int) // told each layer's size, for tests
 }
 
+// Weights returns L/nᵢ for each group, the factors of T.
+func Weights(sizes []int) []int64 {
+	l := lcmOf(sizes)
+	w := make([]int64, len(sizes))
+	for i, n := range sizes {
+		w[i] = l / int64(n)
+	}
+	return w
+}
+
 // Statistic returns T = Σ (L/nᵢ) sᵢ² for group score sums.
 func Statistic(sizes []int, sums []int64) int64 {
-	l := lcmOf(sizes)
 	var t int64
-	for i, n := range sizes {
-		t += (l / int64(n)) * sums[i] * sums[i]
+	for i, w := range Weights(sizes) {
+		t += w * sums[i] * sums[i]
 	}
 	return t
+}
+
+// Scores turns tie blocks given by their doubled midranks (ascending) and
+// sizes into the smallest whole-number scores that order outcomes as H does:
+// x = (d − d₁)/g, with d₁ the smallest doubled midrank and g the gcd of the
+// differences (a shift and a scale change T only by an increasing affine
+// map). It returns the blocks, g and d₁.
+func Scores(doubled []int64, counts []int) (blocks []Block, g, base int64) {
+	base = doubled[0]
+	for _, d := range doubled[1:] {
+		g = gcd(g, d-base)
+	}
+	if g == 0 {
+		g = 1 // one block only: every score is 0
+	}
+	for i, d := range doubled {
+		blocks = append(blocks, Block{Score: (d - base) / g, Count: counts[i]})
+	}
+	return blocks, g, base
 }
 
 func lcmOf(sizes []int) int64 {
@@ -188,8 +216,7 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	s.class = make([]int, k)
 	s.shift = make([]uint, k)
 	s.sumBits = make([]uint, k)
-	s.weight = make([]int64, k)
-	l := lcmOf(s.sizes)
+	s.weight = Weights(s.sizes)
 	var off uint
 	var maxT float64
 	for i, n := range s.sizes {
@@ -200,7 +227,6 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 		}
 		top := topSum(blocks, n)
 		s.sumBits[i] = uint(bits.Len64(uint64(top)))
-		s.weight[i] = l / int64(n)
 		maxT += float64(s.weight[i]) * float64(top) * float64(top)
 		if i < k-1 {
 			s.shift[i] = off

@@ -40,6 +40,9 @@ func TestCompute(t *testing.T) {
 }
 
 func TestEffectSizes(t *testing.T) {
+	// values worked by hand from the formulas: ε² = 9/(10−1) = 1,
+	// η²(H) = (5 − 3 + 1)/(23 − 3) = 0.15; the size words by the Cohen (1988)
+	// thresholds in the doc comment
 	if got := EpsilonSquared(9, 10); got != 1 {
 		t.Errorf("EpsilonSquared(9, 10) = %v, want 1", got)
 	}

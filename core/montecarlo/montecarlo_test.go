@@ -27,16 +27,6 @@ func blocks(scores []int64) []exact.Block {
 	return b
 }
 
-func weights(sizes []int) []int64 {
-	w := make([]int64, len(sizes))
-	for i := range sizes {
-		one := make([]int64, len(sizes))
-		one[i] = 1
-		w[i] = exact.Statistic(sizes, one) // L/nᵢ
-	}
-	return w
-}
-
 // TestCoversExact: at a fixed seed the 99% interval holds the exact
 // permutation p-value (package exact, itself checked against enumeration)
 // for several size and tie patterns, and the estimate is never 0.
@@ -59,7 +49,7 @@ func TestCoversExact(t *testing.T) {
 			t.Fatal(err)
 		}
 		want := d.Upper(observed)
-		r, err := PValue(context.Background(), tt.sizes, weights(tt.sizes), tt.scores, observed, 200_000, 7, nil)
+		r, err := PValue(context.Background(), tt.sizes, exact.Weights(tt.sizes), tt.scores, observed, 200_000, 7, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -75,9 +65,9 @@ func TestReproducible(t *testing.T) {
 	sizes := []int{7, 8, 9}
 	scores := untied(24)
 	observed := exact.Statistic(sizes, []int64{60, 90, 126})
-	a, _ := PValue(context.Background(), sizes, weights(sizes), scores, observed, 50_000, 11, nil)
-	b, _ := PValue(context.Background(), sizes, weights(sizes), scores, observed, 50_000, 11, func(int, int) {})
-	c, _ := PValue(context.Background(), sizes, weights(sizes), scores, observed, 50_000, 12, nil)
+	a, _ := PValue(context.Background(), sizes, exact.Weights(sizes), scores, observed, 50_000, 11, nil)
+	b, _ := PValue(context.Background(), sizes, exact.Weights(sizes), scores, observed, 50_000, 11, func(int, int) {})
+	c, _ := PValue(context.Background(), sizes, exact.Weights(sizes), scores, observed, 50_000, 12, nil)
 	if a != b {
 		t.Errorf("same seed: %+v and %+v", a, b)
 	}
@@ -92,7 +82,7 @@ func BenchmarkResamplesN100K4(b *testing.B) {
 	observed := exact.Statistic(sizes, []int64{1000, 1200, 1300, 1450})
 	const per = 1_000_000
 	for b.Loop() {
-		if _, err := PValue(context.Background(), sizes, weights(sizes), scores, observed, per, 1, nil); err != nil {
+		if _, err := PValue(context.Background(), sizes, exact.Weights(sizes), scores, observed, per, 1, nil); err != nil {
 			b.Fatal(err)
 		}
 	}
