@@ -5,6 +5,7 @@ import (
 	"encoding/json"
 	"math"
 	"reflect"
+	"strings"
 	"testing"
 )
 
@@ -69,7 +70,7 @@ func TestParseObject(t *testing.T) {
 	if !reflect.DeepEqual(values, want) {
 		t.Errorf("values %v, want %v", values, want)
 	}
-	for _, bad := range []string{``, `[]`, `{"a":1,}`, `{"a":01}`, `{"a":1.}`, `{"a":"x}`, `{"a":{"b":1}}`, `{"a":1} x`, `{"a":1,"a":2}`, "{\"a\":\"\x01\"}", `{"a":tru}`, `{a:1}`} {
+	for _, bad := range []string{``, `[]`, `{"a":1,}`, `{"a":01}`, `{"a":1.}`, `{"a":"x}`, `{"a":{"b":1}}`, `{"a":1} x`, `{"a":1,"a":2}`, "{\"a\":\"\x01\"}", `{"a":tru}`, `{a:1}`, `{"a":2e308}`, `{"a":-1` + strings.Repeat("0", 400) + `}`} {
 		if _, _, err := ParseObject([]byte(bad)); err == nil {
 			t.Errorf("ParseObject(%q) accepted", bad)
 		}

@@ -128,6 +128,8 @@ func (p *parser) scalar() (Value, error) {
 }
 
 // number checks the JSON number grammar: -? (0 | [1-9][0-9]*) (. [0-9]+)? ([eE] [+-]? [0-9]+)?
+// and that the number fits a float64 (RFC 8259 §6 leaves larger ones to the
+// implementation; encoding/json refuses them too).
 func (p *parser) number() (Value, error) {
 	start := p.i
 	p.eat('-')
@@ -155,7 +157,12 @@ func (p *parser) number() (Value, error) {
 			return Value{}, p.fail("malformed number")
 		}
 	}
-	return Value{Number, string(p.s[start:p.i])}, nil
+	text := string(p.s[start:p.i])
+	if _, err := strconv.ParseFloat(text, 64); err != nil {
+		p.i = start
+		return Value{}, p.fail("number too large")
+	}
+	return Value{Number, text}, nil
 }
 
 func (p *parser) string() (string, error) {
