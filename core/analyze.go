@@ -32,6 +32,7 @@ const ListLimit = 200_000
 // Group is the summary of one group, in input order.
 type Group struct {
 	Label    string  `json:"label"`
+	InData   string  `json:"label_in_data"` // the label as written in the data, before any renaming
 	N        int     `json:"n"`
 	Missing  int     `json:"missing"`
 	RankSum  float64 `json:"rank_sum"`
@@ -59,6 +60,23 @@ type Input struct {
 	DecimalMark string `json:"decimal_mark"` // point or comma
 	Header      bool   `json:"header"`       // long layout: the first line was a header
 	Measure     string `json:"measure"`      // long layout: what the header calls the values
+	Excluded    []Left `json:"excluded"`     // groups left out by request, in data order
+}
+
+// LeftLabels lists the labels of the groups left out.
+func (in Input) LeftLabels() []string {
+	var labels []string
+	for _, e := range in.Excluded {
+		labels = append(labels, e.Label)
+	}
+	return labels
+}
+
+// Left is a group left out of the analysis by request.
+type Left struct {
+	Label   string `json:"label"` // as written in the data
+	N       int    `json:"n"`
+	Missing int    `json:"missing"`
 }
 
 // Result is the complete outcome of an analysis. Its JSON form never holds
@@ -123,6 +141,9 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	if err != nil {
 		return nil, err
 	}
+	if err := t.Regroup(s.edits); err != nil {
+		return nil, err
+	}
 	ranking := rank.Rank(t.Values, t.Groups, len(t.Labels))
 	sizes := ranking.Sizes
 	if err := checkGroups(t, sizes); err != nil {
@@ -174,7 +195,7 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 
 	r.Warnings = warnings(r)
 	facts := report.Facts{
-		Labels: t.Labels, Sizes: sizes, Measure: t.Measure,
+		Labels: t.Labels, Sizes: sizes, Measure: t.Measure, Left: r.Input.LeftLabels(),
 		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
 		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
 		Unreachable: r.PMethod == "exact" && r.ExactCriticalValue == nil,
@@ -223,7 +244,10 @@ func checkGroups(t *table.Table, sizes []int) error {
 }
 
 func describeInput(t *table.Table) Input {
-	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure}
+	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure, Excluded: []Left{}}
+	for _, e := range t.Excluded {
+		in.Excluded = append(in.Excluded, Left{Label: e.Label, N: e.Values, Missing: e.Missing})
+	}
 	switch t.Separator {
 	case '\t':
 		in.Separator = "tab"
@@ -264,7 +288,7 @@ func summarise(t *table.Table, ranking rank.Ranking) []Group {
 		})
 		sum := ranking.RankSums[g]
 		groups[g] = Group{
-			Label: t.Labels[g], N: n, Missing: t.Missing[g],
+			Label: t.Labels[g], InData: t.Source[g], N: n, Missing: t.Missing[g],
 			RankSum: sum, MeanRank: sum / float64(n),
 			Median: d.Median, Q1: d.Q1, Q3: d.Q3, Min: d.Min, Max: d.Max,
 		}

@@ -4,7 +4,9 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"math"
 	"os"
+	"reflect"
 	"strings"
 	"testing"
 
@@ -29,6 +31,70 @@ func TestAnalyzeErrors(t *testing.T) {
 		var e *table.Error
 		if !errors.As(err, &e) || e.Group != tt.group || !strings.Contains(e.Error(), tt.says) {
 			t.Errorf("%s: Analyze(%q) error = %v, want group %q saying %q", tt.name, tt.data, err, tt.group, tt.says)
+		}
+	}
+}
+
+// TestGroupEdits: leaving out, reordering and renaming groups.
+func TestGroupEdits(t *testing.T) {
+	data, err := os.ReadFile("../testdata/cases/plantgrowth_long.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	full, err := Analyze(data, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tests := []struct {
+		name     string
+		opt      Options
+		labels   []string // groups shown, in order
+		inData   []string
+		h        float64
+		excluded []Left
+	}{
+		// R 4.2.2: kruskal.test(weight ~ group, droplevels(subset(PlantGrowth, group != "trt1")))
+		{"exclude", Options{Exclude: []string{"trt1"}}, []string{"ctrl", "trt2"}, []string{"ctrl", "trt2"}, 3.57142857142857,
+			[]Left{{"trt1", 10, 0}}},
+		// order and names do not change H
+		{"order and rename", Options{Order: []string{"trt2", "ctrl"}, Rename: map[string]string{"ctrl": "Control <b>"}},
+			[]string{"trt2", "Control <b>", "trt1"}, []string{"trt2", "ctrl", "trt1"}, full.H, []Left{}},
+		// a swap of names is allowed
+		{"swap names", Options{Rename: map[string]string{"ctrl": "trt1", "trt1": "ctrl"}},
+			[]string{"trt1", "ctrl", "trt2"}, []string{"ctrl", "trt1", "trt2"}, full.H, []Left{}},
+	}
+	for _, tt := range tests {
+		r, err := Analyze(data, tt.opt)
+		if err != nil {
+			t.Fatalf("%s: %v", tt.name, err)
+		}
+		var labels, inData []string
+		for _, g := range r.Groups {
+			labels, inData = append(labels, g.Label), append(inData, g.InData)
+		}
+		if !reflect.DeepEqual(labels, tt.labels) || !reflect.DeepEqual(inData, tt.inData) ||
+			math.Abs(r.H-tt.h) > 1e-12 || !reflect.DeepEqual(r.Input.Excluded, tt.excluded) {
+			t.Errorf("%s: groups %v from %v, H %.15g, excluded %v; want %v from %v, %.15g, %v",
+				tt.name, labels, inData, r.H, r.Input.Excluded, tt.labels, tt.inData, tt.h, tt.excluded)
+		}
+	}
+	bad := []struct {
+		opt   Options
+		group string
+		says  string
+	}{
+		{Options{Order: []string{"trt3"}}, "trt3", "not in the data"},
+		{Options{Order: []string{"ctrl", "ctrl"}}, "ctrl", "twice"},
+		{Options{Exclude: []string{"x"}}, "x", "not in the data"},
+		{Options{Rename: map[string]string{"ctrl": ""}}, "ctrl", "empty"},
+		{Options{Rename: map[string]string{"ctrl": "trt1"}}, "trt1", "both be called"},
+		{Options{Exclude: []string{"trt1", "trt2"}}, "ctrl", "only group"},
+	}
+	for _, tt := range bad {
+		_, err := Analyze(data, tt.opt)
+		var e *table.Error
+		if !errors.As(err, &e) || e.Group != tt.group || !strings.Contains(e.Error(), tt.says) {
+			t.Errorf("%+v: error %v, want group %q saying %q", tt.opt, err, tt.group, tt.says)
 		}
 	}
 }
@@ -223,6 +289,7 @@ func FuzzDecodeOptions(f *testing.F) {
 	f.Add([]byte(`{"alpha":0.1,"pvalue":"exact","posthoc":"dscf"}`))
 	f.Add([]byte(`{"seed":-1}`))
 	f.Add([]byte(`{"resamples":1e9}`))
+	f.Add([]byte(`{"order":["C","A"],"exclude":["B"],"rename":{"A":"x","C":"y"}}`))
 	f.Fuzz(func(t *testing.T, options []byte) {
 		opt, err := DecodeOptions(options)
 		if err != nil {
@@ -232,12 +299,16 @@ func FuzzDecodeOptions(f *testing.F) {
 			}
 			return
 		}
+		if again, err := DecodeOptions(opt.JSON()); err != nil || !reflect.DeepEqual(again, opt) {
+			t.Fatalf("options %+v written as %s read back as %+v (%v)", opt, opt.JSON(), again, err)
+		}
 		if opt.Resamples > 10_000 {
 			opt.Resamples = 10_000 // keep each run short
 		}
 		if _, err := Analyze([]byte("A,B,C\n1,2,3\n4,5,6\n"), opt); err != nil {
 			var oe *OptionError
-			if !errors.As(err, &oe) {
+			var te *table.Error // group edits naming labels that are not there
+			if !errors.As(err, &oe) && !errors.As(err, &te) {
 				t.Fatalf("Analyze error %T %v", err, err)
 			}
 		}

@@ -29,12 +29,23 @@ func Encode(r *Result) ([]byte, error) {
 	w.StringMember("decimal_mark", r.Input.DecimalMark)
 	w.BoolMember("header", r.Input.Header)
 	w.StringMember("measure", r.Input.Measure)
+	w.Key("excluded")
+	w.BeginArray()
+	for _, e := range r.Input.Excluded {
+		w.BeginObject()
+		w.StringMember("label", e.Label)
+		w.IntMember("n", e.N)
+		w.IntMember("missing", e.Missing)
+		w.EndObject()
+	}
+	w.EndArray()
 	w.EndObject()
 	w.Key("groups")
 	w.BeginArray()
 	for _, g := range r.Groups {
 		w.BeginObject()
 		w.StringMember("label", g.Label)
+		w.StringMember("label_in_data", g.InData)
 		for _, f := range []struct {
 			name string
 			v    float64

@@ -3,6 +3,7 @@ package core
 import (
 	"bytes"
 	"fmt"
+	"maps"
 	"slices"
 	"strconv"
 	"strings"
@@ -26,6 +27,13 @@ type Options struct {
 	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed, default 1
 	PostHoc   string  `json:"posthoc,omitempty"`   // dunn (default), conover, dscf, mann-whitney, none
 	Adjust    string  `json:"adjust,omitempty"`    // holm (default), bonferroni, sidak, hochberg, bh, by, none
+
+	// Group edits, each naming groups by their labels as written in the data
+	// (see table.Edits): the groups to put first, in order; the groups to
+	// leave out; the names to show instead of labels.
+	Order   []string          `json:"order,omitempty"`
+	Exclude []string          `json:"exclude,omitempty"`
+	Rename  map[string]string `json:"rename,omitempty"`
 }
 
 // Defaults and ranges of the settings.
@@ -93,6 +101,30 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			continue
 		}
 		switch name {
+		case "order", "exclude":
+			if v.Kind != jsonlite.List {
+				return fmt.Errorf("%q must be an array of group labels", name)
+			}
+			items := v.Items
+			if len(items) == 0 {
+				items = nil // as when left out
+			}
+			if name == "order" {
+				o.Order = items
+			} else {
+				o.Exclude = items
+			}
+		case "rename":
+			if v.Kind != jsonlite.Record {
+				return fmt.Errorf("%q must be an object from group labels to names", name)
+			}
+			o.Rename = nil
+			for _, f := range v.Fields {
+				if o.Rename == nil {
+					o.Rename = map[string]string{}
+				}
+				o.Rename[f.Name] = f.Text
+			}
 		case "alpha":
 			f, err := number(name, v)
 			if err != nil {
@@ -180,11 +212,29 @@ func (o Options) write(w *jsonlite.Writer) {
 			w.String(f.v)
 		}
 	}
+	for _, f := range []struct {
+		name  string
+		items []string
+	}{{"order", o.Order}, {"exclude", o.Exclude}} {
+		if len(f.items) > 0 {
+			w.Key(f.name)
+			w.Strings(f.items)
+		}
+	}
+	if len(o.Rename) > 0 {
+		w.Key("rename")
+		var fields []jsonlite.Field
+		for _, from := range slices.Sorted(maps.Keys(o.Rename)) {
+			fields = append(fields, jsonlite.Field{Name: from, Text: o.Rename[from]})
+		}
+		w.Fields(fields)
+	}
 }
 
 // settings are validated options in the form the analysis uses.
 type settings struct {
 	read      table.Options
+	edits     table.Edits
 	alpha     float64
 	pvalue    string
 	resamples int
@@ -195,7 +245,8 @@ type settings struct {
 
 // validate checks every option and fills in the defaults.
 func (o Options) validate() (settings, error) {
-	s := settings{alpha: o.Alpha, pvalue: o.PValue, posthoc: o.PostHoc, adjust: o.Adjust}
+	s := settings{alpha: o.Alpha, pvalue: o.PValue, posthoc: o.PostHoc, adjust: o.Adjust,
+		edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
 		return s, &OptionError{"layout", o.Layout, "choose auto, wide or long"}

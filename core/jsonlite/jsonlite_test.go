@@ -3,6 +3,7 @@ package jsonlite
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"reflect"
 	"strings"
@@ -65,12 +66,21 @@ func TestParseObject(t *testing.T) {
 	if !reflect.DeepEqual(names, []string{"alpha", "pvalue", "x", "b", "s", "n"}) {
 		t.Errorf("names %v", names)
 	}
-	want := map[string]Value{"alpha": {Number, "0.05"}, "pvalue": {String, "exact"}, "x": {Null, "null"}, "b": {Bool, "true"},
-		"s": {String, "aé🙂\n\""}, "n": {Number, "-1.5e3"}}
+	want := map[string]Value{"alpha": {Kind: Number, Text: "0.05"}, "pvalue": {Kind: String, Text: "exact"}, "x": {Kind: Null, Text: "null"},
+		"b": {Kind: Bool, Text: "true"}, "s": {Kind: String, Text: "aé🙂\n\""}, "n": {Kind: Number, Text: "-1.5e3"}}
 	if !reflect.DeepEqual(values, want) {
 		t.Errorf("values %v, want %v", values, want)
 	}
-	for _, bad := range []string{``, `[]`, `{"a":1,}`, `{"a":01}`, `{"a":1.}`, `{"a":"x}`, `{"a":{"b":1}}`, `{"a":1} x`, `{"a":1,"a":2}`, "{\"a\":\"\x01\"}", `{"a":tru}`, `{a:1}`, `{"a":2e308}`, `{"a":-1` + strings.Repeat("0", 400) + `}`} {
+	_, nested, err := ParseObject([]byte(`{"order":["B","A"],"none":[],"rename":{"A":"North","B":""}}`))
+	if err != nil {
+		t.Fatal(err)
+	}
+	wantNested := map[string]Value{"order": {Kind: List, Items: []string{"B", "A"}}, "none": {Kind: List, Items: []string{}},
+		"rename": {Kind: Record, Fields: []Field{{"A", "North"}, {"B", ""}}}}
+	if !reflect.DeepEqual(nested, wantNested) {
+		t.Errorf("nested %v, want %v", nested, wantNested)
+	}
+	for _, bad := range []string{``, `[]`, `{"a":1,}`, `{"a":01}`, `{"a":1.}`, `{"a":"x}`, `{"a":1} x`, `{"a":1,"a":2}`, "{\"a\":\"\x01\"}", `{"a":tru}`, `{a:1}`, `{"a":2e308}`, `{"a":[1]}`, `{"a":["x",]}`, `{"a":["x"}`, `{"a":{"b":2}}`, `{"a":{"b":"1","b":"2"}}`, `{"a":[["x"]]}`, `{"a":{"b":{}}}`, `{"a":-1` + strings.Repeat("0", 400) + `}`} {
 		if _, _, err := ParseObject([]byte(bad)); err == nil {
 			t.Errorf("ParseObject(%q) accepted", bad)
 		}
@@ -83,6 +93,7 @@ func FuzzParseObject(f *testing.F) {
 	f.Add([]byte(`{"alpha":0.05,"data":"A,B\n1,2","seed":7}`))
 	f.Add([]byte(`{"s":"\ud83d\ude42 \u2028"}`))
 	f.Add([]byte(`{}`))
+	f.Add([]byte(`{"order":["B","A"],"exclude":[],"rename":{"A":"North","B":"\u00e9"}}`))
 	f.Fuzz(func(t *testing.T, data []byte) {
 		names, values, err := ParseObject(data)
 		if err != nil {
@@ -102,6 +113,19 @@ func FuzzParseObject(f *testing.F) {
 				w.String(v.Text)
 				if ref[n] != v.Text {
 					t.Fatalf("%q: %q, encoding/json %q", n, v.Text, ref[n])
+				}
+			case List:
+				w.Strings(v.Items)
+				if got := fmt.Sprint(ref[n]); got != fmt.Sprint(v.Items) {
+					t.Fatalf("%q: %q, encoding/json %q", n, v.Items, got)
+				}
+			case Record:
+				w.Fields(v.Fields)
+				m, _ := ref[n].(map[string]any)
+				for _, f := range v.Fields {
+					if m[f.Name] != f.Text {
+						t.Fatalf("%q.%q: %q, encoding/json %q", n, f.Name, f.Text, m[f.Name])
+					}
 				}
 			default:
 				w.Raw([]byte(v.Text))

@@ -7,7 +7,7 @@ import (
 	"unicode/utf8"
 )
 
-// Kind is the type of a scalar JSON value.
+// Kind is the type of a JSON value.
 type Kind uint8
 
 const (
@@ -15,63 +15,131 @@ const (
 	Bool
 	Number
 	String
+	List   // an array of strings
+	Record // an object whose members are strings
 )
 
-// Value is a scalar JSON value: its kind and text (the string's contents,
-// the number as written, "true" or "false").
+// Value is a JSON value of Midrank's requests: a scalar with its text (the
+// string's contents, the number as written, "true" or "false"), an array of
+// strings in Items, or an object of strings in Fields, in order.
 type Value struct {
-	Kind Kind
-	Text string
+	Kind   Kind
+	Text   string
+	Items  []string
+	Fields []Field
 }
 
-// ParseObject reads a JSON object whose members are all scalars (strings,
-// numbers, booleans, null), the shape of Midrank's options and requests.
-// Members keep their order; a repeated name is an error, as is anything
-// after the object but white space.
+// Field is one member of a Record.
+type Field struct{ Name, Text string }
+
+// ParseObject reads a JSON object whose members are scalars (strings,
+// numbers, booleans, null), arrays of strings, or objects whose members are
+// strings: the shape of Midrank's options and requests. Members keep their
+// order; a repeated name is an error, as is anything after the object but
+// white space.
 func ParseObject(data []byte) ([]string, map[string]Value, error) {
 	p := parser{s: data}
-	p.space()
-	if !p.eat('{') {
-		return nil, nil, p.fail("expected an object")
-	}
 	var names []string
 	values := map[string]Value{}
-	p.space()
-	if !p.eat('}') {
-		for {
-			p.space()
-			name, err := p.string()
-			if err != nil {
-				return nil, nil, err
-			}
-			p.space()
-			if !p.eat(':') {
-				return nil, nil, p.fail("expected ':' after a member name")
-			}
-			p.space()
-			v, err := p.scalar()
-			if err != nil {
-				return nil, nil, err
-			}
-			if _, dup := values[name]; dup {
-				return nil, nil, p.fail(fmt.Sprintf("the member %q appears twice", name))
-			}
-			names = append(names, name)
-			values[name] = v
-			p.space()
-			if p.eat('}') {
-				break
-			}
-			if !p.eat(',') {
-				return nil, nil, p.fail("expected ',' or '}'")
-			}
+	err := p.object(func(name string) error {
+		if _, dup := values[name]; dup {
+			return p.fail(fmt.Sprintf("the member %q appears twice", name))
 		}
+		v, err := p.value()
+		names = append(names, name)
+		values[name] = v
+		return err
+	})
+	if err != nil {
+		return nil, nil, err
 	}
 	p.space()
 	if p.i != len(p.s) {
 		return nil, nil, p.fail("unexpected text after the object")
 	}
 	return names, values, nil
+}
+
+// object reads {"name": value, ...}, calling member after each name and its
+// colon to read the value.
+func (p *parser) object(member func(name string) error) error {
+	p.space()
+	if !p.eat('{') {
+		return p.fail("expected an object")
+	}
+	p.space()
+	if p.eat('}') {
+		return nil
+	}
+	for {
+		p.space()
+		name, err := p.string()
+		if err != nil {
+			return err
+		}
+		p.space()
+		if !p.eat(':') {
+			return p.fail("expected ':' after a member name")
+		}
+		p.space()
+		if err := member(name); err != nil {
+			return err
+		}
+		p.space()
+		if p.eat('}') {
+			return nil
+		}
+		if !p.eat(',') {
+			return p.fail("expected ',' or '}'")
+		}
+	}
+}
+
+// value reads a member of the top-level object.
+func (p *parser) value() (Value, error) {
+	switch {
+	case p.i < len(p.s) && p.s[p.i] == '[':
+		return p.list()
+	case p.i < len(p.s) && p.s[p.i] == '{':
+		v := Value{Kind: Record}
+		seen := map[string]bool{}
+		err := p.object(func(name string) error {
+			if seen[name] {
+				return p.fail(fmt.Sprintf("the member %q appears twice", name))
+			}
+			seen[name] = true
+			text, err := p.string()
+			v.Fields = append(v.Fields, Field{name, text})
+			return err
+		})
+		return v, err
+	}
+	return p.scalar()
+}
+
+// list reads an array of strings.
+func (p *parser) list() (Value, error) {
+	v := Value{Kind: List, Items: []string{}}
+	p.eat('[')
+	p.space()
+	if p.eat(']') {
+		return v, nil
+	}
+	for {
+		p.space()
+		s, err := p.string()
+		if err != nil {
+			return v, err
+		}
+		v.Items = append(v.Items, s)
+		p.space()
+		if p.eat(']') {
+			return v, nil
+		}
+		if !p.eat(',') {
+			return v, p.fail("expected ',' or ']'")
+		}
+	}
 }
 
 type parser struct {
@@ -112,17 +180,17 @@ func (p *parser) scalar() (Value, error) {
 	switch c := p.s[p.i]; {
 	case c == '"':
 		s, err := p.string()
-		return Value{String, s}, err
+		return Value{Kind: String, Text: s}, err
 	case p.literal("true"):
-		return Value{Bool, "true"}, nil
+		return Value{Kind: Bool, Text: "true"}, nil
 	case p.literal("false"):
-		return Value{Bool, "false"}, nil
+		return Value{Kind: Bool, Text: "false"}, nil
 	case p.literal("null"):
-		return Value{Null, "null"}, nil
+		return Value{Kind: Null, Text: "null"}, nil
 	case c == '-' || (c >= '0' && c <= '9'):
 		return p.number()
 	case c == '{' || c == '[':
-		return Value{}, p.fail("nested objects and arrays are not part of this format")
+		return Value{}, p.fail("objects and arrays nest only one level, and hold only strings")
 	}
 	return Value{}, p.fail("expected a value")
 }
@@ -162,7 +230,7 @@ func (p *parser) number() (Value, error) {
 		p.i = start
 		return Value{}, p.fail("number too large")
 	}
-	return Value{Number, text}, nil
+	return Value{Kind: Number, Text: text}, nil
 }
 
 func (p *parser) string() (string, error) {

@@ -100,6 +100,24 @@ func (w *Writer) OptInt(i *int) {
 
 // Members of objects: a name and its value in one call.
 
+// Strings writes an array of strings.
+func (w *Writer) Strings(items []string) {
+	w.BeginArray()
+	for _, s := range items {
+		w.String(s)
+	}
+	w.EndArray()
+}
+
+// Fields writes an object of strings, its members in order.
+func (w *Writer) Fields(fields []Field) {
+	w.BeginObject()
+	for _, f := range fields {
+		w.StringMember(f.Name, f.Text)
+	}
+	w.EndObject()
+}
+
 // FloatMember writes "name": f.
 func (w *Writer) FloatMember(name string, f float64) { w.Key(name); w.Float(f) }
 

@@ -24,8 +24,9 @@ type Facts struct {
 	P       float64
 	Method  string // how p was obtained: "asymptotic", "exact" or "monte-carlo"
 	Alpha   float64
-	Epsilon float64 // ε²
-	Size    string  // ε² in words
+	Left    []string // groups left out of the data by request
+	Epsilon float64  // ε²
+	Size    string   // ε² in words
 
 	// exact method: no arrangement of the ranks is rare enough for alpha
 	Unreachable bool
@@ -70,6 +71,9 @@ func Decision(f Facts) string {
 	}
 	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared%s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
 		len(f.Labels), listLabels(f.Labels), n, on)
+	if len(f.Left) > 0 {
+		fmt.Fprintf(&b, "Left out of this comparison by request: %s. ", listLabels(f.Left))
+	}
 	fmt.Fprintf(&b, "It gives H = %s with %d degrees of freedom and %s (%s). ",
 		Number(f.H), f.DF, PValue(f.P), methodWords(f.Method))
 	if f.Method == "monte-carlo" {
@@ -111,8 +115,13 @@ const Caution = "Statistical evidence is not a clinical, legal or employment dec
 
 // writePairs says how the pairs were compared and which differ.
 func writePairs(b *strings.Builder, f Facts) {
-	fmt.Fprintf(b, "All %d pairs of groups were compared with %s, with two-sided p-values; the family of comparisons was controlled with %s. ",
-		f.PairsTested, f.PairMethod, f.AdjustName)
+	if f.PairsTested == 1 {
+		fmt.Fprintf(b, "The two groups were also compared as a pair with %s, with a two-sided p-value (with one pair, %s changes nothing). ",
+			f.PairMethod, f.AdjustName)
+	} else {
+		fmt.Fprintf(b, "All %d pairs of groups were compared with %s, with two-sided p-values; the family of comparisons was controlled with %s. ",
+			f.PairsTested, f.PairMethod, f.AdjustName)
+	}
 	if !Significant(f.P, f.Alpha) {
 		b.WriteString("Because the overall test is not significant, the pairwise results are shown for completeness and should not be read as findings. ")
 		return

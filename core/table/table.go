@@ -58,7 +58,8 @@ type Options struct {
 // Table is what was read: one entry per value in text order, and one entry
 // per group in group order.
 type Table struct {
-	Labels  []string  // group labels, trimmed, as written
+	Labels  []string  // group labels, trimmed, as written (after Regroup: the names to show)
+	Source  []string  // after Regroup: each group's label as written in the data (nil before)
 	Missing []int     // missing values per group
 	Values  []float64 // every value, in text order (-0 is stored as 0)
 	Groups  []int32   // group index of each value
@@ -69,6 +70,8 @@ type Table struct {
 	DecimalComma bool   // some value was written with a decimal comma
 	Header       bool   // long layout: the first record was a header
 	Measure      string // long layout: the header's second cell, naming what was measured
+
+	Excluded []Excluded // groups left out by Regroup, in group order
 }
 
 // Parse reads text in the given layout. A UTF-8 byte-order mark is ignored.

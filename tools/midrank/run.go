@@ -54,6 +54,25 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.StringVar(&seed, "seed", "", fmt.Sprintf("Monte Carlo seed, a whole number from 0 to %d (default %d)", uint64(core.MaxSeed), core.DefaultSeed))
 	fs.StringVar(&opt.PostHoc, "posthoc", "dunn", "pairwise comparisons: "+strings.Join(posthoc.Methods, ", "))
 	fs.StringVar(&opt.Adjust, "adjust", "holm", "multiplicity adjustment: "+strings.Join(adjust.Methods, ", "))
+	fs.Func("order", "put the group with this label (as written in the data) next; repeat to set the order of several", func(label string) error {
+		opt.Order = append(opt.Order, label)
+		return nil
+	})
+	fs.Func("exclude", "leave out the group with this label; repeat for several", func(label string) error {
+		opt.Exclude = append(opt.Exclude, label)
+		return nil
+	})
+	fs.Func("rename", "LABEL=NAME: show the group LABEL as NAME; repeat for several", func(pair string) error {
+		from, to, ok := strings.Cut(pair, "=")
+		if !ok {
+			return fmt.Errorf("write --rename LABEL=NAME, for example --rename \"B=North site\"")
+		}
+		if opt.Rename == nil {
+			opt.Rename = map[string]string{}
+		}
+		opt.Rename[from] = to
+		return nil
+	})
 
 	fail := func(code int, err error) int {
 		fmt.Fprintln(stderr, "midrank:", err)

@@ -5,7 +5,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"os"
-	"sort"
+	"slices"
 	"strings"
 	"testing"
 
@@ -28,9 +28,21 @@ func flagsOf(t *testing.T, path string) []string {
 	}
 	var flags []string
 	for k, v := range m {
-		flags = append(flags, fmt.Sprintf("--%s=%v", k, v))
+		switch v := v.(type) {
+		case []any: // a list option is a repeated flag
+			for _, item := range v {
+				flags = append(flags, fmt.Sprintf("--%s=%v", k, item))
+			}
+		case map[string]any:
+			for from, to := range v {
+				flags = append(flags, fmt.Sprintf("--%s=%s=%v", k, from, to))
+			}
+		default:
+			flags = append(flags, fmt.Sprintf("--%s=%v", k, v))
+		}
 	}
-	sort.Strings(flags)
+	name := func(flag string) string { n, _, _ := strings.Cut(flag, "="); return n }
+	slices.SortStableFunc(flags, func(a, b string) int { return strings.Compare(name(a), name(b)) }) // repeated flags keep their order
 	return flags
 }
 

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"slices"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -23,6 +24,17 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	}
 	fmt.Fprintf(w, "Midrank %s · Kruskal–Wallis H test\nRead as %s; %d values in %d groups, %d missing.\n\n",
 		r.Version, read, r.N, r.K, r.Missing)
+	for _, g := range r.Groups {
+		if g.Label != g.InData {
+			fmt.Fprintf(w, "Group %q is shown as %q.\n", g.InData, g.Label)
+		}
+	}
+	for _, e := range in.Excluded {
+		fmt.Fprintf(w, "Group %q (%d values, %d missing) was left out by request.\n", e.Label, e.N, e.Missing)
+	}
+	if len(in.Excluded) > 0 || slices.ContainsFunc(r.Groups, func(g core.Group) bool { return g.Label != g.InData }) {
+		fmt.Fprintln(w)
+	}
 
 	fmt.Fprintln(w, "In plain words")
 	fmt.Fprintln(w, wrap(r.Decision, 78, "  "))
