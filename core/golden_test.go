@@ -95,11 +95,20 @@ func TestEncodeMatchesStructTags(t *testing.T) {
 			options, _ = os.ReadFile(c.Options)
 		}
 		opt, err := DecodeOptions(options)
-		if err != nil {
-			continue
+		var r *Result
+		if err == nil {
+			r, err = Analyze(data, opt)
 		}
-		r, err := Analyze(data, opt)
 		if err != nil {
+			var want bytes.Buffer
+			enc := json.NewEncoder(&want)
+			enc.SetEscapeHTML(false)
+			if err := enc.Encode(ErrorBody{Detail(err)}); err != nil {
+				t.Fatal(err)
+			}
+			if got := EncodeError(err); !bytes.Equal(got, want.Bytes()) {
+				t.Errorf("%s: EncodeError differs from encoding/json:\n%s\n%s", c.Name, got, want.Bytes())
+			}
 			continue
 		}
 		got, _ := Encode(r)

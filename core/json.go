@@ -23,23 +23,7 @@ func Encode(r *Result) ([]byte, error) {
 	w.IntMember("missing", r.Missing)
 	w.FloatMember("alpha", r.Alpha)
 	w.Key("input")
-	w.BeginObject()
-	w.StringMember("layout", r.Input.Layout)
-	w.StringMember("separator", r.Input.Separator)
-	w.StringMember("decimal_mark", r.Input.DecimalMark)
-	w.BoolMember("header", r.Input.Header)
-	w.StringMember("measure", r.Input.Measure)
-	w.Key("excluded")
-	w.BeginArray()
-	for _, e := range r.Input.Excluded {
-		w.BeginObject()
-		w.StringMember("label", e.Label)
-		w.IntMember("n", e.N)
-		w.IntMember("missing", e.Missing)
-		w.EndObject()
-	}
-	w.EndArray()
-	w.EndObject()
+	writeInput(&w, r.Input)
 	w.Key("groups")
 	w.BeginArray()
 	for _, g := range r.Groups {
@@ -196,63 +180,140 @@ func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
 	w.EndObject()
 }
 
+func writeInput(w *jsonlite.Writer, in Input) {
+	w.BeginObject()
+	w.StringMember("layout", in.Layout)
+	w.StringMember("separator", in.Separator)
+	w.StringMember("decimal_mark", in.DecimalMark)
+	w.BoolMember("header", in.Header)
+	w.StringMember("measure", in.Measure)
+	w.Key("excluded")
+	writeLeft(w, in.Excluded)
+	w.EndObject()
+}
+
+func writeLeft(w *jsonlite.Writer, groups []Left) {
+	w.BeginArray()
+	for _, e := range groups {
+		w.BeginObject()
+		w.StringMember("label", e.Label)
+		w.IntMember("n", e.N)
+		w.IntMember("missing", e.Missing)
+		w.EndObject()
+	}
+	w.EndArray()
+}
+
 // ErrorBody is the JSON form of an error: {"error": {...}}. Line, column,
 // group, found and option are null when the error is not tied to them.
 type ErrorBody struct {
 	Error ErrorDetail `json:"error"`
 }
 
-// ErrorDetail describes what went wrong and where.
+// ErrorDetail describes what went wrong and where. Problems lists every
+// cell of the data that could not be read (the first is the one described),
+// or the data problem itself; it is empty for a setting.
 type ErrorDetail struct {
+	Message  string          `json:"message"`
+	Line     *int            `json:"line"`
+	Column   *int            `json:"column"`
+	Group    *string         `json:"group"`
+	Found    *string         `json:"found"`
+	Option   *string         `json:"option"`
+	Problems []ProblemDetail `json:"problems"`
+}
+
+// ProblemDetail is one data problem and its place.
+type ProblemDetail struct {
 	Message string  `json:"message"`
 	Line    *int    `json:"line"`
 	Column  *int    `json:"column"`
 	Group   *string `json:"group"`
 	Found   *string `json:"found"`
-	Option  *string `json:"option"`
 }
 
-// EncodeError renders any error as ErrorBody JSON, with the place filled in
-// for *table.Error and the setting for *OptionError.
-func EncodeError(err error) []byte {
-	d := ErrorDetail{Message: err.Error()}
+func problemOf(te *table.Error) ProblemDetail {
+	d := ProblemDetail{Message: te.Error()}
+	if te.Line > 0 {
+		d.Line = &te.Line
+	}
+	if te.Column > 0 {
+		d.Column = &te.Column
+	}
+	if te.Group != "" {
+		d.Group = &te.Group
+	}
+	if te.Found != "" {
+		d.Found = &te.Found
+	}
+	return d
+}
+
+// Detail describes any error, with the place filled in for data problems
+// and the setting for *OptionError.
+func Detail(err error) ErrorDetail {
+	d := ErrorDetail{Message: err.Error(), Problems: []ProblemDetail{}}
+	var ps table.Problems
 	var te *table.Error
 	var oe *OptionError
 	switch {
+	case errors.As(err, &ps):
+		for _, e := range ps {
+			d.Problems = append(d.Problems, problemOf(e))
+		}
+		first := d.Problems[0]
+		d.Line, d.Column, d.Group, d.Found = first.Line, first.Column, first.Group, first.Found
 	case errors.As(err, &te):
-		if te.Line > 0 {
-			d.Line = &te.Line
-		}
-		if te.Column > 0 {
-			d.Column = &te.Column
-		}
-		if te.Group != "" {
-			d.Group = &te.Group
-		}
-		if te.Found != "" {
-			d.Found = &te.Found
-		}
+		first := problemOf(te)
+		d.Line, d.Column, d.Group, d.Found = first.Line, first.Column, first.Group, first.Found
+		d.Problems = append(d.Problems, first)
 	case errors.As(err, &oe):
 		d.Option = &oe.Option
 	}
+	return d
+}
+
+// EncodeError renders any error as ErrorBody JSON.
+func EncodeError(err error) []byte {
 	var w jsonlite.Writer
 	w.BeginObject()
 	w.Key("error")
-	w.BeginObject()
-	w.StringMember("message", d.Message)
-	w.Key("line")
-	w.OptInt(d.Line)
-	w.Key("column")
-	w.OptInt(d.Column)
-	w.Key("group")
-	w.OptString(d.Group)
-	w.Key("found")
-	w.OptString(d.Found)
-	w.Key("option")
-	w.OptString(d.Option)
-	w.EndObject()
+	writeDetail(&w, Detail(err))
 	w.EndObject()
 	return append(w.Bytes(), '\n')
+}
+
+func writeDetail(w *jsonlite.Writer, d ErrorDetail) {
+	w.BeginObject()
+	writePlace(w, ProblemDetail{d.Message, d.Line, d.Column, d.Group, d.Found})
+	w.Key("option")
+	w.OptString(d.Option)
+	w.Key("problems")
+	writeProblems(w, d.Problems)
+	w.EndObject()
+}
+
+func writeProblems(w *jsonlite.Writer, ps []ProblemDetail) {
+	w.BeginArray()
+	for _, p := range ps {
+		w.BeginObject()
+		writePlace(w, p)
+		w.EndObject()
+	}
+	w.EndArray()
+}
+
+// writePlace writes a problem's members into an open object.
+func writePlace(w *jsonlite.Writer, p ProblemDetail) {
+	w.StringMember("message", p.Message)
+	w.Key("line")
+	w.OptInt(p.Line)
+	w.Key("column")
+	w.OptInt(p.Column)
+	w.Key("group")
+	w.OptString(p.Group)
+	w.Key("found")
+	w.OptString(p.Found)
 }
 
 // EncodePage renders one page of a list as JSON.

@@ -3,6 +3,7 @@
 // Command wasm is the WebAssembly adapter of the statistics core. It sets
 //
 //	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
+//	globalThis.midrank.preview(data, optionsJSON) → previewJSON
 //	globalThis.midrank.page(list, offset, count) → pageJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
@@ -14,7 +15,9 @@
 // given, is called as onProgress(stage, done, total) while an exact or Monte
 // Carlo p-value is computed, at most once per percent. page serves the
 // per-value ranking ("ranks") or the tie table ("ties") of the last analysis
-// in pieces, for inputs too large to list in one response.
+// in pieces, for inputs too large to list in one response. preview gives
+// core.Preview: the text as a grid, how it was read, its groups as written
+// and every cell that could not be read.
 package main
 
 import (
@@ -38,6 +41,7 @@ var last *core.Result
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
 		"analyze":  js.FuncOf(analyze),
+		"preview":  js.FuncOf(preview),
 		"page":     js.FuncOf(page),
 		"link":     js.FuncOf(shareLink),
 		"openLink": js.FuncOf(openLink),
@@ -71,6 +75,21 @@ func analyze(_ js.Value, args []js.Value) any {
 	}
 	last = r
 	return unsafe.String(unsafe.SliceData(b), len(b))
+}
+
+func preview(_ js.Value, args []js.Value) any {
+	if len(args) < 1 {
+		return string(core.EncodeError(errors.New("preview(data, optionsJSON) needs the data")))
+	}
+	var options []byte
+	if len(args) > 1 && args[1].Type() == js.TypeString {
+		options = []byte(args[1].String())
+	}
+	opt, err := core.DecodeOptions(options)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	return string(core.EncodePreview(core.PreviewOf(bytesOf(args[0]), opt)))
 }
 
 func page(_ js.Value, args []js.Value) any {

@@ -3,6 +3,7 @@
 package main
 
 import (
+	"midrank/core"
 	"os"
 	"strings"
 	"syscall/js"
@@ -70,6 +71,15 @@ func TestByteOrderMarkAndPages(t *testing.T) {
 	}
 	if bad := m.Call("analyze", "A\n1\n", `{"alpha":`).String(); !strings.Contains(bad, `"option":"options"`) {
 		t.Errorf("analyze with broken options = %s, want an options error", bad)
+	}
+}
+
+func TestPreview(t *testing.T) {
+	m := module()
+	data := "A,B\n1,x\n2,3\n"
+	want := string(core.EncodePreview(core.PreviewOf([]byte(data), core.Options{})))
+	if got := m.Call("preview", data, "").String(); got != want || !strings.Contains(got, `"line":2,"column":2`) {
+		t.Errorf("preview = %s, want %s", got, want)
 	}
 }
 

@@ -55,3 +55,30 @@ func quoteFound(cell []byte) string {
 	}
 	return s
 }
+
+// MaxProblems is how many cell problems Parse notes before it stops reading.
+const MaxProblems = 100
+
+// Problems are the cells of a text that could not be read, in text order
+// (at most MaxProblems). Parse returns them once the rest of the text has
+// been read; errors.As finds the first as an *Error.
+type Problems []*Error
+
+func (p Problems) Error() string {
+	switch len(p) {
+	case 1:
+		return p[0].Error()
+	case MaxProblems:
+		return fmt.Sprintf("reading stopped after %d cells that cannot be read; the first: %s", MaxProblems, p[0].Error())
+	}
+	return fmt.Sprintf("%d cells cannot be read; the first: %s", len(p), p[0].Error())
+}
+
+// Unwrap gives every problem.
+func (p Problems) Unwrap() []error {
+	errs := make([]error, len(p))
+	for i, e := range p {
+		errs[i] = e
+	}
+	return errs
+}

@@ -212,3 +212,33 @@ func (r *reader) trim(s []byte) []byte {
 	}
 	return s
 }
+
+// Record is one record of the text as the reader splits it.
+type Record struct {
+	Line  int      // 1-based line on which it starts
+	Cells []string // its fields, trimmed and unquoted
+}
+
+// Records splits the first max records of data with the separator sep
+// (0 to detect it), for showing the text as a grid. Where a record cannot be
+// split (a quote never closed) it stops and returns the records before.
+func Records(data []byte, sep byte, max int) []Record {
+	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
+	if sep == 0 {
+		sep = DetectSeparator(data)
+	}
+	r := newReader(data, sep)
+	var out []Record
+	for len(out) < max {
+		ok, err := r.read()
+		if err != nil || !ok {
+			break
+		}
+		cells := make([]string, len(r.fields))
+		for i, f := range r.fields {
+			cells[i] = f.String()
+		}
+		out = append(out, Record{Line: r.line, Cells: cells})
+	}
+	return out
+}

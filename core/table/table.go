@@ -129,9 +129,28 @@ func (t *Table) add(v float64, group int, line int) {
 }
 
 type parser struct {
-	t     *Table
-	r     *reader
-	comma bool
+	t        *Table
+	r        *reader
+	comma    bool
+	problems Problems
+}
+
+// problem notes a cell that cannot be read, so that reading goes on and
+// every such cell can be shown at once; after MaxProblems it stops reading.
+func (p *parser) problem(e *Error) error {
+	p.problems = append(p.problems, e)
+	if len(p.problems) == MaxProblems {
+		return p.problems
+	}
+	return nil
+}
+
+// finish reports the problems noted, if any.
+func (p *parser) finish() error {
+	if len(p.problems) > 0 {
+		return p.problems
+	}
+	return nil
 }
 
 // cellError explains why a cell is neither a number nor a missing marker.
@@ -186,13 +205,19 @@ func (p *parser) wide(lines int) error {
 				if isMissing(f.text) {
 					continue
 				}
-				return &Error{Line: r.line, Column: c + 1, Found: quoteFound(f.text),
+				if err := p.problem(&Error{Line: r.line, Column: c + 1, Found: quoteFound(f.text),
 					Reason: fmt.Sprintf("%q has no group label above it", quoteFound(f.text)),
-					Fix:    fmt.Sprintf("add a label in line %d, column %d, or remove the cell", header, c+1)}
+					Fix:    fmt.Sprintf("add a label in line %d, column %d, or remove the cell", header, c+1)}); err != nil {
+					return err
+				}
+				continue
 			}
 			v, kind, usedComma := parseCell(f.text, p.comma)
 			if kind > cellMissing {
-				return p.cellError(f, kind, c+1, t.Labels[c])
+				if err := p.problem(p.cellError(f, kind, c+1, t.Labels[c])); err != nil {
+					return err
+				}
+				continue
 			}
 			t.DecimalComma = t.DecimalComma || usedComma
 			switch {
@@ -212,7 +237,7 @@ func (p *parser) wide(lines int) error {
 		}
 	}
 	p.dropUnlabelled()
-	return nil
+	return p.finish()
 }
 
 // dropUnlabelled removes columns that have neither a label nor values (for
@@ -249,13 +274,16 @@ func (p *parser) long() error {
 			return err
 		}
 		if !ok {
-			return nil
+			return p.finish()
 		}
 		f := r.fields
 		if len(f) > 2 {
-			return &Error{Line: r.line, Column: 3, Found: quoteFound(f[2].text),
+			if err := p.problem(&Error{Line: r.line, Column: 3, Found: quoteFound(f[2].text),
 				Reason: fmt.Sprintf("there is a third cell (%q), but the long layout has two: group label, then value", quoteFound(f[2].text)),
-				Fix:    "remove the extra cells, or choose the wide layout"}
+				Fix:    "remove the extra cells, or choose the wide layout"}); err != nil {
+				return err
+			}
+			continue
 		}
 		var value field
 		if len(f) == 2 {
@@ -270,9 +298,12 @@ func (p *parser) long() error {
 			}
 		}
 		if len(f[0].text) == 0 {
-			return &Error{Line: r.line, Column: 1,
+			if err := p.problem(&Error{Line: r.line, Column: 1,
 				Reason: "the value has no group label",
-				Fix:    "write the group label in the first cell of the line"}
+				Fix:    "write the group label in the first cell of the line"}); err != nil {
+				return err
+			}
+			continue
 		}
 		g := last
 		if !bytes.Equal(f[0].text, lastLabel) || f[0].escaped {
@@ -284,7 +315,10 @@ func (p *parser) long() error {
 		}
 		v, kind, usedComma := parseCell(value.text, p.comma)
 		if kind > cellMissing {
-			return p.cellError(value, kind, 2, t.Labels[g])
+			if err := p.problem(p.cellError(value, kind, 2, t.Labels[g])); err != nil {
+				return err
+			}
+			continue
 		}
 		t.DecimalComma = t.DecimalComma || usedComma
 		if kind == cellMissing {

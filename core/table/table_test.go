@@ -2,6 +2,7 @@ package table
 
 import (
 	"errors"
+	"fmt"
 	"reflect"
 	"strings"
 	"testing"
@@ -237,5 +238,45 @@ func TestParseCell(t *testing.T) {
 		if v != tt.v || kind != tt.kind {
 			t.Errorf("parseCell(%q, %v) = %v, %v; want %v, %v", tt.in, tt.comma, v, kind, tt.v, tt.kind)
 		}
+	}
+}
+
+// TestProblems: every unreadable cell is reported at its place, up to
+// MaxProblems, and errors.As finds the first.
+func TestProblems(t *testing.T) {
+	tests := []struct {
+		name  string
+		text  string
+		opt   Options
+		where [][2]int // line, column of each problem
+	}{
+		{"wide", "A,B\n1,x\ny,2\n3,4,5\n", Options{}, [][2]int{{2, 2}, {3, 1}, {4, 3}}},
+		{"long", "A,1\nB,two\n,3\nA,1,2\nB,4\n", Options{Layout: LayoutLong}, [][2]int{{2, 2}, {3, 1}, {4, 3}}},
+	}
+	for _, tt := range tests {
+		_, err := Parse([]byte(tt.text), tt.opt)
+		var ps Problems
+		if !errors.As(err, &ps) {
+			t.Fatalf("%s: error %v is not Problems", tt.name, err)
+		}
+		var where [][2]int
+		for _, e := range ps {
+			where = append(where, [2]int{e.Line, e.Column})
+		}
+		if !reflect.DeepEqual(where, tt.where) {
+			t.Errorf("%s: problems at %v, want %v", tt.name, where, tt.where)
+		}
+		var first *Error
+		if !errors.As(err, &first) || first != ps[0] {
+			t.Errorf("%s: errors.As gives %v, want the first problem", tt.name, first)
+		}
+		if !strings.HasPrefix(err.Error(), fmt.Sprintf("%d cells cannot be read; the first: line 2", len(tt.where))) {
+			t.Errorf("%s: message %q", tt.name, err)
+		}
+	}
+	_, err := Parse([]byte("A\n"+strings.Repeat("x\n", 2*MaxProblems)), Options{})
+	var ps Problems
+	if !errors.As(err, &ps) || len(ps) != MaxProblems || !strings.HasPrefix(err.Error(), "reading stopped after") {
+		t.Errorf("many bad cells: %d problems, %v", len(ps), err)
 	}
 }

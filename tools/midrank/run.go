@@ -76,6 +76,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 
 	fail := func(code int, err error) int {
 		fmt.Fprintln(stderr, "midrank:", err)
+		if ps := core.Detail(err).Problems; len(ps) > 1 {
+			for _, p := range ps {
+				fmt.Fprintln(stderr, "  "+p.Message)
+			}
+		}
 		if *asJSON {
 			stdout.Write(core.EncodeError(err))
 		}

@@ -1,0 +1,70 @@
+package core
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"testing"
+)
+
+func TestPreview(t *testing.T) {
+	tests := []struct {
+		name     string
+		data     string
+		opt      Options
+		layout   string
+		rows     int
+		groups   string
+		problems string // line:column of each
+		option   string
+	}{
+		{"wide", "A;B\n1,5;2\n;3\n", Options{}, "wide", 3, "[{A 1 0} {B 2 0}]", "", ""},
+		{"bad cells", "A,B\n1,x\ny,2\n", Options{}, "wide", 3, "[{A 1 0} {B 1 0}]", "2:2 3:1 ", ""},
+		{"quote never closed", "A,B\n\"1,2\n", Options{}, "wide", 1, "[]", "2:1 ", ""},
+		{"bad setting", "A,B\n1,2\n", Options{Separator: "pipe"}, "", 0, "[]", "", "separator"},
+		{"forced separator", "A;B\n1;2\n", Options{Separator: "comma"}, "wide", 2, "[{A;B 0 0}]", "2:1 ", ""},
+	}
+	for _, tt := range tests {
+		p := PreviewOf([]byte(tt.data), tt.opt)
+		var problems string
+		for _, pr := range p.Problems {
+			problems += fmt.Sprintf("%d:%d ", *pr.Line, *pr.Column)
+		}
+		option := ""
+		if p.Option != nil {
+			option = *p.Option
+		}
+		if p.Input.Layout != tt.layout || len(p.Rows) != tt.rows || fmt.Sprint(p.Groups) != tt.groups || problems != tt.problems || option != tt.option {
+			t.Errorf("%s: layout %q, %d rows, groups %v, problems %q, option %q; want %q, %d, %s, %q, %q",
+				tt.name, p.Input.Layout, len(p.Rows), p.Groups, problems, option, tt.layout, tt.rows, tt.groups, tt.problems, tt.option)
+		}
+		var want bytes.Buffer
+		enc := json.NewEncoder(&want)
+		enc.SetEscapeHTML(false)
+		if err := enc.Encode(p); err != nil {
+			t.Fatal(err)
+		}
+		if got := EncodePreview(p); !bytes.Equal(got, want.Bytes()) {
+			t.Errorf("%s: EncodePreview differs from encoding/json:\n%s\n%s", tt.name, got, want.Bytes())
+		}
+	}
+}
+
+// FuzzPreview: any text and reading settings give a preview, encoded as
+// encoding/json would.
+func FuzzPreview(f *testing.F) {
+	f.Add([]byte("A,B\n1,x\n\"q\"\"\n"), "auto", "auto")
+	f.Add([]byte("g;v\nA;1,5\nB;2\n"), "long", "point")
+	f.Fuzz(func(t *testing.T, data []byte, layout, decimal string) {
+		p := PreviewOf(data, Options{Layout: layout, Decimal: decimal})
+		var want bytes.Buffer
+		enc := json.NewEncoder(&want)
+		enc.SetEscapeHTML(false)
+		if err := enc.Encode(p); err != nil {
+			t.Fatal(err)
+		}
+		if got := EncodePreview(p); !bytes.Equal(got, want.Bytes()) {
+			t.Fatalf("EncodePreview differs from encoding/json:\n%s\n%s", got, want.Bytes())
+		}
+	})
+}
