@@ -72,6 +72,7 @@ fuzz:
 	$(call fuzz-once,./core/link,FuzzDecode) || $(call fuzz-once,./core/link,FuzzDecode)
 	$(call fuzz-once,./core,FuzzDecodeOptions) || $(call fuzz-once,./core,FuzzDecodeOptions)
 	$(call fuzz-once,./core/jsonlite,FuzzParseObject) || $(call fuzz-once,./core/jsonlite,FuzzParseObject)
+	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
 
 # bench: the speed and memory benchmarks
 bench:
