@@ -314,3 +314,18 @@ func FuzzDecodeOptions(f *testing.F) {
 		}
 	})
 }
+
+// TestDefaults: the written-out defaults mean what no settings mean.
+func TestDefaults(t *testing.T) {
+	data := []byte("A,B,C\n1,2,3\n4,5,6\n7,8,9\n")
+	a, err := Analyze(data, Defaults())
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, _ := Analyze(data, Options{})
+	ja, _ := Encode(a)
+	jb, _ := Encode(b)
+	if string(ja) != string(jb) {
+		t.Errorf("Defaults() gives\n%s\nno settings give\n%s", ja, jb)
+	}
+}

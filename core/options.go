@@ -47,6 +47,14 @@ const (
 	MaxSeed = 1<<53 - 1
 )
 
+// Defaults are the settings used where none is given, written out, for the
+// page to show: the one place the defaults are kept is here.
+func Defaults() Options {
+	seed := uint64(DefaultSeed)
+	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Alpha: DefaultAlpha, PValue: pvalueMethods[0],
+		Resamples: DefaultResamples, Seed: &seed, PostHoc: posthocMethods[0], Adjust: adjustMethods[0]}
+}
+
 // OptionError is a setting that cannot be used.
 type OptionError struct {
 	Option string // the request key, e.g. "alpha"

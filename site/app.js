@@ -18,16 +18,26 @@ let nextId = 1;
 let latest = 0; // the id of the latest request: older replies are dropped
 let result = null;
 let rankOffset = 0;
+let defaults = {}; // the module's default settings, by request key
 const pending = new Map();
+
+// The module is compiled once, here, and handed to every worker started, so
+// that a Cancel (which starts a fresh worker) costs no second compilation.
+const compiled = moduleBytes
+  ? WebAssembly.compile(moduleBytes)
+  : WebAssembly.compileStreaming(fetch("midrank.wasm"))
+    .catch(async () => WebAssembly.compile(await (await fetch("midrank.wasm")).arrayBuffer()));
 
 // startWorker starts a fresh worker; Cancel terminates the old one, since a
 // running module cannot be interrupted.
 function startWorker() {
-  worker = offline
+  const w = offline
     ? new Worker(URL.createObjectURL(new Blob([offline.textContent], { type: "text/javascript" })))
     : new Worker("worker.js");
-  if (offline) worker.postMessage({ kind: "module", bytes: moduleBytes.slice() });
-  worker.onmessage = onWorkerMessage;
+  w.onmessage = onWorkerMessage;
+  compiled.then((module) => w.postMessage({ kind: "module", module }),
+    (err) => { $("status").textContent = "The statistics module could not be loaded: " + err; });
+  worker = w;
 }
 
 function ask(message) {
@@ -42,10 +52,12 @@ function onWorkerMessage(event) {
   const m = event.data;
   if (m.kind === "ready") {
     $("version").textContent = m.version;
+    defaults = m.defaults;
     document.documentElement.dataset.moduleReadyMs = String(Math.round(m.ms));
     $("analyse").disabled = false;
     if (!started) {
       started = true;
+      for (const f of fields) $(f).value = String(defaults[f]); // kept or linked settings follow in start()
       $("status").textContent = "Ready.";
       start();
     }
@@ -53,6 +65,10 @@ function onWorkerMessage(event) {
   }
   if (m.kind === "failed") {
     $("status").textContent = "The statistics module could not start: " + m.message;
+    return;
+  }
+  if (m.kind === "preview") {
+    if (m.id === latest) showPreview(JSON.parse(m.json));
     return;
   }
   if (m.kind === "progress") {
@@ -80,7 +96,7 @@ function cancel() {
 }
 
 // The settings on the form, by request key.
-const fields = ["layout", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
+const fields = ["layout", "separator", "decimal", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
 const numeric = new Set(["alpha", "resamples", "seed"]);
 
 function formOptions() {
@@ -95,7 +111,7 @@ const KEPT = "midrank.workspace.v1";
 
 function keep() {
   try {
-    localStorage.setItem(KEPT, JSON.stringify({ data: $("data").value, options: formOptions() }));
+    localStorage.setItem(KEPT, JSON.stringify({ data: $("data").value, options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }));
   } catch {
     // storage may be full or switched off; the page works without it
   }
@@ -107,6 +123,8 @@ function restoreKept() {
     if (!kept) return false;
     $("data").value = kept.data;
     for (const f of fields) if (kept.options[f] !== undefined) $(f).value = String(kept.options[f]);
+    if (kept.edits) edits = kept.edits;
+    if (Array.isArray(kept.undoable)) undoable = kept.undoable;
     return kept.data.trim() !== "";
   } catch {
     return false;
@@ -181,7 +199,9 @@ async function openLink(fragment) {
   }
   $("problem").hidden = true;
   $("data").value = body.data;
-  for (const f of fields) if (body.options[f] !== undefined) $(f).value = String(body.options[f]);
+  for (const f of fields) $(f).value = String(body.options[f] ?? defaults[f]);
+  edits = { order: body.options.order || [], exclude: body.options.exclude || [], rename: body.options.rename || {} };
+  undoable = [];
   $("demo-note").hidden = true;
   return true;
 }
@@ -212,7 +232,7 @@ async function analyse() {
   $("link-box").hidden = true;
   $("cancel").hidden = false;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
-  const { id, body } = await ask({ kind: "analyze", data: $("data").value, options });
+  const { id, body } = await ask({ kind: "analyze", data: $("data").value, options, edits });
   if (id !== latest || body.cancelled) return;
   $("cancel").hidden = true;
   if (body.error) {
@@ -231,6 +251,159 @@ function showProblem(error) {
   p.hidden = false;
   $("status").textContent = "The data could not be analysed.";
 }
+
+// The preview shows how the text was read: the first lines as cells, every
+// unreadable cell marked and listed with the core's message, and the groups
+// with their edits.
+const separatorNames = { tab: "tab-separated", semicolon: "semicolon-separated", comma: "comma-separated" };
+const layoutNames = { wide: "one column per group", long: "group, value per row" };
+let previewGroups = []; // the groups of the text as written, in text order
+
+function showPreview(p) {
+  const input = p.input;
+  $("read-as").textContent = !input.layout ? "it could not be read"
+    : layoutNames[input.layout] + ", " + separatorNames[input.separator] + ", decimal " + input.decimal_mark
+      + (p.groups.length ? ", " + p.groups.length + " groups" : "")
+      + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
+  const marks = new Map(); // "line:column" → message
+  for (const q of p.problems) if (q.line && q.column) marks.set(q.line + ":" + q.column, q.message);
+  const width = Math.max(1, ...p.rows.map((r) => r.cells.length));
+  const headed = input.layout === "wide" || input.header;
+  $("preview-rows").replaceChildren(...p.rows.map((r, i) => {
+    const tr = document.createElement("tr");
+    if (i === 0 && headed) tr.className = "head";
+    const th = document.createElement("th");
+    th.scope = "row";
+    th.textContent = String(r.line);
+    tr.append(th);
+    for (let c = 0; c < width; c++) {
+      const td = document.createElement("td");
+      td.textContent = r.cells[c] ?? "";
+      const message = marks.get(r.line + ":" + (c + 1));
+      if (message) {
+        td.className = "bad";
+        td.title = message;
+        td.setAttribute("aria-label", (r.cells[c] ?? "") + " — " + message);
+      }
+      tr.append(td);
+    }
+    return tr;
+  }));
+  const problems = p.problems.length ? p.problems : p.message ? [{ message: p.message }] : [];
+  $("problem-list").replaceChildren(...problems.map((q) => {
+    const li = document.createElement("li");
+    if (q.line) {
+      const b = document.createElement("button");
+      b.type = "button";
+      b.className = "quiet";
+      b.textContent = q.message;
+      b.title = "Select line " + q.line + " in the text";
+      b.addEventListener("click", () => selectLine(q.line));
+      li.append(b);
+    } else {
+      li.textContent = q.message;
+    }
+    return li;
+  }));
+  previewGroups = p.groups;
+  showEditor();
+}
+
+// selectLine selects a line of the text box, so a marked cell is found at once.
+function selectLine(line) {
+  const text = $("data").value;
+  let start = 0;
+  for (let l = 1; l < line && start >= 0; l++) start = text.indexOf("\n", start) + 1 || -1;
+  if (start < 0) return;
+  const end = text.indexOf("\n", start);
+  const box = $("data");
+  box.focus();
+  box.setSelectionRange(start, end < 0 ? text.length : end);
+}
+
+// Group edits (order, groups left out, names) live beside the text: the text
+// is never rewritten. Each change can be undone; all of it is kept.
+let edits = { order: [], exclude: [], rename: {} };
+let undoable = []; // earlier edits, newest last
+const UNDO_KEPT = 50;
+
+// shownOrder is the order of the text's groups after the edits.
+function shownOrder() {
+  const labels = previewGroups.map((g) => g.label);
+  const first = edits.order.filter((l) => labels.includes(l));
+  return first.concat(labels.filter((l) => !first.includes(l)));
+}
+
+function changeEdits(next) {
+  undoable.push(edits);
+  if (undoable.length > UNDO_KEPT) undoable.shift();
+  edits = next;
+  keep();
+  showEditor();
+  analyse();
+}
+
+function showEditor() {
+  const order = shownOrder();
+  $("editor-box").hidden = order.length === 0;
+  $("undo").disabled = undoable.length === 0;
+  const byLabel = new Map(previewGroups.map((g) => [g.label, g]));
+  $("editor-rows").replaceChildren(...order.map((label, i) => {
+    const g = byLabel.get(label);
+    const tr = document.createElement("tr");
+    const included = !edits.exclude.includes(label);
+    if (!included) tr.className = "left-out";
+    const cell = (child) => { const td = document.createElement("td"); td.append(child); tr.append(td); return td; };
+    const box = document.createElement("input");
+    box.type = "checkbox";
+    box.checked = included;
+    box.setAttribute("aria-label", "Include " + label + " in the test");
+    box.addEventListener("change", () => changeEdits({ ...edits,
+      exclude: box.checked ? edits.exclude.filter((l) => l !== label) : edits.exclude.concat([label]) }));
+    cell(box);
+    cell(document.createTextNode(label));
+    const name = document.createElement("input");
+    name.type = "text";
+    name.value = edits.rename[label] || "";
+    name.placeholder = label;
+    name.setAttribute("aria-label", "Name to show for " + label);
+    name.addEventListener("change", () => {
+      const rename = { ...edits.rename };
+      if (name.value.trim() === "" || name.value === label) delete rename[label];
+      else rename[label] = name.value;
+      changeEdits({ ...edits, rename });
+    });
+    cell(name);
+    cell(document.createTextNode(String(g.n)));
+    cell(document.createTextNode(String(g.missing)));
+    const moves = cell(document.createTextNode(""));
+    for (const [text, by, words] of [["↑", -1, "up"], ["↓", 1, "down"]]) {
+      const b = document.createElement("button");
+      b.type = "button";
+      b.className = "quiet move";
+      b.textContent = text;
+      b.setAttribute("aria-label", "Move " + label + " " + words);
+      b.disabled = i + by < 0 || i + by >= order.length;
+      b.addEventListener("click", () => {
+        const next = order.slice();
+        [next[i], next[i + by]] = [next[i + by], next[i]];
+        changeEdits({ ...edits, order: next });
+        document.querySelector('[aria-label="' + CSS.escape("Move " + label + " " + words) + '"]')?.focus();
+      });
+      moves.append(b);
+    }
+    return tr;
+  }));
+}
+
+$("undo").addEventListener("click", () => {
+  if (undoable.length === 0) return;
+  edits = undoable.pop();
+  keep();
+  showEditor();
+  analyse();
+});
+$("reset-edits").addEventListener("click", () => changeEdits({ order: [], exclude: [], rename: {} }));
 
 // fmt shows a figure with four significant digits, switching to powers of
 // ten only for very small or very large numbers.
@@ -489,6 +662,10 @@ $("data").addEventListener("input", () => {
   }
 });
 for (const f of fields) $(f).addEventListener("change", keep);
+// a new way of reading the text shows its preview (and results) at once
+for (const f of ["layout", "separator", "decimal"]) {
+  $(f).addEventListener("change", () => { if ($("data").value.length <= LIVE_LIMIT) analyse(); });
+}
 $("forget").addEventListener("click", () => {
   localStorage.removeItem(KEPT);
   $("status").textContent = "Nothing is kept in this browser any more; the text on the page stays until you leave it.";
@@ -692,7 +869,7 @@ $("unlock").addEventListener("submit", async (event) => {
 $("make-link").addEventListener("click", async () => {
   const passphrase = $("link-passphrase").value;
   $("status").textContent = passphrase ? "Sealing the link with the passphrase…" : "Making the link…";
-  const { body } = await ask({ kind: "link", data: $("data").value, options: formOptions() });
+  const { body } = await ask({ kind: "link", data: $("data").value, options: formOptions(), edits });
   if (body.error) {
     showProblem(body.error);
     return;

@@ -1,38 +1,55 @@
 // Worker: owns Go's wasm_exec.js and the statistics module, so the page never
-// freezes. Messages: {id, kind: "analyze", data, options} and
-// {id, kind: "page", list, offset, count}, {id, kind: "link", data, options}
-// and {id, kind: "open-link", fragment}; replies: {id, json}, and
-// {id, kind: "progress", stage, done, total} during long computations.
-// Served, it loads wasm_exec.js and fetches the module itself; in the
-// single-file build it runs from a blob: URL with wasm_exec.js prepended,
-// and the page sends the module's bytes first: {kind: "module", bytes}.
+// freezes. The page compiles the module once and sends it to every worker it
+// starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
+// data, options, edits}, {id, kind: "page", list, offset, count},
+// {id, kind: "link", data, options, edits} and {id, kind: "open-link",
+// fragment}; replies: {id, json}. For "analyze" the preview of the text comes
+// first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
+// total} during long computations. Served, it loads wasm_exec.js; in the
+// single-file build it runs from a blob: URL with wasm_exec.js prepended.
 const fromBlob = self.location.protocol === "blob:";
 if (!fromBlob) importScripts("wasm_exec.js");
 
 let ready = null;
 
-// start compiles and runs the module from its bytes or its address, and
-// reports how long the module took to be ready once its bytes were there.
-function start(source) {
-  let arrived = 0;
+// start runs the compiled module and reports how long it took to be ready.
+function start(module) {
+  const arrived = performance.now();
   ready = (async () => {
-    const bytes = source instanceof Uint8Array ? source : await (await fetch(source)).arrayBuffer();
-    arrived = performance.now();
     const go = new Go();
-    const { instance } = await WebAssembly.instantiate(bytes, go.importObject);
+    const instance = await WebAssembly.instantiate(module, go.importObject);
     go.run(instance); // main registers globalThis.midrank, then waits for calls
     return globalThis.midrank;
   })();
-  ready.then((m) => postMessage({ kind: "ready", version: m.version, ms: performance.now() - arrived }),
+  ready.then((m) => postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), ms: performance.now() - arrived }),
     (err) => postMessage({ kind: "failed", message: String(err) }));
 }
 
-if (!fromBlob) start("midrank.wasm");
+// applicable keeps the group edits that name groups of this text, so that
+// edits made for a label survive while the label is being retyped.
+function applicable(edits, groups) {
+  const labels = new Set(groups.map((g) => g.label));
+  const rename = {};
+  for (const [from, to] of Object.entries(edits.rename || {})) {
+    if (labels.has(from) && to.trim() !== "" && to !== from) rename[from] = to;
+  }
+  return {
+    order: (edits.order || []).filter((l) => labels.has(l)),
+    exclude: (edits.exclude || []).filter((l) => labels.has(l)),
+    rename,
+  };
+}
+
+// withEdits is the module's options JSON: the settings, and the edits that
+// apply to the groups of the text's preview.
+function withEdits(q, preview) {
+  return JSON.stringify({ ...q.options, ...applicable(q.edits || {}, JSON.parse(preview).groups || []) });
+}
 
 onmessage = async (event) => {
   const q = event.data;
   if (q.kind === "module") {
-    start(q.bytes);
+    start(q.module);
     return;
   }
   const m = await ready;
@@ -42,14 +59,18 @@ onmessage = async (event) => {
       json = m.page(q.list, q.offset, q.count);
       break;
     case "link":
-      json = m.link(q.data, JSON.stringify(q.options));
+      json = m.link(q.data, withEdits(q, m.preview(q.data, JSON.stringify(q.options))));
       break;
     case "open-link":
       json = m.openLink(q.fragment);
       break;
-    default:
-      json = m.analyze(new TextEncoder().encode(q.data), JSON.stringify(q.options),
+    default: {
+      const bytes = new TextEncoder().encode(q.data);
+      const preview = m.preview(bytes, JSON.stringify(q.options));
+      postMessage({ id: q.id, kind: "preview", json: preview });
+      json = m.analyze(bytes, withEdits(q, preview),
         (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+    }
   }
   postMessage({ id: q.id, kind: q.kind, json });
 };

@@ -8,6 +8,7 @@
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
 //	globalThis.midrank.version
+//	globalThis.midrank.defaults → the default settings as options JSON
 //
 // where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
 // which saves a copy), optionsJSON holds core.Options, and responseJSON is
@@ -46,6 +47,7 @@ func register() {
 		"link":     js.FuncOf(shareLink),
 		"openLink": js.FuncOf(openLink),
 		"version":  core.Version,
+		"defaults": string(core.Defaults().JSON()),
 	}))
 }
 

@@ -12,6 +12,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -308,6 +309,70 @@ func TestPage(t *testing.T) {
 		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\n")
 		if got := b.text(t, "#problem"); !strings.Contains(got, "line 3, column 2") || !strings.Contains(got, `"five"`) {
 			t.Errorf("problem shown as %q, want line 3, column 2 and the cell", got)
+		}
+	})
+
+	t.Run("every unreadable cell is marked in the preview", func(t *testing.T) {
+		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\nx,5,6\n")
+		marked, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](
+			`[...document.querySelectorAll("#preview-rows td.bad")].map((td) => td.textContent + " @ " + td.title)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(marked) != 2 || !strings.HasPrefix(marked[0], "five @ line 3, column 2") || !strings.HasPrefix(marked[1], "x @ line 4, column 1") {
+			t.Errorf("marked cells %q, want five at line 3, column 2 and x at line 4, column 1", marked)
+		}
+		if got := b.text(t, "#problem-list"); !strings.Contains(got, "line 4, column 1") {
+			t.Errorf("problem list %q, want both problems", got)
+		}
+	})
+
+	t.Run("groups are left out, renamed and reordered, undone, and kept over a reload", func(t *testing.T) {
+		data := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n7,1,5\n"
+		b.analyse(t, data)
+		// each change analyses again: clear the status, act, wait for "Done"
+		change := func(js string) {
+			t.Helper()
+			if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[any](`document.getElementById("status").textContent = ""; `+js+`; null`)); err != nil {
+				t.Fatal(err)
+			}
+			b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+		}
+		groups := func() []string {
+			t.Helper()
+			labels, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#group-rows tr")].map((tr) => tr.cells[0].textContent)`))
+			if err != nil {
+				t.Fatal(err)
+			}
+			return labels
+		}
+		change(`document.querySelector('[aria-label="Include East in the test"]').click()`)
+		want, err := core.Analyze([]byte(data), core.Options{Exclude: []string{"East"}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := b.text(t, `[data-result="h"]`); got != shown(want.H) || !strings.Contains(b.text(t, "#decision"), "Left out of this comparison by request: East.") {
+			t.Errorf("without East: H %q (core %s), decision %q", got, shown(want.H), b.text(t, "#decision"))
+		}
+		change(`const box = document.querySelector('[aria-label="Name to show for North"]'); box.value = "North <site>"; box.dispatchEvent(new Event("change"))`)
+		change(`document.querySelector('[aria-label="Move South up"]').click()`)
+		if got := groups(); !slices.Equal(got, []string{"South", "North <site>"}) {
+			t.Errorf("groups after rename and move: %q", got)
+		}
+		change(`document.getElementById("undo").click()`)
+		if got := groups(); !slices.Equal(got, []string{"North <site>", "South"}) {
+			t.Errorf("groups after undoing the move: %q", got)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.Reload()); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+		if got := groups(); !slices.Equal(got, []string{"North <site>", "South"}) {
+			t.Errorf("groups after a reload: %q", got)
+		}
+		change(`document.getElementById("reset-edits").click()`)
+		if got := groups(); !slices.Equal(got, []string{"North", "South", "East"}) {
+			t.Errorf("groups after going back to the text's groups: %q", got)
 		}
 	})
 
