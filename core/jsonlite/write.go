@@ -6,6 +6,7 @@ package jsonlite
 
 import (
 	"math"
+	"slices"
 	"strconv"
 	"unicode/utf8"
 )
@@ -16,6 +17,9 @@ type Writer struct {
 	b     []byte
 	first []bool // per open object or array: no member written yet
 }
+
+// Grow makes room for n more bytes, saving the copies of growing by steps.
+func (w *Writer) Grow(n int) { w.b = slices.Grow(w.b, n) }
 
 // Bytes returns what was written.
 func (w *Writer) Bytes() []byte { return w.b }

@@ -1,6 +1,7 @@
 package posthoc
 
 import (
+	"cmp"
 	"math"
 	"slices"
 
@@ -27,36 +28,68 @@ type Effect struct {
 	Shift, ShiftLow, ShiftHigh float64
 }
 
-// sortedGroups returns each group's values in ascending order, from the
-// global sort.
-func sortedGroups(r rank.Ranking) [][]float64 {
-	groups := make([][]float64, len(r.Sizes))
-	for g, n := range r.Sizes {
-		groups[g] = make([]float64, 0, n)
-	}
-	for i, g := range r.Groups {
-		groups[g] = append(groups[g], r.Sorted[i])
-	}
-	return groups
+// tally is a group's values as its distinct values, ascending, and how many
+// values lie at or above each: a tied value is handled once, which makes
+// the passes below as long as the number of distinct values.
+type tally struct {
+	v     []float64 // distinct values, ascending
+	w     []int     // how often each occurs
+	above []int     // above[i] = w[i] + w[i+1] + …; above[len(v)] = 0
+	n     int       // all values
 }
 
-func effects(a, b []float64, confidence float64) Effect {
+// tallies returns each group's tally, from the global sort.
+func tallies(r rank.Ranking) []tally {
+	sorted := make([][]float64, len(r.Sizes))
+	for g, n := range r.Sizes {
+		sorted[g] = make([]float64, 0, n)
+	}
+	for i, g := range r.Groups {
+		sorted[g] = append(sorted[g], r.Sorted[i])
+	}
+	ts := make([]tally, len(sorted))
+	for g, values := range sorted {
+		ts[g] = tallyOf(values)
+	}
+	return ts
+}
+
+// tallyOf tallies ascending values.
+func tallyOf(sorted []float64) tally {
+	var t tally
+	for _, x := range sorted {
+		if len(t.v) > 0 && t.v[len(t.v)-1] == x {
+			t.w[len(t.w)-1]++
+		} else {
+			t.v = append(t.v, x)
+			t.w = append(t.w, 1)
+		}
+	}
+	t.above = make([]int, len(t.v)+1)
+	for i := len(t.v) - 1; i >= 0; i-- {
+		t.above[i] = t.above[i+1] + t.w[i]
+	}
+	t.n = t.above[0]
+	return t
+}
+
+func effects(a, b tally, confidence float64) Effect {
 	var greater, equal float64 // pairs with a > b, and with a = b
-	j, k := 0, 0               // b[:j] < x, b[:k] ≤ x, for the current x of a
-	for _, x := range a {
-		for j < len(b) && b[j] < x {
+	j := 0                     // b.v[:j] < x for the current x of a
+	for i, x := range a.v {
+		for j < len(b.v) && b.v[j] < x {
 			j++
 		}
-		for k < len(b) && b[k] <= x {
-			k++
+		w := float64(a.w[i])
+		greater += w * float64(b.n-b.above[j])
+		if j < len(b.v) && b.v[j] == x {
+			equal += w * float64(b.w[j])
 		}
-		greater += float64(j)
-		equal += float64(k - j)
 	}
-	m := float64(len(a)) * float64(len(b))
+	m := float64(a.n) * float64(b.n)
 	e := Effect{ProbSuperiority: (greater + equal/2) / m}
 	e.CliffsDelta = 2*e.ProbSuperiority - 1
-	total := len(a) * len(b)
+	total := a.n * b.n
 	if total%2 == 1 {
 		e.Shift = kthDifference(a, b, total/2+1)
 	} else {
@@ -64,7 +97,7 @@ func effects(a, b []float64, confidence float64) Effect {
 		e.Shift = (below + nextDifference(a, b, below, total/2)) / 2
 	}
 	z := dist.NormalQuantileUpper((1 - confidence) / 2)
-	c := int(math.Floor(m/2 - z*math.Sqrt(m*float64(len(a)+len(b)+1)/12)))
+	c := int(math.Floor(m/2 - z*math.Sqrt(m*float64(a.n+b.n+1)/12)))
 	c = min(max(c, 1), total)
 	e.ShiftLow = kthDifference(a, b, c)
 	e.ShiftHigh = kthDifference(a, b, total+1-c)
@@ -72,25 +105,26 @@ func effects(a, b []float64, confidence float64) Effect {
 }
 
 // kthDifference returns the k-th smallest (from 1) of the differences
-// a[i] − b[j] of two ascending slices, without forming all of them. It
-// bisects the values, each step counting the differences at or below a
-// candidate in one merge-like pass, until at most a few thousand differences
-// lie between the bounds (or, with ties, the upper bound is itself the
-// answer); those are then listed and the answer picked from them. A few
-// dozen passes replace the na·nb differences.
-func kthDifference(a, b []float64, k int) float64 {
-	lo := a[0] - b[len(b)-1] // the smallest difference
-	hi := a[len(a)-1] - b[0] // the largest
-	cLo, _ := countAtMost(a, b, lo)
+// x − y, x from a and y from b, without forming all of them. It bisects the
+// values, each step counting the differences at or below a candidate in one
+// merge-like pass over the distinct values, until at most a few thousand
+// pairs of distinct values lie between the bounds (or, with ties, the upper
+// bound is itself the answer); those are then listed with their
+// multiplicities and the answer picked from them. A few dozen passes
+// replace the na·nb differences.
+func kthDifference(a, b tally, k int) float64 {
+	lo := a.v[0] - b.v[len(b.v)-1] // the smallest difference
+	hi := a.v[len(a.v)-1] - b.v[0] // the largest
+	cLo, pLo, _ := countAtMost(a, b, lo)
 	if cLo >= k {
 		return lo
 	}
-	cHi := len(a) * len(b)
-	// invariant: cLo = #(≤ lo) < k ≤ cHi = #(≤ hi)
-	// sorting the listed differences costs about as much as one pass per
-	// 40 of them, so list no more than a quarter of a pass's length
-	listable := max(1024, (len(a)+len(b))/4)
-	for step := 0; cHi-cLo > listable; step++ {
+	cHi, pHi := a.n*b.n, len(a.v)*len(b.v)
+	// invariant: cLo = #(≤ lo) < k ≤ cHi = #(≤ hi); pLo, pHi count pairs of
+	// distinct values. Sorting the listed pairs costs about as much as one
+	// pass per 40 of them, so list no more than a quarter of a pass's length
+	listable := max(1024, (len(a.v)+len(b.v))/4)
+	for step := 0; pHi-pLo > listable; step++ {
 		// alternate a step that interpolates on the counts (fast where the
 		// differences are spread smoothly) with a bisection (sure progress)
 		mid := lo + (hi-lo)/2
@@ -103,33 +137,43 @@ func kthDifference(a, b []float64, k int) float64 {
 				return hi // lo and hi are neighbours: every difference between is hi
 			}
 		}
-		if c, top := countAtMost(a, b, mid); c >= k {
-			// hi becomes the largest difference at or below mid; with tied
-			// values one difference can repeat more often than the list
-			// holds, so on bisection steps check whether the k-th is hi itself
-			hi, cHi = top, c
+		if c, pairs, top := countAtMost(a, b, mid); c >= k {
+			// hi becomes the largest difference at or below mid; one
+			// difference can come from more pairs than the list holds, so on
+			// bisection steps check whether the k-th is hi itself
+			hi, cHi, pHi = top, c, pairs
 			if step%2 == 1 && countBelow(a, b, hi) < k {
 				return hi
 			}
 		} else {
-			lo, cLo = mid, c
+			lo, cLo, pLo = mid, c, pairs
 		}
 	}
-	between := make([]float64, 0, cHi-cLo)
-	j, l := 0, 0 // for ascending x, a[i] − b[j] ≤ hi from j on, and ≤ lo from l on
-	for _, x := range a {
-		for j < len(b) && x-b[j] > hi {
+	type weighted struct {
+		d float64
+		w int
+	}
+	between := make([]weighted, 0, pHi-pLo)
+	j, l := 0, 0 // for ascending x, x − b.v[j] ≤ hi from j on, and ≤ lo from l on
+	for i, x := range a.v {
+		for j < len(b.v) && x-b.v[j] > hi {
 			j++
 		}
-		for l < len(b) && x-b[l] > lo {
+		for l < len(b.v) && x-b.v[l] > lo {
 			l++
 		}
-		for _, y := range b[j:l] {
-			between = append(between, x-y)
+		for m := j; m < l; m++ {
+			between = append(between, weighted{x - b.v[m], a.w[i] * b.w[m]})
 		}
 	}
-	slices.Sort(between)
-	d := between[k-cLo-1]
+	slices.SortFunc(between, func(p, q weighted) int { return cmp.Compare(p.d, q.d) })
+	d := hi
+	for _, p := range between {
+		if cLo += p.w; cLo >= k {
+			d = p.d
+			break
+		}
+	}
 	if d == 0 {
 		d = 0 // never report -0
 	}
@@ -138,51 +182,53 @@ func kthDifference(a, b []float64, k int) float64 {
 
 // nextDifference is the (k+1)-th smallest difference given d, the k-th: d
 // again if it repeats, else the smallest difference above d (one pass).
-func nextDifference(a, b []float64, d float64, k int) float64 {
-	if c, _ := countAtMost(a, b, d); c > k {
+func nextDifference(a, b tally, d float64, k int) float64 {
+	if c, _, _ := countAtMost(a, b, d); c > k {
 		return d
 	}
 	next := math.Inf(1)
-	j := 0 // for ascending x, a[i] − b[j] > d exactly for j below a bound that only moves right
-	for _, x := range a {
-		for j < len(b) && x-b[j] > d {
+	j := 0 // for ascending x, x − b.v[j] > d exactly for j below a bound that only moves right
+	for _, x := range a.v {
+		for j < len(b.v) && x-b.v[j] > d {
 			j++
 		}
 		if j > 0 {
-			next = min(next, x-b[j-1])
+			next = min(next, x-b.v[j-1])
 		}
 	}
 	return next
 }
 
-// countBelow counts the pairs with a[i] − b[j] < d.
-func countBelow(a, b []float64, d float64) int {
+// countBelow counts the differences x − y < d.
+func countBelow(a, b tally, d float64) int {
 	count, j := 0, 0
-	for _, x := range a {
-		for j < len(b) && x-b[j] >= d {
+	for i, x := range a.v {
+		for j < len(b.v) && x-b.v[j] >= d {
 			j++
 		}
-		count += len(b) - j
+		count += a.w[i] * b.above[j]
 	}
 	return count
 }
 
-// countAtMost counts the pairs with a[i] − b[j] ≤ d, and finds the largest
-// such difference. For ascending a the first j with a[i] − b[j] ≤ d only
-// moves right, and a[i] − b[j] is the largest for that a[i].
-func countAtMost(a, b []float64, d float64) (count int, top float64) {
+// countAtMost counts the differences x − y ≤ d, and the pairs of distinct
+// values among them, and finds the largest such difference. For ascending x
+// the first j with x − b.v[j] ≤ d only moves right, and x − b.v[j] is the
+// largest for that x.
+func countAtMost(a, b tally, d float64) (count, pairs int, top float64) {
 	top = math.Inf(-1)
 	j := 0
-	for _, x := range a {
-		for j < len(b) && x-b[j] > d {
+	for i, x := range a.v {
+		for j < len(b.v) && x-b.v[j] > d {
 			j++
 		}
-		if j < len(b) {
-			count += len(b) - j
-			if v := x - b[j]; v > top { // no builtin max: it pays for NaN and -0, which cannot occur
+		if j < len(b.v) {
+			count += a.w[i] * b.above[j]
+			pairs += len(b.v) - j
+			if v := x - b.v[j]; v > top { // no builtin max: it pays for NaN and -0, which cannot occur
 				top = v
 			}
 		}
 	}
-	return count, top
+	return count, pairs, top
 }

@@ -48,7 +48,7 @@ type Pair struct {
 // Conover–Iman); confidence is the level of the Hodges–Lehmann interval.
 func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64) ([]Pair, error) {
 	k := len(r.Sizes)
-	groups := sortedGroups(r)
+	groups := tallies(r)
 	var pairs []Pair
 	for a := 0; a < k; a++ {
 		for b := a + 1; b < k; b++ {
@@ -85,7 +85,7 @@ func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence f
 }
 
 // compare fills in one pair.
-func compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64, groups [][]float64, p *Pair) error {
+func compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64, groups []tally, p *Pair) error {
 	a, b := p.A, p.B
 	switch method {
 	case "dunn":

@@ -174,9 +174,19 @@ func TestKthDifference(t *testing.T) {
 	for i := range big[1] {
 		big[1][i] = float64(i%23)*1.3 - 4
 	}
-	slices.Sort(big[0])
-	slices.Sort(big[1])
-	cases = append(cases, big)
+	// many distinct values, so that bisection runs before the listing
+	many := [2][]float64{make([]float64, 900), make([]float64, 700)}
+	for i := range many[0] {
+		many[0][i] = float64((i*7919)%611) * 0.25
+	}
+	for i := range many[1] {
+		many[1][i] = float64((i*104729)%503)*0.5 - 20
+	}
+	for _, c := range [][2][]float64{big, many} {
+		slices.Sort(c[0])
+		slices.Sort(c[1])
+		cases = append(cases, c)
+	}
 	for _, c := range cases {
 		var all []float64
 		for _, x := range c[0] {
@@ -185,8 +195,8 @@ func TestKthDifference(t *testing.T) {
 			}
 		}
 		slices.Sort(all)
-		for k := 1; k <= len(all); k += max(1, len(all)/97) {
-			if got := kthDifference(c[0], c[1], k); got != all[k-1] {
+		for k := 1; k <= len(all); k += max(1, len(all)/997) {
+			if got := kthDifference(tallyOf(c[0]), tallyOf(c[1]), k); got != all[k-1] {
 				t.Fatalf("kthDifference(%d) = %v, want %v", k, got, all[k-1])
 			}
 		}
