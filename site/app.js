@@ -105,13 +105,45 @@ function formOptions() {
   return options;
 }
 
+// A large text (pasted, opened or dropped) is held here instead of in the
+// text box: laying out a box of 100,000 lines costs the browser seconds. The
+// preview shows it as cells, and it can be put in the box on request.
+const HOLD_LIMIT = 256 * 1024; // characters
+let heldText = null;
+
+function dataText() {
+  return heldText ?? $("data").value;
+}
+
+function setText(text) {
+  const hold = text.length > HOLD_LIMIT;
+  heldText = hold ? text : null;
+  $("data").value = hold ? "" : text;
+  $("data").hidden = hold;
+  $("held").hidden = !hold;
+  if (hold) {
+    let lines = 1;
+    for (let i = text.indexOf("\n"); i >= 0 && i < text.length - 1; i = text.indexOf("\n", i + 1)) lines++;
+    $("held-note").textContent = "The text (" + lines.toLocaleString() + " lines, " + (text.length / 1e6).toFixed(1)
+      + " million characters) is held in this tab rather than shown in the box, which would be slow. Its first lines are shown as cells below.";
+  }
+}
+
+function showHeldAsText() {
+  const text = heldText;
+  heldText = null;
+  $("held").hidden = true;
+  $("data").hidden = false;
+  $("data").value = text;
+}
+
 // What the user typed and chose is kept in this browser's own storage,
 // on this computer only, so that a reload loses nothing.
 const KEPT = "midrank.workspace.v1";
 
 function keep() {
   try {
-    localStorage.setItem(KEPT, JSON.stringify({ data: $("data").value, options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }));
+    localStorage.setItem(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }));
   } catch {
     // storage may be full or switched off; the page works without it
   }
@@ -121,7 +153,7 @@ function restoreKept() {
   try {
     const kept = JSON.parse(localStorage.getItem(KEPT) || "null");
     if (!kept) return false;
-    $("data").value = kept.data;
+    setText(kept.data);
     for (const f of fields) if (kept.options[f] !== undefined) $(f).value = String(kept.options[f]);
     if (kept.edits) edits = kept.edits;
     if (Array.isArray(kept.undoable)) undoable = kept.undoable;
@@ -198,7 +230,7 @@ async function openLink(fragment) {
     return false;
   }
   $("problem").hidden = true;
-  $("data").value = body.data;
+  setText(body.data);
   for (const f of fields) $(f).value = String(body.options[f] ?? defaults[f]);
   edits = { order: body.options.order || [], exclude: body.options.exclude || [], rename: body.options.rename || {} };
   undoable = [];
@@ -217,7 +249,7 @@ async function start() {
     return;
   }
   if (linked && !(await openLink(location.hash))) return;
-  if ($("data").value.trim() === "") {
+  if (dataText().trim() === "") {
     $("data").value = offline
       ? document.getElementById("demo-data").textContent
       : await (await fetch("demo.tsv")).text();
@@ -233,7 +265,7 @@ async function analyse() {
   $("link-box").hidden = true;
   $("cancel").hidden = false;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
-  const { id, body } = await ask({ kind: "analyze", data: $("data").value, options, edits });
+  const { id, body } = await ask({ kind: "analyze", data: dataText(), options, edits });
   if (id !== latest || body.cancelled) return;
   $("cancel").hidden = true;
   if (body.error) {
@@ -315,7 +347,8 @@ function showPreview(p) {
 
 // selectLine selects a line of the text box, so a marked cell is found at once.
 function selectLine(line) {
-  const text = $("data").value;
+  if (heldText !== null) showHeldAsText();
+  const text = dataText();
   let start = 0;
   for (let l = 1; l < line && start >= 0; l++) start = text.indexOf("\n", start) + 1 || -1;
   if (start < 0) return;
@@ -655,20 +688,32 @@ async function showTies() {
 
 $("analyse").addEventListener("click", analyse);
 $("data").addEventListener("input", keep);
+// a large paste is held rather than laid out in the box (it replaces the box's text)
+$("data").addEventListener("paste", (e) => {
+  const text = e.clipboardData?.getData("text/plain") ?? "";
+  if (text.length <= HOLD_LIMIT) return;
+  e.preventDefault();
+  setText(text);
+  $("demo-note").hidden = true;
+  keep();
+  analyse();
+});
+$("held-edit").addEventListener("click", () => { showHeldAsText(); $("data").focus(); });
+$("held-clear").addEventListener("click", () => { setText(""); keep(); $("data").focus(); });
 
 // Small inputs are analysed again as you type, once typing pauses.
 const LIVE_LIMIT = 20000; // characters
 let typingTimer = 0;
 $("data").addEventListener("input", () => {
   clearTimeout(typingTimer);
-  if ($("data").value.length <= LIVE_LIMIT && $("pvalue").value !== "monte-carlo") {
+  if (dataText().length <= LIVE_LIMIT && $("pvalue").value !== "monte-carlo") {
     typingTimer = setTimeout(analyse, 400);
   }
 });
 for (const f of fields) $(f).addEventListener("change", keep);
 // a new way of reading the text shows its preview (and results) at once
 for (const f of ["layout", "separator", "decimal"]) {
-  $(f).addEventListener("change", () => { if ($("data").value.length <= LIVE_LIMIT) analyse(); });
+  $(f).addEventListener("change", () => { if (dataText().length <= LIVE_LIMIT) analyse(); });
 }
 $("forget").addEventListener("click", () => {
   localStorage.removeItem(KEPT);
@@ -679,7 +724,7 @@ $("forget").addEventListener("click", () => {
 function readFile(file) {
   const reader = new FileReader();
   reader.onload = () => {
-    $("data").value = reader.result;
+    setText(reader.result);
     $("demo-note").hidden = true;
     keep();
     analyse();
@@ -688,13 +733,15 @@ function readFile(file) {
   reader.readAsText(file);
 }
 $("file").addEventListener("change", () => { if ($("file").files[0]) readFile($("file").files[0]); });
-$("data").addEventListener("dragover", (e) => { e.preventDefault(); $("data").classList.add("dropping"); });
-$("data").addEventListener("dragleave", () => $("data").classList.remove("dropping"));
-$("data").addEventListener("drop", (e) => {
-  e.preventDefault();
-  $("data").classList.remove("dropping");
-  if (e.dataTransfer.files[0]) readFile(e.dataTransfer.files[0]);
-});
+for (const target of [$("data"), $("held")]) {
+  target.addEventListener("dragover", (e) => { e.preventDefault(); target.classList.add("dropping"); });
+  target.addEventListener("dragleave", () => target.classList.remove("dropping"));
+  target.addEventListener("drop", (e) => {
+    e.preventDefault();
+    target.classList.remove("dropping");
+    if (e.dataTransfer.files[0]) readFile(e.dataTransfer.files[0]);
+  });
+}
 
 // Downloads are made in the page from the result: a Blob and a link.
 function download(name, type, text) {
@@ -873,7 +920,7 @@ $("unlock").addEventListener("submit", async (event) => {
 $("make-link").addEventListener("click", async () => {
   const passphrase = $("link-passphrase").value;
   $("status").textContent = passphrase ? "Sealing the link with the passphrase…" : "Making the link…";
-  const { body } = await ask({ kind: "link", data: $("data").value, options: formOptions(), edits });
+  const { body } = await ask({ kind: "link", data: dataText(), options: formOptions(), edits });
   if (body.error) {
     showProblem(body.error);
     return;
