@@ -501,7 +501,11 @@ function render() {
 // Ito's (2008), safe for colour-blind readers, and every group also has its
 // own marker shape, so the pictures read in grey print too.
 const MAX_MARKERS = 5000; // beyond this many values the picture shows the boxes only
-const PALETTE = ["#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "#000000", "#F0E442"];
+// Okabe & Ito's black is the text colour here, so that it shows in dark mode
+// too; every marker and bar has a thin outline in the text colour, so that
+// the light colours (yellow, sky blue) stand out from the paper (WCAG 1.4.11).
+const PALETTE = ["#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "currentColor", "#F0E442"];
+const OUTLINE = { stroke: "currentColor", "stroke-width": 0.7 };
 const SVG = "http://www.w3.org/2000/svg";
 
 function svgEl(name, attrs, parent) {
@@ -522,10 +526,10 @@ function marker(parent, g, x, y) {
   const colour = PALETTE[g % PALETTE.length];
   const r = 3.2;
   switch (g % 4) {
-    case 0: return svgEl("circle", { cx: x, cy: y, r, fill: colour }, parent);
-    case 1: return svgEl("rect", { x: x - r, y: y - r, width: 2 * r, height: 2 * r, fill: colour }, parent);
-    case 2: return svgEl("path", { d: `M${x},${y - r - 1}L${x + r + 1},${y + r}L${x - r - 1},${y + r}Z`, fill: colour }, parent);
-    default: return svgEl("path", { d: `M${x},${y - r - 1}L${x + r + 1},${y}L${x},${y + r + 1}L${x - r - 1},${y}Z`, fill: colour }, parent);
+    case 0: return svgEl("circle", { cx: x, cy: y, r, fill: colour, ...OUTLINE }, parent);
+    case 1: return svgEl("rect", { x: x - r, y: y - r, width: 2 * r, height: 2 * r, fill: colour, ...OUTLINE }, parent);
+    case 2: return svgEl("path", { d: `M${x},${y - r - 1}L${x + r + 1},${y + r}L${x - r - 1},${y + r}Z`, fill: colour, ...OUTLINE }, parent);
+    default: return svgEl("path", { d: `M${x},${y - r - 1}L${x + r + 1},${y}L${x},${y + r + 1}L${x - r - 1},${y}Z`, fill: colour, ...OUTLINE }, parent);
   }
 }
 
@@ -590,7 +594,9 @@ function drawMeanRanks() {
   const centre = (r.n + 1) / 2;
   r.groups.forEach((g, i) => {
     const cy = top + row * (i + 0.5);
-    svgEl("line", { x1: x(centre), x2: x(g.mean_rank), y1: cy, y2: cy, stroke: PALETTE[i % PALETTE.length], "stroke-width": 8 }, svg);
+    const from = Math.min(x(centre), x(g.mean_rank));
+    svgEl("rect", { x: from, y: cy - 4, width: Math.abs(x(g.mean_rank) - x(centre)), height: 8,
+      fill: PALETTE[i % PALETTE.length], ...OUTLINE }, svg);
     marker(svg, i, x(g.mean_rank), cy);
     svgText(svg, left - 8, cy + 4, g.label, { "text-anchor": "end" });
   });
