@@ -8,9 +8,11 @@
 package core
 
 import (
+	"cmp"
 	"context"
 	"fmt"
 	"slices"
+	"sync"
 
 	"midrank/core/adjust"
 	"midrank/core/describe"
@@ -120,6 +122,24 @@ type Result struct {
 
 	table   *table.Table
 	ranking rank.Ranking
+	byRank  struct {
+		once  sync.Once
+		order []int32 // indices of the values, smallest first, stable
+	}
+}
+
+// rankOrder sorts the values' indices by value once, when first asked.
+func (r *Result) rankOrder() []int32 {
+	r.byRank.once.Do(func() {
+		order := make([]int32, r.N)
+		for i := range order {
+			order[i] = int32(i)
+		}
+		values := r.table.Values
+		slices.SortStableFunc(order, func(a, b int32) int { return cmp.Compare(values[a], values[b]) })
+		r.byRank.order = order
+	})
+	return r.byRank.order
 }
 
 // Analyze reads data with the given options and runs the Kruskal–Wallis test.
@@ -320,9 +340,13 @@ func warnings(r *Result) []string {
 type List string
 
 const (
-	ListRanks List = "ranks"
-	ListTies  List = "ties"
+	ListRanks  List = "ranks"  // every value with its rank, in the order of the text
+	ListRanked List = "ranked" // the same, smallest value first (ties together, each tie in text order)
+	ListTies   List = "ties"
 )
+
+// Lists are the names Page serves.
+var Lists = []List{ListRanks, ListRanked, ListTies}
 
 // PageOf is one page of a list: the entries from Offset on.
 type PageOf struct {
@@ -333,12 +357,13 @@ type PageOf struct {
 	Ties   []rank.Tie    `json:"ties,omitempty"`
 }
 
-// Page returns up to count entries of the per-value ranking (in input order)
-// or of the tie table (in ascending order of value), from offset on.
+// Page returns up to count entries of the per-value ranking (in input order
+// or by rank) or of the tie table (in ascending order of value), from offset
+// on.
 func (r *Result) Page(list List, offset, count int) PageOf {
 	p := PageOf{List: list, Offset: offset}
 	switch list {
-	case ListRanks:
+	case ListRanks, ListRanked:
 		p.Total = r.N
 	case ListTies:
 		p.Total = len(r.ranking.Ties)
@@ -351,7 +376,15 @@ func (r *Result) Page(list List, offset, count int) PageOf {
 		return p
 	}
 	p.Ranks = make([]RankedValue, 0, end-offset)
-	for i := offset; i < end; i++ {
+	var order []int32
+	if list == ListRanked {
+		order = r.rankOrder()
+	}
+	for at := offset; at < end; at++ {
+		i := at
+		if order != nil {
+			i = int(order[at])
+		}
 		v := r.table.Values[i]
 		rank, shared := r.ranking.RankOf(v)
 		p.Ranks = append(p.Ranks, RankedValue{

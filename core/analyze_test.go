@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 
@@ -327,5 +328,27 @@ func TestDefaults(t *testing.T) {
 	jb, _ := Encode(b)
 	if string(ja) != string(jb) {
 		t.Errorf("Defaults() gives\n%s\nno settings give\n%s", ja, jb)
+	}
+}
+
+// TestRankedPage: the ranking by rank lists values smallest first, tied
+// values together in text order, with the lines they came from.
+func TestRankedPage(t *testing.T) {
+	r, err := Analyze([]byte("A,B\n3,1\n2,3\n5,2\n"), Options{PostHoc: "none"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := r.Page(ListRanked, 0, 10)
+	var got []string
+	for _, v := range p.Ranks {
+		got = append(got, fmt.Sprintf("%s%g@%d:%g", v.Group, v.Value, v.Line, v.Rank))
+	}
+	// hand-worked: 1 < 2 = 2 < 3 = 3 < 5, midranks 1, 2.5, 4.5, 6
+	want := []string{"B1@2:1", "A2@3:2.5", "B2@4:2.5", "A3@2:4.5", "B3@3:4.5", "A5@4:6"}
+	if !slices.Equal(got, want) || p.Total != 6 {
+		t.Errorf("ranked page %v (total %d), want %v", got, p.Total, want)
+	}
+	if p := r.Page(ListRanked, 4, 10); len(p.Ranks) != 2 || p.Ranks[0].Value != 3 {
+		t.Errorf("second page %+v", p)
 	}
 }

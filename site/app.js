@@ -67,6 +67,10 @@ function onWorkerMessage(event) {
     $("status").textContent = "The statistics module could not start: " + m.message;
     return;
   }
+  if (m.kind === "blocked") {
+    console.error("Content Security Policy blocked a load in the worker: " + m.what);
+    return;
+  }
   if (m.kind === "preview") {
     if (m.id === latest) showPreview(JSON.parse(m.json));
     return;
@@ -663,16 +667,20 @@ function row(cells, className) {
   return tr;
 }
 
+// listPage gives a page of "ranks", "ranked" or "ties": from the result when
+// it holds the whole list, else from the module, which keeps the last analysis.
 async function listPage(list, offset) {
-  const complete = list === "ranks" ? result.ranks_complete : result.ties_complete;
+  const complete = list === "ranks" ? result.ranks_complete : list === "ties" ? result.ties_complete : false;
   if (complete) return result[list].slice(offset, offset + PAGE_ROWS);
   const { body } = await ask({ kind: "page", list, offset, count: PAGE_ROWS });
-  return body[list] || [];
+  return body[list === "ranked" ? "ranks" : list] || [];
 }
 
 async function showRanks() {
   const shown = result;
-  const entries = await listPage("ranks", rankOffset);
+  const order = $("rank-order").value;
+  $("rank-caption").textContent = order === "ranked" ? "Values by rank, smallest first; tied values together" : "Values in the order they were read";
+  const entries = await listPage(order, rankOffset);
   if (shown !== result) return;
   $("rank-rows").replaceChildren(...entries.map((v) =>
     row([v.line, v.group, fmt(v.value), fmt(v.rank), v.shared], v.shared > 1 ? "tied" : "")));
@@ -961,6 +969,7 @@ $("copy-link").addEventListener("click", async () => {
   }
 });
 $("sort-pairs").addEventListener("click", () => { pairsSorted = !pairsSorted; showPairs(); });
+$("rank-order").addEventListener("change", () => { rankOffset = 0; showRanks(); });
 $("prev-page").addEventListener("click", () => { rankOffset = Math.max(0, rankOffset - PAGE_ROWS); showRanks(); });
 $("next-page").addEventListener("click", () => { rankOffset += PAGE_ROWS; showRanks(); });
 $("copy-decision").addEventListener("click", async () => {

@@ -12,6 +12,11 @@ if (!fromBlob) importScripts("wasm_exec.js");
 
 let ready = null;
 
+// A load the security policy blocks here would show only in the worker's own
+// console; it is passed to the page, which reports it in its console.
+self.addEventListener("securitypolicyviolation", (e) =>
+  postMessage({ kind: "blocked", what: e.blockedURI + " (" + e.effectiveDirective + ")" }));
+
 // start runs the compiled module and reports how long it took to be ready.
 function start(module) {
   const arrived = performance.now();

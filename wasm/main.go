@@ -15,7 +15,7 @@
 // byte for byte what the command line prints with --json. onProgress, when
 // given, is called as onProgress(stage, done, total) while an exact or Monte
 // Carlo p-value is computed, at most once per percent. page serves the
-// per-value ranking ("ranks") or the tie table ("ties") of the last analysis
+// per-value ranking in text order ("ranks") or by rank ("ranked") or the tie table ("ties") of the last analysis
 // in pieces, for inputs too large to list in one response. preview gives
 // core.Preview: the text as a grid, how it was read, its groups as written
 // and every cell that could not be read.
@@ -24,6 +24,7 @@ package main
 import (
 	"context"
 	"errors"
+	"slices"
 	"syscall/js"
 	"unsafe"
 
@@ -102,8 +103,8 @@ func page(_ js.Value, args []js.Value) any {
 		return string(core.EncodeError(errors.New("page(list, offset, count) needs three arguments")))
 	}
 	list := core.List(args[0].String())
-	if list != core.ListRanks && list != core.ListTies {
-		return string(core.EncodeError(errors.New(`page: the list is "ranks" or "ties"`)))
+	if !slices.Contains(core.Lists, list) {
+		return string(core.EncodeError(errors.New(`page: the list is "ranks", "ranked" or "ties"`)))
 	}
 	return string(core.EncodePage(last.Page(list, args[1].Int(), args[2].Int())))
 }

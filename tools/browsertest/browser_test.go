@@ -355,7 +355,7 @@ func TestPage(t *testing.T) {
 		if got := b.text(t, `[data-result="h"]`); got != shown(want.H) || !strings.Contains(b.text(t, "#decision"), "Left out of this comparison by request: East.") {
 			t.Errorf("without East: H %q (core %s), decision %q", got, shown(want.H), b.text(t, "#decision"))
 		}
-		change(`const box = document.querySelector('[aria-label="Name to show for North"]'); box.value = "North <site>"; box.dispatchEvent(new Event("change"))`)
+		change(`{ const box = document.querySelector('[aria-label="Name to show for North"]'); box.value = "North <site>"; box.dispatchEvent(new Event("change")); }`)
 		change(`document.querySelector('[aria-label="Move South up"]').click()`)
 		if got := groups(); !slices.Equal(got, []string{"South", "North <site>"}) {
 			t.Errorf("groups after rename and move: %q", got)
@@ -374,6 +374,26 @@ func TestPage(t *testing.T) {
 		change(`document.getElementById("reset-edits").click()`)
 		if got := groups(); !slices.Equal(got, []string{"North", "South", "East"}) {
 			t.Errorf("groups after going back to the text's groups: %q", got)
+		}
+	})
+
+	t.Run("the ranking lists by rank, tied values together", func(t *testing.T) {
+		b.analyse(t, "A,B\n3,1\n2,3\n5,2\n")
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[any](`{ const s = document.getElementById("rank-order"); s.value = "ranked"; s.dispatchEvent(new Event("change")); } null`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.querySelector("#rank-rows tr td:nth-child(3)")?.textContent === "1"`)
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#rank-rows tr")].map((tr) => [...tr.cells].slice(0, 4).map((c) => c.textContent).join(" "))`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		// line, group, value, rank: hand-worked midranks
+		want := []string{"2 B 1 1", "3 A 2 2.5", "4 B 2 2.5", "2 A 3 4.5", "3 B 3 4.5", "4 A 5 6"}
+		if !slices.Equal(rows, want) {
+			t.Errorf("rows by rank %q, want %q", rows, want)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[any](`{ const s = document.getElementById("rank-order"); s.value = "ranks"; s.dispatchEvent(new Event("change")); } null`)); err != nil {
+			t.Fatal(err)
 		}
 	})
 
@@ -622,6 +642,28 @@ func TestPage(t *testing.T) {
 	t.Run("nothing is requested from another origin", func(t *testing.T) {
 		b.checkRequests(t)
 	})
+}
+
+// TestBlockedLoadIsSeen: a fetch the security policy blocks never appears
+// as a network event; the console check must still catch it.
+func TestBlockedLoadIsSeen(t *testing.T) {
+	b := start(t)
+	b.smokeTest(t)
+	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[any](`fetch("http://192.0.2.1/probe").catch(() => 0); null`)); err != nil {
+		t.Fatal(err)
+	}
+	deadline := time.Now().Add(10 * time.Second)
+	for time.Now().Before(deadline) {
+		_, console := b.snapshot()
+		for _, m := range console {
+			if strings.Contains(m, "Content Security Policy") && strings.Contains(m, "192.0.2.1") {
+				return
+			}
+		}
+		time.Sleep(100 * time.Millisecond)
+	}
+	_, console := b.snapshot()
+	t.Errorf("the blocked fetch left no console message; console: %q", console)
 }
 
 // TestOfflineFile opens the single-file build from disk with the network
