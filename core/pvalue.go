@@ -12,12 +12,16 @@ import (
 	"midrank/core/report"
 )
 
-// Budgets of the exact method, in states per layer (about 48 bytes each at
-// the peak, when a layer grows). An explicit request may use more than the
-// automatic choice, which must leave time for a fallback.
+// Budgets of the exact method (see exact.Limits). Dense layers take 8 bytes
+// a cell, two layers at a time; the time grows with the cells of all layers,
+// about 25–50 ns each natively. Hash tables take about 48 bytes a state at
+// the peak. An explicit request may use more than the automatic choice,
+// which must leave time for a fallback.
 const (
-	ExactStates     = 4_000_000 // --pvalue exact: at most about 400 MB
-	AutoExactStates = 1_000_000 // --pvalue auto tries exact within this
+	ExactCells      = 24_000_000 // --pvalue exact: dense layers of at most about 200 MB
+	ExactStates     = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
+	AutoExactWork   = 40_000_000 // --pvalue auto: dense within about 1–2 s
+	AutoExactStates = 1_000_000  // --pvalue auto: hash layers within this
 	// HeavyTies is the tie correction below which the automatic choice does
 	// not trust the chi-square approximation even for groups of 5 or more.
 	HeavyTies = 0.95
@@ -96,9 +100,9 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 	method := s.pvalue
 	var reasons []string
 	if method == "auto" || method == "exact" {
-		limit := ExactStates
+		limit := exact.Limits{MaxCells: ExactCells, MaxStates: ExactStates}
 		if method == "auto" {
-			limit = AutoExactStates
+			limit.MaxWork, limit.MaxStates = AutoExactWork, AutoExactStates
 		}
 		err := r.exactPValue(ctx, newProblem(ranking), s.alpha, limit, progress)
 		switch {
@@ -157,12 +161,12 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 }
 
 // exactPValue computes the exact p-value and critical value.
-func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha float64, limit int, progress Progress) error {
+func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha float64, limit exact.Limits, progress Progress) error {
 	var exProgress exact.Progress
 	if progress != nil {
 		exProgress = func(done, total int) { progress("exact", done, total) }
 	}
-	d, err := exact.Permutation(ctx, p.sizes, p.blocks, exact.Limits{MaxStates: limit}, exProgress)
+	d, err := exact.Permutation(ctx, p.sizes, p.blocks, limit, exProgress)
 	if err != nil {
 		return err
 	}

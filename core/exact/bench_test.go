@@ -46,7 +46,7 @@ func BenchmarkPermutation(b *testing.B) {
 		b.Run(fmt.Sprint(c.sizes, c.name), func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				if _, err := Permutation(context.Background(), c.sizes, c.blocks, Limits{MaxStates: 1 << 24}, nil); err != nil {
+				if _, err := Permutation(context.Background(), c.sizes, c.blocks, Limits{MaxCells: 1 << 24, MaxStates: 1 << 24}, nil); err != nil {
 					b.Fatal(err)
 				}
 			}

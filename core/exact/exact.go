@@ -26,6 +26,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"maps"
 	"math/bits"
 	"slices"
 	"sort"
@@ -77,12 +78,17 @@ type TooLargeError struct{ What string }
 func (e *TooLargeError) Error() string { return ErrTooLarge.Error() + ": " + e.What }
 func (e *TooLargeError) Unwrap() error { return ErrTooLarge }
 
-// Limits bound an exact computation.
+// Limits bound an exact computation. A layer's buckets are dense arrays of
+// cells (8 bytes each, one per combination of sums in the bucket's box)
+// when the largest layer has at most MaxCells of them and all layers at
+// most MaxWork (the time grows with it); otherwise hash tables of the
+// states reached (about 32 bytes each), at most MaxStates a layer. Two
+// layers are alive at a time.
 type Limits struct {
-	// MaxStates is the most states one layer may hold; each costs about 24
-	// bytes in each of the two live layers.
+	MaxCells  int
+	MaxWork   int // 0 for no limit
 	MaxStates int
-	layer     func(states int) // told each layer's size, for tests
+	layer     func(cells, states int) // told each layer's size, for tests
 }
 
 // Weights returns L/nᵢ for each group, the factors of T.
@@ -142,68 +148,83 @@ func gcd(a, b int64) int64 {
 type Progress func(done, total int)
 
 // Permutation computes the distribution of T for groups of the given sizes
-// (each ≥ 1) and scores given as ascending blocks. It stops with ctx and
-// with a *TooLargeError when a layer would exceed lim.
+// (each ≥ 1) and scores given as ascending blocks. It stops with ctx, and
+// refuses with a *TooLargeError before starting when Plan exceeds lim.
+//
+// A layer is split into buckets by the groups' counts (in canonical order,
+// which depends on the counts alone). A bucket is a dense array over the
+// stored groups' sums, bounded by what those counts allow: the sums of the
+// c smallest and the c largest scores dealt, narrowed by the total. All
+// successors of a bucket under one deal of a block fall in one bucket of the
+// next layer, so the work streams through a few arrays with no hashing.
 func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress) (*Distribution, error) {
 	s, err := newSpace(sizes, blocks)
 	if err != nil {
 		return nil, err
 	}
-	if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
-		return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
+	largest, work := s.plan()
+	if largest >= tooMany {
+		return nil, &TooLargeError{"the states cannot be numbered in 62 bits"}
 	}
-	cur := newLayer(1024)
-	cur.add(0, 1) // nothing dealt: every pair (0, 0)
-	next := newLayer(1024)
-	dealt, dealtSum := 0, int64(0)
+	s.dense = largest <= lim.MaxCells && (lim.MaxWork == 0 || work <= lim.MaxWork)
+	if !s.dense {
+		if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
+			return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
+		}
+	}
+	k := len(s.sizes)
+	start := newLayer(s, 0)
+	start.get(make([]int, k)).add(0, 1) // nothing dealt: every pair (0, 0)
+	cur := start.list()
+	dealt := 0
 	st := s.scratch()
 	for bi, b := range blocks {
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
-		next.reset(cur.len())
-		for j, e := range cur.slots {
-			if e.key == empty {
-				continue
+		next := newLayer(s, dealt+b.Count)
+		for _, from := range cur {
+			if err := s.deal(ctx, from, b, dealt, st, next); err != nil {
+				return nil, err
 			}
-			if j&0xffff == 0xffff && ctx.Err() != nil {
-				return nil, ctx.Err()
-			}
-			s.decode(e.key, dealt, dealtSum, st)
-			s.deal(st, b, e.p, next)
-			if next.len() > lim.MaxStates {
+			from.p, from.table = nil, nil // free it as soon as it is used
+			if !s.dense && next.states() > lim.MaxStates {
 				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.n)}
 			}
 		}
-		cur, next = next, cur
+		cur = next.list()
 		if lim.layer != nil {
-			lim.layer(cur.len())
+			lim.layer(next.cells, next.states())
 		}
 		dealt += b.Count
-		dealtSum += b.Score * int64(b.Count)
 		if progress != nil && (bi%8 == 7 || bi == len(blocks)-1) {
 			progress(dealt, s.n)
 		}
 	}
-	return s.finish(cur, dealtSum, st), nil
+	return s.finish(ctx, cur, st)
 }
 
-// space describes the states: groups sorted by size, and how each stored
-// pair (count, sum) is packed into a uint64 key.
+// space describes the states: groups sorted by size, and the scores.
 type space struct {
-	n       int
-	sizes   []int     // ascending
-	class   []int     // first group of the size class of each group
-	shift   []uint    // bit offset of each stored group's pair
-	sumBits []uint    // bits of each group's sum field
-	weight  []int64   // L/nᵢ
-	binom   []float64 // binomial coefficients C(a, b) at a*(n+1)+b
+	n         int
+	sizes     []int     // ascending
+	class     []int     // first group of the size class of each group
+	weight    []int64   // L/nᵢ
+	prefix    []int64   // prefix[t]: the sum of the t smallest scores
+	cuts      []int     // the number of scores dealt after each block
+	countBits []uint    // bits of each group's count, in a bucket's key
+	binom     []float64 // binomial coefficients C(a, b) at a*(n+1)+b
+	dense     bool      // buckets are arrays rather than hash tables
 }
 
 func newSpace(sizes []int, blocks []Block) (*space, error) {
-	s := &space{sizes: slices.Sorted(slices.Values(sizes))}
+	s := &space{sizes: slices.Sorted(slices.Values(sizes)), prefix: []int64{0}}
 	for _, b := range blocks {
+		for range b.Count {
+			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
+		}
 		s.n += b.Count
+		s.cuts = append(s.cuts, s.n)
 	}
 	total := 0
 	for _, n := range s.sizes {
@@ -214,10 +235,8 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	}
 	k := len(s.sizes)
 	s.class = make([]int, k)
-	s.shift = make([]uint, k)
-	s.sumBits = make([]uint, k)
+	s.countBits = make([]uint, k)
 	s.weight = Weights(s.sizes)
-	var off uint
 	var maxT float64
 	for i, n := range s.sizes {
 		if i > 0 && n == s.sizes[i-1] {
@@ -225,16 +244,9 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 		} else {
 			s.class[i] = i
 		}
-		top := topSum(blocks, n)
-		s.sumBits[i] = uint(bits.Len64(uint64(top)))
-		maxT += float64(s.weight[i]) * float64(top) * float64(top)
-		if i < k-1 {
-			s.shift[i] = off
-			off += uint(bits.Len(uint(n))) + s.sumBits[i]
-		}
-	}
-	if off > 63 { // the top bit stays clear, so no key is the empty marker
-		return nil, &TooLargeError{fmt.Sprintf("a state needs %d bits, more than 63", off)}
+		top := float64(s.prefix[s.n] - s.prefix[s.n-n])
+		maxT += float64(s.weight[i]) * top * top
+		s.countBits[i] = uint(bits.Len(uint(n)))
 	}
 	if maxT >= 1<<62 {
 		return nil, &TooLargeError{"the statistic would overflow 62 bits"}
@@ -249,138 +261,389 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	return s, nil
 }
 
-// topSum is the sum of the n largest scores, the most a group's sum can reach.
-func topSum(blocks []Block, n int) int64 {
-	var sum int64
-	for i := len(blocks) - 1; i >= 0 && n > 0; i-- {
-		take := min(n, blocks[i].Count)
-		sum += int64(take) * blocks[i].Score
-		n -= take
+// box gives, for groups with these counts after t scores are dealt, the
+// least and greatest sum of each group: the c smallest and c largest
+// scores dealt, narrowed by the sums of the other groups adding up to the
+// total. It returns the number of cells of the stored groups' sums.
+func (s *space) box(counts []int, t int, lo, hi []int64) int {
+	k := len(s.sizes)
+	var loSum, hiSum int64
+	for i, c := range counts {
+		lo[i], hi[i] = s.prefix[c], s.prefix[t]-s.prefix[t-c]
+		loSum += lo[i]
+		hiSum += hi[i]
 	}
-	return sum
+	total := s.prefix[t]
+	cells := 1
+	for i := range k {
+		// the others hold at most hiSum − hi[i] and at least loSum − lo[i]
+		l, h := max(lo[i], total-(hiSum-hi[i])), min(hi[i], total-(loSum-lo[i]))
+		lo[i], hi[i] = l, h
+		if i < k-1 {
+			cells = product(cells, int(max(h-l+1, 0)))
+		}
+	}
+	return cells
 }
 
-// state is a decoded state: every group's count and sum.
+// tooMany is where cell counts saturate: a cell index must stay below it to
+// serve as a hash key.
+const tooMany = 1 << 62
+
+func product(a, b int) int {
+	if b != 0 && a > tooMany/b {
+		return tooMany
+	}
+	return a * b
+}
+
+// plan counts the cells of every layer: the largest layer and all of them.
+func (s *space) plan() (largest, work int) {
+	k := len(s.sizes)
+	counts := make([]int, k)
+	lo, hi := make([]int64, k), make([]int64, k)
+	for _, t := range s.cuts {
+		cells := 0
+		// every canonical count vector adding up to t: ascending within classes
+		var walk func(i, left int)
+		walk = func(i, left int) {
+			if i == k-1 {
+				if left > s.sizes[i] || (i > s.class[i] && left < counts[i-1]) {
+					return
+				}
+				counts[i] = left
+				cells = min(cells+s.box(counts, t, lo, hi), tooMany)
+				return
+			}
+			from := 0
+			if i > s.class[i] {
+				from = counts[i-1]
+			}
+			for c := from; c <= min(s.sizes[i], left); c++ {
+				counts[i] = c
+				walk(i+1, left-c)
+			}
+		}
+		walk(0, t)
+		largest = max(largest, cells)
+		work = min(work+cells, tooMany)
+	}
+	return largest, work
+}
+
+// bucket holds the states of a layer whose groups have these counts: the
+// probability of each combination of the stored groups' sums (all groups
+// but the last, whose sum follows from the total), at the cell index
+// Σ (sᵢ − loᵢ)·strideᵢ of the bucket's box, in an array or a hash table.
+type bucket struct {
+	counts []int   // every group's count, canonical order
+	lo     []int64 // each stored group's least sum
+	width  []int   // and how many sums it can have
+	stride []int   // index step of each stored group's sum
+	p      []float64
+	table  *table
+}
+
+func (b *bucket) add(idx int, p float64) {
+	if b.p != nil {
+		b.p[idx] += p
+	} else {
+		b.table.add(uint64(idx), p)
+	}
+}
+
+// states counts the states that have a probability.
+func (b *bucket) states() int {
+	if b.table != nil {
+		return b.table.len()
+	}
+	n := 0
+	for _, p := range b.p {
+		if p != 0 {
+			n++
+		}
+	}
+	return n
+}
+
+// index is the cell of the sums, which lie in the bucket's box.
+func (b *bucket) index(sums []int64) int {
+	idx := 0
+	for i, st := range b.stride {
+		idx += int(sums[i]-b.lo[i]) * st
+	}
+	return idx
+}
+
+// each calls fn with every state of b that has a probability, sums holding
+// every group's sum.
+func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p float64)) error {
+	m := len(b.lo) // stored groups
+	if b.table != nil {
+		for j, e := range b.table.slots {
+			if e.key == empty {
+				continue
+			}
+			if j&0xffff == 0xffff && ctx.Err() != nil {
+				return ctx.Err()
+			}
+			idx, stored := int(e.key), int64(0)
+			for i := m - 1; i >= 0; i-- {
+				sums[i] = b.lo[i] + int64(idx/b.stride[i])
+				idx %= b.stride[i]
+				stored += sums[i]
+			}
+			sums[m] = total - stored
+			fn(e.p)
+		}
+		return nil
+	}
+	coord := make([]int, m)
+	stored := int64(0)
+	for i := range m {
+		sums[i] = b.lo[i]
+		stored += b.lo[i]
+	}
+	for idx, p := range b.p {
+		if p != 0 {
+			sums[m] = total - stored
+			fn(p)
+		}
+		if idx&0xfffff == 0xfffff && ctx.Err() != nil {
+			return ctx.Err()
+		}
+		// step the sums like an odometer, the first group fastest
+		for i := 0; i < m; i++ {
+			if coord[i]+1 < b.width[i] {
+				coord[i]++
+				sums[i]++
+				stored++
+				break
+			}
+			stored -= int64(coord[i])
+			sums[i] -= int64(coord[i])
+			coord[i] = 0
+		}
+	}
+	return nil
+}
+
+// layer is a layer being built: its buckets by their counts.
+type layer struct {
+	s      *space
+	t      int // scores dealt
+	byKey  map[uint64]*bucket
+	cells  int
+	lo, hi []int64 // scratch
+}
+
+func newLayer(s *space, t int) *layer {
+	k := len(s.sizes)
+	return &layer{s: s, t: t, byKey: map[uint64]*bucket{}, lo: make([]int64, k), hi: make([]int64, k)}
+}
+
+// get returns the bucket for counts (in canonical order), made when new.
+func (l *layer) get(counts []int) *bucket {
+	var key uint64
+	var off uint
+	for i, c := range counts {
+		key |= uint64(c) << off
+		off += l.s.countBits[i]
+	}
+	if b := l.byKey[key]; b != nil {
+		return b
+	}
+	k := len(counts)
+	cells := l.s.box(counts, l.t, l.lo, l.hi)
+	b := &bucket{counts: slices.Clone(counts), lo: slices.Clone(l.lo[:k-1]), width: make([]int, k-1), stride: make([]int, k-1)}
+	if l.s.dense {
+		b.p = make([]float64, cells)
+	} else {
+		b.table = newTable(1024)
+	}
+	step := 1
+	for i := range k - 1 {
+		b.width[i], b.stride[i] = int(l.hi[i]-l.lo[i]+1), step
+		step *= b.width[i]
+	}
+	l.byKey[key] = b
+	l.cells += cells
+	return b
+}
+
+// states counts the states reached.
+func (l *layer) states() int {
+	n := 0
+	for _, b := range l.byKey {
+		n += b.states()
+	}
+	return n
+}
+
+// list gives the buckets in a fixed order.
+func (l *layer) list() []*bucket {
+	keys := slices.Sorted(maps.Keys(l.byKey))
+	out := make([]*bucket, len(keys))
+	for i, key := range keys {
+		out[i] = l.byKey[key]
+	}
+	return out
+}
+
+// state is scratch space.
 type state struct {
-	count []int
-	sum   []int64
-	d     []int // a block's deal, during enumeration
-	c2    []int
-	s2    []int64
+	sum []int64   // a state's sums
+	d   []int     // a block's deal, during enumeration
+	c2  []int     // counts after a deal
+	s2  []int64   // sums after a deal
+	to  []*bucket // for a single score: the bucket each receiver leads to
+	w   []float64 // and its probability for one group: (its room)/(all room)
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
-	return &state{count: make([]int, k), sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k)}
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k)}
 }
 
-func (s *space) decode(key uint64, dealt int, dealtSum int64, st *state) {
-	k := len(s.sizes)
-	c, sum := dealt, dealtSum
-	for i := 0; i < k-1; i++ {
-		pair := key >> s.shift[i]
-		sb := s.sumBits[i]
-		st.sum[i] = int64(pair & (1<<sb - 1))
-		st.count[i] = int((pair >> sb) & (1<<uint(bits.Len(uint(s.sizes[i]))) - 1))
-		c -= st.count[i]
-		sum -= st.sum[i]
-	}
-	st.count[k-1], st.sum[k-1] = c, sum
-}
-
-// encode puts counts and sums into canonical order within each size class
-// and packs all groups but the last.
-func (s *space) encode(count []int, sum []int64) uint64 {
-	k := len(s.sizes)
-	// insertion sort of pairs within classes: classes are small
-	for i := 1; i < k; i++ {
+// arrange puts counts and sums into canonical order within each size class:
+// ascending by count, then by sum.
+func (s *space) arrange(count []int, sum []int64) {
+	for i := 1; i < len(s.sizes); i++ {
 		for j := i; j > s.class[i] && less(count[j], sum[j], count[j-1], sum[j-1]); j-- {
 			count[j], count[j-1] = count[j-1], count[j]
 			sum[j], sum[j-1] = sum[j-1], sum[j]
 		}
 	}
-	var key uint64
-	for i := 0; i < k-1; i++ {
-		key |= (uint64(count[i])<<s.sumBits[i] | uint64(sum[i])) << s.shift[i]
-	}
-	return key
 }
 
 func less(c1 int, s1 int64, c2 int, s2 int64) bool {
 	return c1 < c2 || (c1 == c2 && s1 < s2)
 }
 
-// deal adds to next every way of dealing block b from state st, weighted.
-func (s *space) deal(st *state, b Block, p float64, next *layer) {
+// deal adds to next every way of dealing block b to every state of bucket
+// from, weighted by its probability; dealt scores have been dealt before.
+func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *state, next *layer) error {
+	if b.Count == 1 {
+		return s.dealOne(ctx, from, b.Score, dealt, st, next)
+	}
 	k := len(s.sizes)
 	room := 0
 	for i := range k {
-		room += s.sizes[i] - st.count[i]
+		room += s.sizes[i] - from.counts[i]
 	}
-	if b.Count == 1 {
-		for i := range k {
-			r := s.sizes[i] - st.count[i]
-			if r == 0 {
-				continue
+	// every deal d (dᵢ scores to group i) leads all states to one bucket
+	var deals func(i, left int, w float64) error
+	deals = func(i, left int, w float64) error {
+		r := s.sizes[i] - from.counts[i]
+		if i < k-1 {
+			for d := 0; d <= min(r, left); d++ {
+				st.d[i] = d
+				if err := deals(i+1, left-d, w*s.binom[r*(s.n+1)+d]); err != nil {
+					return err
+				}
 			}
-			// groups of one class in the same state lead to the same successor
-			if i > s.class[i] && st.count[i] == st.count[i-1] && st.sum[i] == st.sum[i-1] {
-				continue
-			}
-			m := 1
-			for j := i + 1; j < k && s.class[j] == s.class[i] && st.count[j] == st.count[i] && st.sum[j] == st.sum[i]; j++ {
-				m++
-			}
-			copy(st.c2, st.count)
-			copy(st.s2, st.sum)
-			st.c2[i]++
-			st.s2[i] += b.Score
-			next.add(s.encode(st.c2, st.s2), p*float64(m*r)/float64(room))
+			return nil
 		}
-		return
-	}
-	total := s.binom[room*(s.n+1)+b.Count]
-	s.dealRest(st, b, 0, b.Count, p/total, next)
-}
-
-// dealRest enumerates the deals of left scores to groups i… recursively.
-func (s *space) dealRest(st *state, b Block, i, left int, w float64, next *layer) {
-	k := len(s.sizes)
-	if i == k-1 {
-		r := s.sizes[i] - st.count[i]
 		if left > r {
-			return
+			return nil
 		}
 		st.d[i] = left
 		w *= s.binom[r*(s.n+1)+left]
-		for j := range k {
-			st.c2[j] = st.count[j] + st.d[j]
-			st.s2[j] = st.sum[j] + int64(st.d[j])*b.Score
+		for i := range k {
+			st.c2[i] = from.counts[i] + st.d[i]
 		}
-		next.add(s.encode(st.c2, st.s2), w)
-		return
+		for i := 1; i < k; i++ { // the counts in canonical order
+			for j := i; j > s.class[j] && st.c2[j] < st.c2[j-1]; j-- {
+				st.c2[j], st.c2[j-1] = st.c2[j-1], st.c2[j]
+			}
+		}
+		to := next.get(st.c2)
+		return from.each(ctx, s.prefix[dealt], st.sum, func(p float64) {
+			for i := range k {
+				st.c2[i] = from.counts[i] + st.d[i]
+				st.s2[i] = st.sum[i] + int64(st.d[i])*b.Score
+			}
+			s.arrange(st.c2, st.s2)
+			to.add(to.index(st.s2), p*w)
+		})
 	}
-	r := s.sizes[i] - st.count[i]
-	for d := 0; d <= min(r, left); d++ {
-		st.d[i] = d
-		s.dealRest(st, b, i+1, left-d, w*s.binom[r*(s.n+1)+d], next)
+	return deals(0, b.Count, 1/s.binom[room*(s.n+1)+b.Count])
+}
+
+// dealOne deals a single score: to each group with room, with probability
+// (its room)/(all room). Groups of one class with equal counts and sums
+// lead to one successor, made once and weighted by their number.
+func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt int, st *state, next *layer) error {
+	k := len(s.sizes)
+	c := from.counts
+	room := 0
+	for i := range k {
+		room += s.sizes[i] - c[i]
 	}
+	// A receiver of count c leads to the bucket whose counts have one c of
+	// its class raised to c+1: the last of the run of c's, which keeps the
+	// counts sorted. to[i] is that bucket for the receivers of i's run.
+	for i := range k {
+		st.to[i] = nil
+		if c[i] == s.sizes[i] {
+			continue
+		}
+		if i > s.class[i] && c[i-1] == c[i] {
+			st.to[i] = st.to[i-1]
+			continue
+		}
+		last := i
+		for last+1 < k && s.class[last+1] == s.class[i] && c[last+1] == c[i] {
+			last++
+		}
+		copy(st.c2, c)
+		st.c2[last]++
+		st.to[i] = next.get(st.c2)
+	}
+	for i := range k {
+		st.w[i] = float64(s.sizes[i]-c[i]) / float64(room)
+	}
+	sums := st.sum
+	return from.each(ctx, s.prefix[dealt], sums, func(p float64) {
+		m := 0 // how many groups so far share this receiver's class, count and sum
+		for r := range k {
+			if r > s.class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
+				m++
+			} else {
+				m = 1
+			}
+			if st.to[r] == nil || (r+1 < k && s.class[r+1] == s.class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
+				continue // full, or not the last of a run of equal groups
+			}
+			// the receiver's new pair moves right past the smaller pairs of its class
+			j := r
+			for j+1 < k && s.class[j+1] == s.class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
+				j++
+			}
+			copy(st.s2, sums)
+			copy(st.s2[r:j], sums[r+1:j+1])
+			st.s2[j] = sums[r] + score
+			to := st.to[r]
+			to.add(to.index(st.s2), p*float64(m)*st.w[r])
+		}
+	})
 }
 
 // finish turns the last layer, where every group is full, into the
 // distribution of T.
-func (s *space) finish(last *layer, total int64, st *state) *Distribution {
+func (s *space) finish(ctx context.Context, last []*bucket, st *state) (*Distribution, error) {
 	mass := map[int64]float64{}
-	for _, e := range last.slots {
-		if e.key == empty {
-			continue
+	for _, b := range last {
+		err := b.each(ctx, s.prefix[s.n], st.sum, func(p float64) {
+			var t int64
+			for i := range s.sizes {
+				t += s.weight[i] * st.sum[i] * st.sum[i]
+			}
+			mass[t] += p
+		})
+		if err != nil {
+			return nil, err
 		}
-		s.decode(e.key, s.n, total, st)
-		var t int64
-		for i := range s.sizes {
-			t += s.weight[i] * st.sum[i] * st.sum[i]
-		}
-		mass[t] += e.p
 	}
 	d := &Distribution{Stat: make([]int64, 0, len(mass))}
 	for t := range mass {
@@ -391,7 +654,7 @@ func (s *space) finish(last *layer, total int64, st *state) *Distribution {
 	for i, t := range d.Stat {
 		d.Prob[i] = mass[t]
 	}
-	return d
+	return d, nil
 }
 
 // EstimateStates bounds the size of the largest layer from the sizes and the

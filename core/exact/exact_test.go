@@ -114,17 +114,20 @@ func TestAgainstEnumeration(t *testing.T) {
 		for name, make := range scoreSets {
 			scores := make(n)
 			want := bruteForce(sizes, scores)
-			got, err := Permutation(context.Background(), sizes, blocksOf(scores), Limits{MaxStates: 1 << 20}, nil)
-			if err != nil {
-				t.Fatalf("%v %s: %v", sizes, name, err)
-			}
-			if len(got.Stat) != len(want) {
-				t.Errorf("%v %s: %d attained values, enumeration has %d", sizes, name, len(got.Stat), len(want))
-				continue
-			}
-			for i, s := range got.Stat {
-				if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
-					t.Errorf("%v %s: P(T=%d) = %v, enumeration %v", sizes, name, s, got.Prob[i], want[s])
+			// dense arrays where they fit, and hash tables throughout
+			for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
+				got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
+				if err != nil {
+					t.Fatalf("%v %s: %v", sizes, name, err)
+				}
+				if len(got.Stat) != len(want) {
+					t.Errorf("%v %s (%+v): %d attained values, enumeration has %d", sizes, name, lim, len(got.Stat), len(want))
+					continue
+				}
+				for i, s := range got.Stat {
+					if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
+						t.Errorf("%v %s: P(T=%d) = %v, enumeration %v", sizes, name, s, got.Prob[i], want[s])
+					}
 				}
 			}
 		}
@@ -152,13 +155,13 @@ func TestTooLarge(t *testing.T) {
 	for i := range scores {
 		scores[i] = int64(i)
 	}
-	_, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), Limits{MaxStates: 1000}, nil)
+	_, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), Limits{MaxCells: 1000, MaxStates: 1000}, nil)
 	if err == nil {
 		t.Fatal("no error beyond the state limit")
 	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
-	if _, err := Permutation(ctx, []int{3, 3}, blocksOf(scores[:6]), Limits{MaxStates: 1000}, nil); err == nil {
+	if _, err := Permutation(ctx, []int{3, 3}, blocksOf(scores[:6]), Limits{MaxCells: 1000, MaxStates: 1000}, nil); err == nil {
 		t.Fatal("a cancelled computation went on")
 	}
 }
@@ -166,7 +169,7 @@ func TestTooLarge(t *testing.T) {
 func ExamplePermutation() {
 	// three groups of two, scores 0…5 (ranks minus one): 90 equally likely deals
 	scores := []Block{{0, 1}, {1, 1}, {2, 1}, {3, 1}, {4, 1}, {5, 1}}
-	d, _ := Permutation(context.Background(), []int{2, 2, 2}, scores, Limits{MaxStates: 1000}, nil)
+	d, _ := Permutation(context.Background(), []int{2, 2, 2}, scores, Limits{MaxCells: 1000, MaxStates: 1000}, nil)
 	// the most extreme split, {0,1} {2,3} {4,5}: T = 1 + 25 + 81
 	fmt.Printf("P(T ≥ %d) = %.4f\n", 107, d.Upper(107))
 	// Output: P(T ≥ 107) = 0.0667

@@ -44,7 +44,7 @@ func TestCoversExact(t *testing.T) {
 	}
 	for _, tt := range tests {
 		observed := exact.Statistic(tt.sizes, tt.sums)
-		d, err := exact.Permutation(context.Background(), tt.sizes, blocks(tt.scores), exact.Limits{MaxStates: 1 << 22}, nil)
+		d, err := exact.Permutation(context.Background(), tt.sizes, blocks(tt.scores), exact.Limits{MaxCells: 1 << 22, MaxStates: 1 << 22}, nil)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -1,7 +1,7 @@
 package exact
 
-// empty marks a free slot; no state encodes to it, because keys use at most
-// 63 bits.
+// empty marks a free slot; no state encodes to it, because keys (cell
+// indices) stay below 2⁶³.
 const empty = ^uint64(0)
 
 // entry is one slot: key and probability side by side, so that a probe
@@ -11,22 +11,23 @@ type entry struct {
 	p   float64
 }
 
-// layer is an open-addressing hash table from state keys to probabilities,
-// with linear probing; it grows at half full to keep probes short.
-type layer struct {
+// table is an open-addressing hash table from state keys to probabilities,
+// with linear probing; it grows at half full to keep probes short. It holds
+// a bucket's states when a dense array would be too large.
+type table struct {
 	slots []entry
 	n     int
 	shift uint // 64 − log2(len(slots))
 }
 
-func newLayer(capacity int) *layer {
-	l := &layer{}
+func newTable(capacity int) *table {
+	l := &table{}
 	l.reset(capacity)
 	return l
 }
 
 // reset empties the layer, sized for about n states.
-func (l *layer) reset(n int) {
+func (l *table) reset(n int) {
 	size, shift := 1024, uint(64-10)
 	for size < 2*n {
 		size *= 2
@@ -43,12 +44,12 @@ func (l *layer) reset(n int) {
 	l.n, l.shift = 0, shift
 }
 
-func (l *layer) len() int { return l.n }
+func (l *table) len() int { return l.n }
 
 // add adds p to the probability of key.
-func (l *layer) add(key uint64, p float64) {
+func (l *table) add(key uint64, p float64) {
 	mask := uint64(len(l.slots) - 1)
-	for i := (key * 0x9E3779B97F4A7C15) >> l.shift; ; i = (i + 1) & mask {
+	for i := mix(key) >> l.shift; ; i = (i + 1) & mask {
 		e := &l.slots[i]
 		switch e.key {
 		case key:
@@ -65,7 +66,19 @@ func (l *layer) add(key uint64, p float64) {
 	}
 }
 
-func (l *layer) grow() {
+// mix is the finaliser of MurmurHash3 (Appleby 2011): every bit of the key
+// moves every bit of the hash, so that keys that differ by a constant, as
+// successors do, do not crowd one stretch of slots.
+func mix(key uint64) uint64 {
+	key ^= key >> 33
+	key *= 0xff51afd7ed558ccd
+	key ^= key >> 33
+	key *= 0xc4ceb9fe1a85ec53
+	key ^= key >> 33
+	return key
+}
+
+func (l *table) grow() {
 	old := l.slots
 	l.slots = make([]entry, 2*len(old))
 	for i := range l.slots {
