@@ -274,17 +274,53 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 		hiSum += hi[i]
 	}
 	total := s.prefix[t]
-	cells := 1
 	for i := range k {
 		// the others hold at most hiSum − hi[i] and at least loSum − lo[i]
-		l, h := max(lo[i], total-(hiSum-hi[i])), min(hi[i], total-(loSum-lo[i]))
-		lo[i], hi[i] = l, h
-		if i < k-1 {
-			cells = product(cells, int(max(h-l+1, 0)))
+		lo[i], hi[i] = max(lo[i], total-(hiSum-hi[i])), min(hi[i], total-(loSum-lo[i]))
+	}
+	// In a run of L groups of one class with equal counts the sums ascend,
+	// and they add up to R, the total less the other groups' sums. So the
+	// q-th (from 0) is at most (R − q·lo)/(L − q), the q smaller ones being
+	// at least lo, and at least (R − (L−1−q)·hi)/(q + 1), the larger ones
+	// being at most hi.
+	for a := 0; a < k; {
+		b := a
+		for b+1 < k && s.class[b+1] == s.class[a] && counts[b+1] == counts[a] {
+			b++
 		}
+		if L := int64(b - a + 1); L > 1 {
+			rMax, rMin := total, total
+			for j := range k {
+				if j < a || j > b {
+					rMax -= lo[j]
+					rMin -= hi[j]
+				}
+			}
+			runLo, runHi := lo[a], hi[a]
+			for q := int64(0); q < L; q++ {
+				i := a + int(q)
+				hi[i] = min(hi[i], floorDiv(rMax-q*runLo, L-q))
+				lo[i] = max(lo[i], ceilDiv(rMin-(L-1-q)*runHi, q+1))
+			}
+		}
+		a = b + 1
+	}
+	cells := 1
+	for i := range k - 1 {
+		cells = product(cells, int(max(hi[i]-lo[i]+1, 0)))
 	}
 	return cells
 }
+
+func floorDiv(a, b int64) int64 {
+	q := a / b
+	if a%b != 0 && (a < 0) != (b < 0) {
+		q--
+	}
+	return q
+}
+
+func ceilDiv(a, b int64) int64 { return -floorDiv(-a, b) }
 
 // tooMany is where cell counts saturate: a cell index must stay below it to
 // serve as a hash key.
@@ -428,6 +464,40 @@ func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p 
 	return nil
 }
 
+// rows calls fn with every row of a dense bucket: the cells whose stored
+// sums differ in the first group's only. Before each call sums holds the
+// sums of the row's first cell, every group's.
+func (b *bucket) rows(ctx context.Context, total int64, sums []int64, fn func(row []float64)) error {
+	m := len(b.lo) // stored groups
+	coord := make([]int, m)
+	stored := int64(0)
+	for i := range m {
+		sums[i] = b.lo[i]
+		stored += b.lo[i]
+	}
+	width := b.width[0]
+	for start := 0; start < len(b.p); start += width {
+		if start&0xfffff < width && ctx.Err() != nil {
+			return ctx.Err()
+		}
+		sums[m] = total - stored
+		fn(b.p[start : start+width])
+		// step the other sums like an odometer, the second group fastest
+		for i := 1; i < m; i++ {
+			if coord[i]+1 < b.width[i] {
+				coord[i]++
+				sums[i]++
+				stored++
+				break
+			}
+			stored -= int64(coord[i])
+			sums[i] -= int64(coord[i])
+			coord[i] = 0
+		}
+	}
+	return nil
+}
+
 // layer is a layer being built: its buckets by their counts.
 type layer struct {
 	s      *space
@@ -492,17 +562,20 @@ func (l *layer) list() []*bucket {
 
 // state is scratch space.
 type state struct {
-	sum []int64   // a state's sums
-	d   []int     // a block's deal, during enumeration
-	c2  []int     // counts after a deal
-	s2  []int64   // sums after a deal
-	to  []*bucket // for a single score: the bucket each receiver leads to
-	w   []float64 // and its probability for one group: (its room)/(all room)
+	sum  []int64   // a state's sums
+	d    []int     // a block's deal, during enumeration
+	c2   []int     // counts after a deal
+	s2   []int64   // sums after a deal
+	to   []*bucket // for a single score: the bucket each receiver leads to
+	w    []float64 // and its probability for one group: (its room)/(all room)
+	dot  []int     // the cell index of a state in the box of each receiver's bucket
+	dot0 []int     // the same for the first cell of a row
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
-	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k)}
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k),
+		dot: make([]int, k), dot0: make([]int, k)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -604,7 +677,10 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		st.w[i] = float64(s.sizes[i]-c[i]) / float64(room)
 	}
 	sums := st.sum
-	return from.each(ctx, s.prefix[dealt], sums, func(p float64) {
+	// receive adds the successors of the state in sums, whose cell index
+	// in the box of receiver r's bucket is st.dot[r]. The index of the new
+	// arrangement follows from it by the sums that change place.
+	receive := func(p float64) {
 		m := 0 // how many groups so far share this receiver's class, count and sum
 		for r := range k {
 			if r > s.class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
@@ -615,17 +691,56 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 			if st.to[r] == nil || (r+1 < k && s.class[r+1] == s.class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
 				continue // full, or not the last of a run of equal groups
 			}
-			// the receiver's new pair moves right past the smaller pairs of its class
+			// the receiver's new pair moves right past the smaller pairs of
+			// its class: those between take one place to the left
 			j := r
 			for j+1 < k && s.class[j+1] == s.class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
 				j++
 			}
-			copy(st.s2, sums)
-			copy(st.s2[r:j], sums[r+1:j+1])
-			st.s2[j] = sums[r] + score
 			to := st.to[r]
-			to.add(to.index(st.s2), p*float64(m)*st.w[r])
+			idx := st.dot[r]
+			for i := r; i < min(j, k-1); i++ {
+				idx += int(sums[i+1]-sums[i]) * to.stride[i]
+			}
+			if j < k-1 {
+				idx += int(sums[r]+score-sums[j]) * to.stride[j]
+			}
+			to.add(idx, p*float64(m)*st.w[r])
 		}
+	}
+	total := s.prefix[dealt]
+	if from.p == nil {
+		return from.each(ctx, total, sums, func(p float64) {
+			for r := range k {
+				if st.to[r] != nil {
+					st.dot[r] = st.to[r].index(sums)
+				}
+			}
+			receive(p)
+		})
+	}
+	// along a row only the first group's sum and the last's change, by one
+	// a cell, so each index moves by the first group's stride
+	return from.rows(ctx, total, sums, func(row []float64) {
+		for r := range k {
+			if st.to[r] != nil {
+				st.dot0[r] = st.to[r].index(sums)
+			}
+		}
+		first, last := sums[0], sums[k-1]
+		for x, p := range row {
+			if p == 0 {
+				continue
+			}
+			sums[0], sums[k-1] = first+int64(x), last-int64(x)
+			for r := range k {
+				if st.to[r] != nil {
+					st.dot[r] = st.dot0[r] + x*st.to[r].stride[0]
+				}
+			}
+			receive(p)
+		}
+		sums[0], sums[k-1] = first, last
 	})
 }
 
