@@ -18,9 +18,9 @@ import (
 // the peak. An explicit request may use more than the automatic choice,
 // which must leave time for a fallback.
 const (
-	ExactCells      = 24_000_000 // --pvalue exact: dense layers of at most about 200 MB
+	ExactCells      = 30_000_000 // --pvalue exact: dense layers of at most 240 MB, under 512 MB in all
 	ExactStates     = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
-	AutoExactWork   = 40_000_000 // --pvalue auto: dense within about 1–2 s
+	AutoExactWork   = 40_000_000 // --pvalue auto: dense within about a second natively
 	AutoExactStates = 1_000_000  // --pvalue auto: hash layers within this
 	// HeavyTies is the tie correction below which the automatic choice does
 	// not trust the chi-square approximation even for groups of 5 or more.

@@ -575,7 +575,7 @@ type state struct {
 func (s *space) scratch() *state {
 	k := len(s.sizes)
 	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k),
-		dot: make([]int, k), dot0: make([]int, k)}
+		dot0: make([]int, k)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -677,33 +677,36 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		st.w[i] = float64(s.sizes[i]-c[i]) / float64(room)
 	}
 	sums := st.sum
-	// receive adds the successors of the state in sums, whose cell index
-	// in the box of receiver r's bucket is st.dot[r]. The index of the new
+	class := s.class
+	// receive adds the successors of the state in sums, x cells into its
+	// row; its cell index in the box of receiver r's bucket is
+	// st.dot0[r] + x·(that box's first stride). The index of the new
 	// arrangement follows from it by the sums that change place.
-	receive := func(p float64) {
+	receive := func(p float64, x int) {
 		m := 0 // how many groups so far share this receiver's class, count and sum
 		for r := range k {
-			if r > s.class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
+			if r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
 				m++
 			} else {
 				m = 1
 			}
-			if st.to[r] == nil || (r+1 < k && s.class[r+1] == s.class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
+			to := st.to[r]
+			if to == nil || (r+1 < k && class[r+1] == class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
 				continue // full, or not the last of a run of equal groups
 			}
 			// the receiver's new pair moves right past the smaller pairs of
 			// its class: those between take one place to the left
 			j := r
-			for j+1 < k && s.class[j+1] == s.class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
+			for j+1 < k && class[j+1] == class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
 				j++
 			}
-			to := st.to[r]
-			idx := st.dot[r]
+			stride := to.stride
+			idx := st.dot0[r] + x*stride[0]
 			for i := r; i < min(j, k-1); i++ {
-				idx += int(sums[i+1]-sums[i]) * to.stride[i]
+				idx += int(sums[i+1]-sums[i]) * stride[i]
 			}
 			if j < k-1 {
-				idx += int(sums[r]+score-sums[j]) * to.stride[j]
+				idx += int(sums[r]+score-sums[j]) * stride[j]
 			}
 			to.add(idx, p*float64(m)*st.w[r])
 		}
@@ -713,10 +716,10 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		return from.each(ctx, total, sums, func(p float64) {
 			for r := range k {
 				if st.to[r] != nil {
-					st.dot[r] = st.to[r].index(sums)
+					st.dot0[r] = st.to[r].index(sums)
 				}
 			}
-			receive(p)
+			receive(p, 0)
 		})
 	}
 	// along a row only the first group's sum and the last's change, by one
@@ -729,16 +732,10 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		}
 		first, last := sums[0], sums[k-1]
 		for x, p := range row {
-			if p == 0 {
-				continue
+			if p != 0 {
+				sums[0], sums[k-1] = first+int64(x), last-int64(x)
+				receive(p, x)
 			}
-			sums[0], sums[k-1] = first+int64(x), last-int64(x)
-			for r := range k {
-				if st.to[r] != nil {
-					st.dot[r] = st.dot0[r] + x*st.to[r].stride[0]
-				}
-			}
-			receive(p)
 		}
 		sums[0], sums[k-1] = first, last
 	})
