@@ -80,10 +80,10 @@ func (e *TooLargeError) Unwrap() error { return ErrTooLarge }
 
 // Limits bound an exact computation. A layer's buckets are dense arrays of
 // cells (8 bytes each, one per combination of sums in the bucket's box)
-// when the largest layer has at most MaxCells of them and all layers at
-// most MaxWork (the time grows with it); otherwise hash tables of the
-// states reached (about 32 bytes each), at most MaxStates a layer. Two
-// layers are alive at a time.
+// when the largest layer has at most MaxCells of them, and then all layers
+// may hold at most MaxWork (the time grows with it); otherwise hash tables
+// of the states reached (about 32 bytes each), at most MaxStates a layer.
+// Two layers are alive at a time.
 type Limits struct {
 	MaxCells  int
 	MaxWork   int // 0 for no limit
@@ -166,7 +166,11 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	if largest >= tooMany {
 		return nil, &TooLargeError{"the states cannot be numbered in 62 bits"}
 	}
-	s.dense = largest <= lim.MaxCells && (lim.MaxWork == 0 || work <= lim.MaxWork)
+	s.dense = largest <= lim.MaxCells
+	if s.dense && lim.MaxWork > 0 && work > lim.MaxWork {
+		// hash tables would be slower still
+		return nil, &TooLargeError{fmt.Sprintf("%d states in all, more than %d", work, lim.MaxWork)}
+	}
 	if !s.dense {
 		if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
 			return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
