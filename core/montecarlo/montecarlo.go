@@ -83,17 +83,17 @@ func PValue(ctx context.Context, sizes []int, weights []int64, scores []int64, o
 	return r, nil
 }
 
-// dealer holds one worker's copy of the scores.
+// dealer holds one worker's two copies of the scores.
 type dealer struct {
 	sizes   []int
 	weights []int64
 	scores  []int64
-	work    []int64
+	a, b    []int64
 	total   int64
 }
 
 func newDealer(sizes []int, weights []int64, scores []int64) *dealer {
-	d := &dealer{sizes: sizes, weights: weights, scores: scores, work: make([]int64, len(scores))}
+	d := &dealer{sizes: sizes, weights: weights, scores: scores, a: make([]int64, len(scores)), b: make([]int64, len(scores))}
 	for _, s := range scores {
 		d.total += s
 	}
@@ -103,48 +103,51 @@ func newDealer(sizes []int, weights []int64, scores []int64) *dealer {
 // chunk draws count deals from g and returns how many reach observed. Each
 // deal is a partial Fisher–Yates shuffle (Knuth, TAOCP 3.4.2, algorithm P):
 // position i takes a score drawn from positions i…N−1; the last group gets
-// what is left, so it needs no draws.
+// what is left, so it needs no draws. Deals are made two at a time on two
+// copies of the scores, each 64-bit draw giving 32 bits to each (reduced to
+// the range by random.Bounded written out in line): the two chains of swaps
+// do not wait for each other, so the processor overlaps them. When count is
+// odd, the second deal of the last pair is made but not counted.
 func (d *dealer) chunk(g *random.Xoshiro, count int, observed int64) int {
-	copy(d.work, d.scores)
-	w := d.work
-	n := len(w)
+	copy(d.a, d.scores)
+	copy(d.b, d.scores)
+	a, b := d.a, d.b
+	n := len(a)
 	last := len(d.sizes) - 1
 	hits := 0
-	for range count {
-		var t int64
+	for done := 0; done < count; done += 2 {
+		var ta, tb int64
 		pos := 0
-		rest := d.total
+		restA, restB := d.total, d.total
 		for gi, size := range d.sizes[:last] {
-			var sum int64
-			end := pos + size
-			for ; pos+1 < end; pos += 2 {
-				// 32 random bits for each of two positions, each reduced
-				// to its range by random.Bounded written out in line
+			var sa, sb int64
+			for end := pos + size; pos < end; pos++ {
 				x := g.Uint64()
-				r1, r2 := uint32(n-pos), uint32(n-pos-1)
-				p1, p2 := uint64(uint32(x>>32))*uint64(r1), uint64(uint32(x))*uint64(r2)
-				if uint32(p1) < r1 {
-					p1 = g.Reject(p1, r1)
+				r := uint32(n - pos)
+				p1, p2 := uint64(uint32(x>>32))*uint64(r), uint64(uint32(x))*uint64(r)
+				if uint32(p1) < r {
+					p1 = g.Reject(p1, r)
 				}
-				if uint32(p2) < r2 {
-					p2 = g.Reject(p2, r2)
+				if uint32(p2) < r {
+					p2 = g.Reject(p2, r)
 				}
-				j, k := pos+int(p1>>32), pos+1+int(p2>>32)
-				w[pos], w[j] = w[j], w[pos]
-				w[pos+1], w[k] = w[k], w[pos+1]
-				sum += w[pos] + w[pos+1]
+				j, k := pos+int(p1>>32), pos+int(p2>>32)
+				a[pos], a[j] = a[j], a[pos]
+				b[pos], b[k] = b[k], b[pos]
+				sa += a[pos]
+				sb += b[pos]
 			}
-			if pos < end {
-				j := pos + int(g.Below(uint32(n-pos)))
-				w[pos], w[j] = w[j], w[pos]
-				sum += w[pos]
-				pos++
-			}
-			t += d.weights[gi] * sum * sum
-			rest -= sum
+			ta += d.weights[gi] * sa * sa
+			tb += d.weights[gi] * sb * sb
+			restA -= sa
+			restB -= sb
 		}
-		t += d.weights[last] * rest * rest
-		if t >= observed {
+		ta += d.weights[last] * restA * restA
+		tb += d.weights[last] * restB * restB
+		if ta >= observed {
+			hits++
+		}
+		if tb >= observed && done+1 < count {
 			hits++
 		}
 	}
