@@ -78,7 +78,10 @@ function onWorkerMessage(event) {
   if (m.kind === "progress") {
     if (m.id === latest) {
       const what = m.stage === "exact" ? "Exact distribution" : "Random deals";
-      $("status").textContent = what + ": " + Math.floor(100 * m.done / m.total) + "%";
+      const pct = Math.floor(100 * m.done / m.total);
+      $("status").textContent = what + ": " + pct + "%";
+      $("progress").value = pct;
+      $("progress").hidden = false;
     }
     return;
   }
@@ -95,6 +98,7 @@ function cancel() {
   pending.clear();
   latest = nextId++; // any reply still on its way is stale
   $("cancel").hidden = true;
+  $("progress").hidden = true;
   $("status").textContent = "Cancelled. The results shown, if any, are from the previous analysis.";
   startWorker();
 }
@@ -272,6 +276,7 @@ async function analyse() {
   const { id, body } = await ask({ kind: "analyze", data: dataText(), options, edits });
   if (id !== latest || body.cancelled) return;
   $("cancel").hidden = true;
+  $("progress").hidden = true;
   if (body.error) {
     showProblem(body.error);
     return;

@@ -498,10 +498,11 @@ func TestPage(t *testing.T) {
 			t.Fatal(err)
 		}
 		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+		b.waitFor(t, `!document.getElementById("progress").hidden`)
 		if err := chromedp.Do(b.ctx, chromedp.Click("#cancel")); err != nil {
 			t.Fatal(err)
 		}
-		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Cancelled")`)
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Cancelled") && document.getElementById("progress").hidden`)
 		// the restarted worker answers the next request
 		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "asymptotic"), chromedp.SetValue("#resamples", "100000")); err != nil {
 			t.Fatal(err)
