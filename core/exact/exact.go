@@ -468,40 +468,6 @@ func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p 
 	return nil
 }
 
-// rows calls fn with every row of a dense bucket: the cells whose stored
-// sums differ in the first group's only. Before each call sums holds the
-// sums of the row's first cell, every group's.
-func (b *bucket) rows(ctx context.Context, total int64, sums []int64, fn func(row []float64)) error {
-	m := len(b.lo) // stored groups
-	coord := make([]int, m)
-	stored := int64(0)
-	for i := range m {
-		sums[i] = b.lo[i]
-		stored += b.lo[i]
-	}
-	width := b.width[0]
-	for start := 0; start < len(b.p); start += width {
-		if start&0xfffff < width && ctx.Err() != nil {
-			return ctx.Err()
-		}
-		sums[m] = total - stored
-		fn(b.p[start : start+width])
-		// step the other sums like an odometer, the second group fastest
-		for i := 1; i < m; i++ {
-			if coord[i]+1 < b.width[i] {
-				coord[i]++
-				sums[i]++
-				stored++
-				break
-			}
-			stored -= int64(coord[i])
-			sums[i] -= int64(coord[i])
-			coord[i] = 0
-		}
-	}
-	return nil
-}
-
 // layer is a layer being built: its buckets by their counts.
 type layer struct {
 	s      *space
@@ -680,42 +646,8 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 	for i := range k {
 		st.w[i] = float64(s.sizes[i]-c[i]) / float64(room)
 	}
-	sums := st.sum
-	class := s.class
-	// receive adds the successors of the state in sums, x cells into its
-	// row; its cell index in the box of receiver r's bucket is
-	// st.dot0[r] + x·(that box's first stride). The index of the new
-	// arrangement follows from it by the sums that change place.
-	receive := func(p float64, x int) {
-		m := 0 // how many groups so far share this receiver's class, count and sum
-		for r := range k {
-			if r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
-				m++
-			} else {
-				m = 1
-			}
-			to := st.to[r]
-			if to == nil || (r+1 < k && class[r+1] == class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
-				continue // full, or not the last of a run of equal groups
-			}
-			// the receiver's new pair moves right past the smaller pairs of
-			// its class: those between take one place to the left
-			j := r
-			for j+1 < k && class[j+1] == class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
-				j++
-			}
-			stride := to.stride
-			idx := st.dot0[r] + x*stride[0]
-			for i := r; i < min(j, k-1); i++ {
-				idx += int(sums[i+1]-sums[i]) * stride[i]
-			}
-			if j < k-1 {
-				idx += int(sums[r]+score-sums[j]) * stride[j]
-			}
-			to.add(idx, p*float64(m)*st.w[r])
-		}
-	}
 	total := s.prefix[dealt]
+	sums := st.sum
 	if from.p == nil {
 		return from.each(ctx, total, sums, func(p float64) {
 			for r := range k {
@@ -723,26 +655,89 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 					st.dot0[r] = st.to[r].index(sums)
 				}
 			}
-			receive(p, 0)
+			s.receive(st, c, score, p, 0)
 		})
 	}
-	// along a row only the first group's sum and the last's change, by one
-	// a cell, so each index moves by the first group's stride
-	return from.rows(ctx, total, sums, func(row []float64) {
+	// Along a row only the first group's sum and the last's change, by one
+	// a cell, so each index moves by the first group's stride. (Plain loops
+	// and a direct call: WebAssembly makes indirect calls dear.)
+	m := len(from.lo)
+	coord := make([]int, m)
+	stored := int64(0)
+	for i := range m {
+		sums[i] = from.lo[i]
+		stored += from.lo[i]
+	}
+	width := from.width[0]
+	for start := 0; start < len(from.p); start += width {
+		if start&0xfffff < width && ctx.Err() != nil {
+			return ctx.Err()
+		}
+		first, last := sums[0], total-stored
+		sums[k-1] = last
 		for r := range k {
 			if st.to[r] != nil {
 				st.dot0[r] = st.to[r].index(sums)
 			}
 		}
-		first, last := sums[0], sums[k-1]
-		for x, p := range row {
+		for x, p := range from.p[start : start+width] {
 			if p != 0 {
 				sums[0], sums[k-1] = first+int64(x), last-int64(x)
-				receive(p, x)
+				s.receive(st, c, score, p, x)
 			}
 		}
-		sums[0], sums[k-1] = first, last
-	})
+		sums[0] = first
+		// step the other sums like an odometer, the second group fastest
+		for i := 1; i < m; i++ {
+			if coord[i]+1 < from.width[i] {
+				coord[i]++
+				sums[i]++
+				stored++
+				break
+			}
+			stored -= int64(coord[i])
+			sums[i] -= int64(coord[i])
+			coord[i] = 0
+		}
+	}
+	return nil
+}
+
+// receive adds the successors of the state in st.sum (counts c) of
+// probability p when a single score is dealt; the state lies x cells into
+// its row, so its cell index in the box of receiver r's bucket is
+// st.dot0[r] + x·(that box's first stride). The index of the new
+// arrangement follows from it by the sums that change place.
+func (s *space) receive(st *state, c []int, score int64, p float64, x int) {
+	k := len(s.sizes)
+	sums, class := st.sum, s.class
+	m := 0 // how many groups so far share this receiver's class, count and sum
+	for r := range k {
+		if r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
+			m++
+		} else {
+			m = 1
+		}
+		to := st.to[r]
+		if to == nil || (r+1 < k && class[r+1] == class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
+			continue // full, or not the last of a run of equal groups
+		}
+		// the receiver's new pair moves right past the smaller pairs of its
+		// class: those between take one place to the left
+		j := r
+		for j+1 < k && class[j+1] == class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
+			j++
+		}
+		stride := to.stride
+		idx := st.dot0[r] + x*stride[0]
+		for i := r; i < min(j, k-1); i++ {
+			idx += int(sums[i+1]-sums[i]) * stride[i]
+		}
+		if j < k-1 {
+			idx += int(sums[r]+score-sums[j]) * stride[j]
+		}
+		to.add(idx, p*float64(m)*st.w[r])
+	}
 }
 
 // finish turns the last layer, where every group is full, into the
