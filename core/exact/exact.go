@@ -710,15 +710,16 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 // arrangement follows from it by the sums that change place.
 func (s *space) receive(st *state, c []int, score int64, p float64, x int) {
 	k := len(s.sizes)
-	sums, class := st.sum, s.class
+	// slices of length k, so that the compiler can drop most index checks
+	sums, class, c, targets, dot0, w := st.sum[:k], s.class[:k], c[:k], st.to[:k], st.dot0[:k], st.w[:k]
 	m := 0 // how many groups so far share this receiver's class, count and sum
 	for r := range k {
-		if r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
+		if r > 0 && r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
 			m++
 		} else {
 			m = 1
 		}
-		to := st.to[r]
+		to := targets[r]
 		if to == nil || (r+1 < k && class[r+1] == class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
 			continue // full, or not the last of a run of equal groups
 		}
@@ -729,14 +730,14 @@ func (s *space) receive(st *state, c []int, score int64, p float64, x int) {
 			j++
 		}
 		stride := to.stride
-		idx := st.dot0[r] + x*stride[0]
+		idx := dot0[r] + x*stride[0]
 		for i := r; i < min(j, k-1); i++ {
 			idx += int(sums[i+1]-sums[i]) * stride[i]
 		}
 		if j < k-1 {
 			idx += int(sums[r]+score-sums[j]) * stride[j]
 		}
-		to.add(idx, p*float64(m)*st.w[r])
+		to.add(idx, p*float64(m)*w[r])
 	}
 }
 
