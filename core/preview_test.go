@@ -68,3 +68,14 @@ func FuzzPreview(f *testing.F) {
 		}
 	})
 }
+
+func ExamplePreviewOf() {
+	p := PreviewOf([]byte("A;B\n1,5;x\n2;3\n"), Options{})
+	fmt.Println(p.Input.Layout, p.Input.Separator, p.Input.DecimalMark, len(p.Rows), p.Groups)
+	for _, q := range p.Problems {
+		fmt.Println(q.Message)
+	}
+	// Output:
+	// wide semicolon comma 3 [{A 2 0} {B 1 0}]
+	// line 2, column 2 (group "B"): "x" is not a number; correct the cell, or write NA there to mark the value as missing.
+}

@@ -138,3 +138,15 @@ func FuzzParseObject(f *testing.F) {
 		}
 	})
 }
+
+func ExampleParseObject() {
+	names, values, _ := ParseObject([]byte(`{"alpha": 0.1, "exclude": ["B"], "rename": {"A": "North"}}`))
+	for _, n := range names {
+		v := values[n]
+		fmt.Println(n, v.Kind, v.Text, v.Items, v.Fields)
+	}
+	// Output:
+	// alpha number 0.1 [] []
+	// exclude list  [B] []
+	// rename record  [] [{A North}]
+}

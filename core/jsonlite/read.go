@@ -19,6 +19,10 @@ const (
 	Record // an object whose members are strings
 )
 
+var kindNames = [...]string{"null", "bool", "number", "string", "list", "record"}
+
+func (k Kind) String() string { return kindNames[k] }
+
 // Value is a JSON value of Midrank's requests: a scalar with its text (the
 // string's contents, the number as written, "true" or "false"), an array of
 // strings in Items, or an object of strings in Fields, in order.

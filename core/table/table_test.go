@@ -280,3 +280,10 @@ func TestProblems(t *testing.T) {
 		t.Errorf("many bad cells: %d problems, %v", len(ps), err)
 	}
 }
+
+func ExampleTable_Regroup() {
+	t, _ := Parse([]byte("North,South,East\n3,8,2\n5,6,NA\n"), Options{})
+	_ = t.Regroup(Edits{Order: []string{"East"}, Exclude: []string{"South"}, Rename: map[string]string{"North": "N"}})
+	fmt.Println(t.Labels, t.Source, t.Missing, len(t.Values), t.Excluded)
+	// Output: [East N] [East North] [1 0] 3 [{South 2 0}]
+}
