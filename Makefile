@@ -73,6 +73,7 @@ fuzz:
 	$(call fuzz-once,./core,FuzzDecodeOptions) || $(call fuzz-once,./core,FuzzDecodeOptions)
 	$(call fuzz-once,./core/jsonlite,FuzzParseObject) || $(call fuzz-once,./core/jsonlite,FuzzParseObject)
 	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
+	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
 
 # bench: the speed and memory benchmarks
 bench:

@@ -174,3 +174,52 @@ func ExamplePermutation() {
 	fmt.Printf("P(T ≥ %d) = %.4f\n", 107, d.Upper(107))
 	// Output: P(T ≥ 107) = 0.0667
 }
+
+// FuzzAgainstEnumeration: for any split of up to 10 scores into groups,
+// with any tie pattern, the distribution equals complete enumeration, with
+// dense arrays and with hash tables.
+func FuzzAgainstEnumeration(f *testing.F) {
+	f.Add([]byte{3, 3, 2}, []byte{0, 1, 1, 2, 3, 3, 3, 4})
+	f.Add([]byte{2, 2, 2, 2}, []byte{0, 0, 0, 0, 0, 0, 1, 1})
+	f.Add([]byte{1, 4, 5}, []byte{0, 2, 4, 6, 8, 10, 12, 14, 16, 18})
+	f.Fuzz(func(t *testing.T, sizeBytes, gaps []byte) {
+		var sizes []int
+		n := 0
+		for _, b := range sizeBytes {
+			if s := int(b%5) + 1; n+s <= 10 && len(sizes) < 6 {
+				sizes = append(sizes, s)
+				n += s
+			}
+		}
+		if len(sizes) < 2 {
+			return
+		}
+		// ascending scores: each the one before plus a gap of 0 (a tie) to 3
+		scores := make([]int64, n)
+		for i := 1; i < n; i++ {
+			gap := int64(1)
+			if i-1 < len(gaps) {
+				gap = int64(gaps[i-1] % 4)
+			}
+			scores[i] = scores[i-1] + gap
+		}
+		if scores[n-1] == 0 {
+			return // a single block: nothing to deal
+		}
+		want := bruteForce(sizes, scores)
+		for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
+			got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
+			if err != nil {
+				t.Fatalf("%v %v: %v", sizes, scores, err)
+			}
+			if len(got.Stat) != len(want) {
+				t.Fatalf("%v %v (%+v): %d attained values, enumeration has %d", sizes, scores, lim, len(got.Stat), len(want))
+			}
+			for i, s := range got.Stat {
+				if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
+					t.Fatalf("%v %v (%+v): P(T=%d) = %v, enumeration %v", sizes, scores, lim, s, got.Prob[i], want[s])
+				}
+			}
+		}
+	})
+}
