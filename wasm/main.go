@@ -56,11 +56,7 @@ func analyze(_ js.Value, args []js.Value) any {
 	if len(args) < 1 {
 		return string(core.EncodeError(errors.New("analyze(data, optionsJSON) needs the data")))
 	}
-	var options []byte
-	if len(args) > 1 && args[1].Type() == js.TypeString {
-		options = []byte(args[1].String())
-	}
-	opt, err := core.DecodeOptions(options)
+	opt, err := optionsOf(args)
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
@@ -84,11 +80,7 @@ func preview(_ js.Value, args []js.Value) any {
 	if len(args) < 1 {
 		return string(core.EncodeError(errors.New("preview(data, optionsJSON) needs the data")))
 	}
-	var options []byte
-	if len(args) > 1 && args[1].Type() == js.TypeString {
-		options = []byte(args[1].String())
-	}
-	opt, err := core.DecodeOptions(options)
+	opt, err := optionsOf(args)
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
@@ -143,6 +135,14 @@ func openLink(_ js.Value, args []js.Value) any {
 	w.Raw(req.Options.JSON())
 	w.EndObject()
 	return string(w.Bytes())
+}
+
+// optionsOf reads the options JSON in args[1]; none means the defaults.
+func optionsOf(args []js.Value) (core.Options, error) {
+	if len(args) > 1 && args[1].Type() == js.TypeString {
+		return core.DecodeOptions([]byte(args[1].String()))
+	}
+	return core.Options{}, nil
 }
 
 // throttled calls fn when the progress has moved by a percent or more.

@@ -238,6 +238,9 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 		return nil, fmt.Errorf("exact: sizes add to %d but there are %d scores", total, s.n)
 	}
 	k := len(s.sizes)
+	if k < 2 {
+		return nil, fmt.Errorf("exact: %d groups; there must be two or more", k)
+	}
 	s.class = make([]int, k)
 	s.countBits = make([]uint, k)
 	s.weight = Weights(s.sizes)
@@ -438,34 +441,64 @@ func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p 
 		}
 		return nil
 	}
-	coord := make([]int, m)
-	stored := int64(0)
-	for i := range m {
-		sums[i] = b.lo[i]
-		stored += b.lo[i]
-	}
-	for idx, p := range b.p {
-		if p != 0 {
-			sums[m] = total - stored
-			fn(p)
-		}
-		if idx&0xfffff == 0xfffff && ctx.Err() != nil {
+	for w := b.walk(total, sums); w.more(); w.next() {
+		if w.start&0xfffff < b.width[0] && ctx.Err() != nil {
 			return ctx.Err()
 		}
-		// step the sums like an odometer, the first group fastest
-		for i := 0; i < m; i++ {
-			if coord[i]+1 < b.width[i] {
-				coord[i]++
-				sums[i]++
-				stored++
-				break
+		first, last := sums[0], sums[m]
+		for x, p := range w.row() {
+			if p != 0 {
+				sums[0], sums[m] = first+int64(x), last-int64(x)
+				fn(p)
 			}
-			stored -= int64(coord[i])
-			sums[i] -= int64(coord[i])
-			coord[i] = 0
 		}
+		sums[0], sums[m] = first, last
 	}
 	return nil
+}
+
+// rows walks a dense bucket row by row: a row is the cells whose stored
+// sums differ in the first group's only. At each row sums holds every
+// group's sum for the row's first cell.
+type rows struct {
+	b      *bucket
+	sums   []int64
+	total  int64
+	coord  []int // the place of the row's first cell in each stored group's range
+	stored int64 // the stored groups' sums
+	start  int   // the index of the row's first cell
+}
+
+func (b *bucket) walk(total int64, sums []int64) *rows {
+	w := &rows{b: b, sums: sums, total: total, coord: make([]int, len(b.lo))}
+	for i, lo := range b.lo {
+		sums[i] = lo
+		w.stored += lo
+	}
+	sums[len(b.lo)] = total - w.stored
+	return w
+}
+
+func (w *rows) more() bool     { return w.start < len(w.b.p) }
+func (w *rows) row() []float64 { return w.b.p[w.start : w.start+w.b.width[0]] }
+
+// next steps to the next row: the other sums turn like an odometer, the
+// second group's fastest.
+func (w *rows) next() {
+	b, sums, m := w.b, w.sums, len(w.b.lo)
+	w.start += b.width[0]
+	for i := 1; i < m; i++ {
+		if w.coord[i]+1 < b.width[i] {
+			w.coord[i]++
+			sums[i]++
+			w.stored++
+			break
+		}
+		w.stored -= int64(w.coord[i])
+		sums[i] -= int64(w.coord[i])
+		w.coord[i] = 0
+	}
+	sums[m] = w.total - w.stored
 }
 
 // layer is a layer being built: its buckets by their counts.
@@ -661,44 +694,23 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 	// Along a row only the first group's sum and the last's change, by one
 	// a cell, so each index moves by the first group's stride. (Plain loops
 	// and a direct call: WebAssembly makes indirect calls dear.)
-	m := len(from.lo)
-	coord := make([]int, m)
-	stored := int64(0)
-	for i := range m {
-		sums[i] = from.lo[i]
-		stored += from.lo[i]
-	}
-	width := from.width[0]
-	for start := 0; start < len(from.p); start += width {
-		if start&0xfffff < width && ctx.Err() != nil {
+	for w := from.walk(total, sums); w.more(); w.next() {
+		if w.start&0xfffff < from.width[0] && ctx.Err() != nil {
 			return ctx.Err()
 		}
-		first, last := sums[0], total-stored
-		sums[k-1] = last
 		for r := range k {
 			if st.to[r] != nil {
 				st.dot0[r] = st.to[r].index(sums)
 			}
 		}
-		for x, p := range from.p[start : start+width] {
+		first, last := sums[0], sums[k-1]
+		for x, p := range w.row() {
 			if p != 0 {
 				sums[0], sums[k-1] = first+int64(x), last-int64(x)
 				s.receive(st, c, score, p, x)
 			}
 		}
-		sums[0] = first
-		// step the other sums like an odometer, the second group fastest
-		for i := 1; i < m; i++ {
-			if coord[i]+1 < from.width[i] {
-				coord[i]++
-				sums[i]++
-				stored++
-				break
-			}
-			stored -= int64(coord[i])
-			sums[i] -= int64(coord[i])
-			coord[i] = 0
-		}
+		sums[0], sums[k-1] = first, last
 	}
 	return nil
 }
