@@ -2,7 +2,6 @@ package core
 
 import (
 	"bytes"
-	"encoding/json"
 	"fmt"
 	"testing"
 )
@@ -38,14 +37,8 @@ func TestPreview(t *testing.T) {
 			t.Errorf("%s: layout %q, %d rows, groups %v, problems %q, option %q; want %q, %d, %s, %q, %q",
 				tt.name, p.Input.Layout, len(p.Rows), p.Groups, problems, option, tt.layout, tt.rows, tt.groups, tt.problems, tt.option)
 		}
-		var want bytes.Buffer
-		enc := json.NewEncoder(&want)
-		enc.SetEscapeHTML(false)
-		if err := enc.Encode(p); err != nil {
-			t.Fatal(err)
-		}
-		if got := EncodePreview(p); !bytes.Equal(got, want.Bytes()) {
-			t.Errorf("%s: EncodePreview differs from encoding/json:\n%s\n%s", tt.name, got, want.Bytes())
+		if got, want := EncodePreview(p), stdJSON(t, p); !bytes.Equal(got, want) {
+			t.Errorf("%s: EncodePreview differs from encoding/json:\n%s\n%s", tt.name, got, want)
 		}
 	}
 }
@@ -57,14 +50,8 @@ func FuzzPreview(f *testing.F) {
 	f.Add([]byte("g;v\nA;1,5\nB;2\n"), "long", "point")
 	f.Fuzz(func(t *testing.T, data []byte, layout, decimal string) {
 		p := PreviewOf(data, Options{Layout: layout, Decimal: decimal})
-		var want bytes.Buffer
-		enc := json.NewEncoder(&want)
-		enc.SetEscapeHTML(false)
-		if err := enc.Encode(p); err != nil {
-			t.Fatal(err)
-		}
-		if got := EncodePreview(p); !bytes.Equal(got, want.Bytes()) {
-			t.Fatalf("EncodePreview differs from encoding/json:\n%s\n%s", got, want.Bytes())
+		if got, want := EncodePreview(p), stdJSON(t, p); !bytes.Equal(got, want) {
+			t.Fatalf("EncodePreview differs from encoding/json:\n%s\n%s", got, want)
 		}
 	})
 }
