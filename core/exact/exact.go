@@ -571,8 +571,7 @@ type state struct {
 	s2   []int64   // sums after a deal
 	to   []*bucket // for a single score: the bucket each receiver leads to
 	w    []float64 // and its probability for one group: (its room)/(all room)
-	dot  []int     // the cell index of a state in the box of each receiver's bucket
-	dot0 []int     // the same for the first cell of a row
+	dot0 []int     // the cell index of a row's first state in the box of each receiver's bucket
 }
 
 func (s *space) scratch() *state {
