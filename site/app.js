@@ -19,6 +19,7 @@ let latest = 0; // the id of the latest request: older replies are dropped
 let result = null;
 let rankOffset = 0;
 let defaults = {}; // the module's default settings, by request key
+let analysing = false; // an analysis is running in the worker
 const pending = new Map();
 
 // The module is compiled once, here, and handed to every worker started, so
@@ -92,15 +93,22 @@ function onWorkerMessage(event) {
 
 startWorker();
 
-function cancel() {
+// restartWorker stops the worker, whatever it is doing, and starts a fresh
+// one; requests waiting for it are answered as cancelled.
+function restartWorker() {
   worker.terminate();
   for (const resolve of pending.values()) resolve(JSON.stringify({ cancelled: true }));
   pending.clear();
   latest = nextId++; // any reply still on its way is stale
+  analysing = false;
+  startWorker();
+}
+
+function cancel() {
+  restartWorker();
   $("cancel").hidden = true;
   $("progress").hidden = true;
   $("status").textContent = "Cancelled. The results shown, if any, are from the previous analysis.";
-  startWorker();
 }
 
 // The settings on the form, by request key.
@@ -272,9 +280,13 @@ async function analyse() {
   $("status").textContent = "Analysing…";
   $("link-box").hidden = true;
   $("cancel").hidden = false;
+  // the latest request wins: one still running is stopped, not waited for
+  if (analysing) restartWorker();
+  analysing = true;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
   const { id, body } = await ask({ kind: "analyze", data: dataText(), options, edits });
   if (id !== latest || body.cancelled) return;
+  analysing = false;
   $("cancel").hidden = true;
   $("progress").hidden = true;
   if (body.error) {

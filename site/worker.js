@@ -10,25 +10,24 @@
 const fromBlob = self.location.protocol === "blob:";
 if (!fromBlob) importScripts("wasm_exec.js");
 
-let ready = null;
+// ready settles once the module has come from the page and runs; requests
+// that arrive before it wait for it.
+let begin;
+const ready = new Promise((resolve) => { begin = resolve; }).then(async (module) => {
+  const arrived = performance.now();
+  const go = new Go();
+  const instance = await WebAssembly.instantiate(module, go.importObject);
+  go.run(instance); // main registers globalThis.midrank, then waits for calls
+  const m = globalThis.midrank;
+  postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), ms: performance.now() - arrived });
+  return m;
+});
+ready.catch((err) => postMessage({ kind: "failed", message: String(err) }));
 
 // A load the security policy blocks here would show only in the worker's own
 // console; it is passed to the page, which reports it in its console.
 self.addEventListener("securitypolicyviolation", (e) =>
   postMessage({ kind: "blocked", what: e.blockedURI + " (" + e.effectiveDirective + ")" }));
-
-// start runs the compiled module and reports how long it took to be ready.
-function start(module) {
-  const arrived = performance.now();
-  ready = (async () => {
-    const go = new Go();
-    const instance = await WebAssembly.instantiate(module, go.importObject);
-    go.run(instance); // main registers globalThis.midrank, then waits for calls
-    return globalThis.midrank;
-  })();
-  ready.then((m) => postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), ms: performance.now() - arrived }),
-    (err) => postMessage({ kind: "failed", message: String(err) }));
-}
 
 // applicable keeps the group edits that name groups of this text, so that
 // edits made for a label survive while the label is being retyped.
@@ -54,7 +53,7 @@ function withEdits(q, preview) {
 onmessage = async (event) => {
   const q = event.data;
   if (q.kind === "module") {
-    start(q.module);
+    begin(q.module);
     return;
   }
   const m = await ready;

@@ -514,6 +514,24 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a new analysis stops a running one instead of waiting for it", func(t *testing.T) {
+		if err := chromedp.Do(b.ctx,
+			chromedp.SetValue("#data", string(demo)), chromedp.SetValue("#pvalue", "monte-carlo"),
+			chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "asymptotic"), chromedp.SetValue("#resamples", "100000")); err != nil {
+			t.Fatal(err)
+		}
+		started := time.Now()
+		b.analyse(t, string(demo))
+		if got := b.text(t, `[data-result="p_method"]`); got != "chi-square approximation" {
+			t.Errorf("the new analysis shows method %q", got)
+		}
+		t.Logf("the new analysis answered %v after the running one was stopped", time.Since(started).Round(time.Millisecond))
+	})
+
 	t.Run("what was typed survives a reload until it is cleared", func(t *testing.T) {
 		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
 		b.analyse(t, typed)
