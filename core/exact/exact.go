@@ -20,6 +20,11 @@
 // network algorithm of Mehta, Patel & Tsiatis (1984, Biometrics 40, 819–825)
 // in its dynamic-programming form, with the symmetry reduction of Streitberg
 // & Röhmel (1986) for equal sizes.
+//
+// The states of a layer with the same counts form a bucket, held as a dense
+// array over the stored sums (see Permutation for the layout and its bounds),
+// so that the work is a few passes over arrays; where the arrays would be too
+// large, as with many small groups, the buckets are hash tables instead.
 package exact
 
 import (
