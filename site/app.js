@@ -862,6 +862,17 @@ function htmlTable(head, rows) {
     rows.map((r) => "<tr>" + r.map((c) => "<td>" + escapeHTML(c) + "</td>").join("") + "</tr>").join("") + "</tbody></table>";
 }
 
+// groupEditsText says which groups were shown under another name and which
+// were left out, for the reports ("" when the groups are as in the text).
+function groupEditsText(r) {
+  const parts = [];
+  const renamed = r.groups.filter((g) => g.label !== g.label_in_data).map((g) => "\u201c" + g.label_in_data + "\u201d is shown as \u201c" + g.label + "\u201d");
+  if (renamed.length) parts.push("Renamed: " + renamed.join("; ") + ".");
+  const left = r.input.excluded.map((e) => "\u201c" + e.label + "\u201d (" + e.n + " values, " + e.missing + " missing)");
+  if (left.length) parts.push("Left out by request: " + left.join("; ") + ".");
+  return parts.join(" ");
+}
+
 $("save-html").addEventListener("click", () => {
   if (!result) return;
   const r = result;
@@ -875,6 +886,7 @@ $("save-html").addEventListener("click", () => {
     "<h1>Kruskal–Wallis H test</h1>",
     "<p class=\"note\">Made with Midrank " + escapeHTML(r.version) + " on " + new Date().toISOString().slice(0, 10) +
       ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
+    groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
     "<h2>In plain words</h2><p>" + escapeHTML(r.decision) + "</p>",
     "<h2>Test figures</h2>" + htmlTable(["figure", "value"], [["H, corrected for ties", r.h], ["H before the correction", r.h_uncorrected],
       ["tie correction C", r.tie_correction], ["degrees of freedom", r.df], ["p-value", r.p_value], ["how p was found", r.p_method_reason],
@@ -905,7 +917,7 @@ $("save-markdown").addEventListener("click", () => {
   const r = result;
   const md = (cells) => "| " + cells.map((c) => String(c).replace(/\|/g, "\\|")).join(" | ") + " |";
   const lines = ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    r.decision, "", "## Test figures", "", md(["figure", "value"]), md(["---", "---"]),
+    ...(groupEditsText(r) ? [groupEditsText(r), ""] : []), r.decision, "", "## Test figures", "", md(["figure", "value"]), md(["---", "---"]),
     md(["H, corrected for ties", r.h]), md(["H before the correction", r.h_uncorrected]), md(["tie correction C", r.tie_correction]),
     md(["degrees of freedom", r.df]), md(["p-value", r.p_value]), md(["how p was found", r.p_method_reason]),
     md(["H needed at alpha " + r.alpha + " (chi-square)", r.critical_value]),

@@ -186,6 +186,23 @@ func (b *browser) analyse(t *testing.T, data string) {
 	b.waitFor(t, `/^(Done|The data could not)/.test(document.getElementById("status").textContent)`)
 }
 
+// saved presses a download button and returns the file the page made,
+// caught instead of saved.
+func (b *browser) saved(t *testing.T, button string) string {
+	t.Helper()
+	catch := `URL.createObjectURL = (blob) => { window.savedBlob = blob; return "data:,"; }; HTMLAnchorElement.prototype.click = () => {}; ` +
+		`document.getElementById("` + button + `").click(); true`
+	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](catch)); err != nil {
+		t.Fatal(err)
+	}
+	text, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`window.savedBlob.text()`, chromedp.EvalAwaitPromise))
+	if err != nil {
+		_, console := b.snapshot()
+		t.Fatal(err, console)
+	}
+	return text
+}
+
 // shown formats a figure as the page does (four significant digits).
 func shown(v float64) string {
 	return strconv.FormatFloat(v, 'g', 4, 64)
@@ -363,6 +380,10 @@ func TestPage(t *testing.T) {
 		change(`document.getElementById("undo").click()`)
 		if got := groups(); !slices.Equal(got, []string{"North <site>", "South"}) {
 			t.Errorf("groups after undoing the move: %q", got)
+		}
+		if md := b.saved(t, "save-markdown"); !strings.Contains(md, "\u201cNorth\u201d is shown as \u201cNorth <site>\u201d") ||
+			!strings.Contains(md, "Left out by request: \u201cEast\u201d (4 values, 0 missing)") {
+			t.Errorf("the Markdown report does not say which groups were renamed and left out:\n%.400s", md)
 		}
 		if err := chromedp.Do(b.ctx, chromedp.Reload()); err != nil {
 			t.Fatal(err)
@@ -599,18 +620,7 @@ func TestPage(t *testing.T) {
 
 	t.Run("the HTML report holds the decision and keeps labels as text", func(t *testing.T) {
 		b.analyse(t, "<i>Ward</i>,B\n1,2\n3,4\n5,6\n")
-		// catch the file instead of saving it
-		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`URL.createObjectURL = (blob) => { window.savedBlob = blob; return "data:,"; }; HTMLAnchorElement.prototype.click = () => {}; true`)); err != nil {
-			t.Fatal(err)
-		}
-		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("save-html").click(); true`)); err != nil {
-			t.Fatal(err)
-		}
-		html, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`window.savedBlob.text()`, chromedp.EvalAwaitPromise))
-		if err != nil {
-			_, console := b.snapshot()
-			t.Fatal(err, console)
-		}
+		html := b.saved(t, "save-html")
 		decision := b.text(t, "#decision")
 		escaped := strings.NewReplacer("&", "&amp;", "<", "&lt;", ">", "&gt;", `"`, "&quot;", "'", "&#39;").Replace(decision)
 		if !strings.Contains(html, escaped) || !strings.Contains(html, "&lt;i&gt;Ward&lt;/i&gt;") || strings.Contains(html, "<i>Ward") || !strings.Contains(html, "<svg") {
