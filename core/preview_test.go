@@ -6,6 +6,8 @@ import (
 	"testing"
 )
 
+// TestPreview: how texts are read, checked against the texts themselves
+// (hand-worked: cells, groups with their counts, the places of bad cells).
 func TestPreview(t *testing.T) {
 	tests := []struct {
 		name     string
