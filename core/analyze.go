@@ -161,6 +161,11 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	if err != nil {
 		return nil, err
 	}
+	return analyzeTable(ctx, t, s, progress)
+}
+
+// analyzeTable applies the group edits to a table just read and analyses it.
+func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Progress) (*Result, error) {
 	if err := t.Regroup(s.edits); err != nil {
 		return nil, err
 	}

@@ -47,6 +47,14 @@ const (
 	MaxSeed = 1<<53 - 1
 )
 
+// ForLabels drops the group edits that name labels not among labels (see
+// table.Edits.For).
+func (o Options) ForLabels(labels []string) Options {
+	e := table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}.For(labels)
+	o.Order, o.Exclude, o.Rename = e.Order, e.Exclude, e.Rename
+	return o
+}
+
 // Defaults are the settings used where none is given, written out, for the
 // page to show: the one place the defaults are kept is here.
 func Defaults() Options {

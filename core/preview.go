@@ -1,6 +1,7 @@
 package core
 
 import (
+	"context"
 	"errors"
 
 	"midrank/core/jsonlite"
@@ -32,37 +33,59 @@ type PreviewRow struct {
 // PreviewOf reads data with the reading options of opt (layout, separator,
 // decimal mark); the group edits and test settings play no part.
 func PreviewOf(data []byte, opt Options) Preview {
-	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Problems: []ProblemDetail{}}
-	fail := func(err error) Preview {
-		d := Detail(err)
-		p.Problems, p.Option, p.Message = d.Problems, d.Option, &d.Message
-		return p
-	}
-	s, err := opt.validate()
-	if err != nil {
-		return fail(err)
-	}
-	for _, r := range table.Records(data, s.read.Separator, PreviewRows) {
-		p.Rows = append(p.Rows, PreviewRow{Line: r.Line, Cells: r.Cells})
-	}
-	t, err := table.Parse(data, s.read)
-	var ps table.Problems
-	if t != nil {
-		p.Input = describeInput(t) // how it was read, even when reading stopped
-	}
-	if t != nil && (err == nil || errors.As(err, &ps)) {
-		counts := make([]int, len(t.Labels))
-		for _, g := range t.Groups {
-			counts[g]++
-		}
-		for g, label := range t.Labels {
-			p.Groups = append(p.Groups, Left{Label: label, N: counts[g], Missing: t.Missing[g]})
-		}
-	}
-	if err != nil {
-		return fail(err)
-	}
+	p, _, _, _ := read(data, opt)
 	return p
+}
+
+// Workspace is what the page asks for as the text is typed: the preview,
+// given to onPreview as soon as the text is read, and the analysis, from
+// the same reading. Group edits that name labels not in the text are left
+// out rather than refused (see table.Edits.For), so that they wait while a
+// label is being retyped.
+func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Preview), progress Progress) (*Result, error) {
+	p, s, t, err := read(data, opt)
+	onPreview(p)
+	if err != nil {
+		return nil, err
+	}
+	labels := make([]string, len(p.Groups))
+	for i, g := range p.Groups {
+		labels[i] = g.Label
+	}
+	s.edits = s.edits.For(labels)
+	return analyzeTable(ctx, t, s, progress)
+}
+
+// read validates the options, reads the text and describes it; the table
+// is nil when the text cannot be analysed.
+func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
+	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Problems: []ProblemDetail{}}
+	s, err := opt.validate()
+	if err == nil {
+		for _, r := range table.Records(data, s.read.Separator, PreviewRows) {
+			p.Rows = append(p.Rows, PreviewRow{Line: r.Line, Cells: r.Cells})
+		}
+		var t *table.Table
+		if t, err = table.Parse(data, s.read); t != nil {
+			p.Input = describeInput(t) // how it was read, even when reading stopped
+		}
+		var ps table.Problems
+		if t != nil && (err == nil || errors.As(err, &ps)) {
+			counts := make([]int, len(t.Labels))
+			for _, g := range t.Groups {
+				counts[g]++
+			}
+			for g, label := range t.Labels {
+				p.Groups = append(p.Groups, Left{Label: label, N: counts[g], Missing: t.Missing[g]})
+			}
+		}
+		if err == nil {
+			return p, s, t, nil
+		}
+	}
+	d := Detail(err)
+	p.Problems, p.Option, p.Message = d.Problems, d.Option, &d.Message
+	return p, s, nil, err
 }
 
 // EncodePreview renders a preview as JSON.

@@ -2,6 +2,7 @@ package core
 
 import (
 	"bytes"
+	"context"
 	"fmt"
 	"testing"
 )
@@ -67,4 +68,35 @@ func ExamplePreviewOf() {
 	// Output:
 	// wide semicolon comma 3 [{A 2 0} {B 1 0}]
 	// line 2, column 2 (group "B"): "x" is not a number; correct the cell, or write NA there to mark the value as missing.
+}
+
+// TestWorkspace: one reading gives the preview (groups as written, before
+// the edits) and the analysis, which leaves out edits naming absent labels
+// where Analyze refuses them, and otherwise answers as Analyze does.
+func TestWorkspace(t *testing.T) {
+	data := []byte("North,South,East\n3,8,2\n5,6,1\n4,9,3\n")
+	opt := Options{Order: []string{"East", "West"}, Exclude: []string{"South"}, Rename: map[string]string{"Nort": "N"}}
+	var p Preview
+	r, err := Workspace(context.Background(), data, opt, func(got Preview) { p = got }, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if fmt.Sprint(p.Groups) != "[{North 3 0} {South 3 0} {East 3 0}]" {
+		t.Errorf("preview groups %v", p.Groups)
+	}
+	if _, err := Analyze(data, opt); err == nil {
+		t.Error("Analyze accepted edits that name absent labels")
+	}
+	want, err := Analyze(data, Options{Order: []string{"East"}, Exclude: []string{"South"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, _ := Encode(r)
+	if w, _ := Encode(want); !bytes.Equal(got, w) {
+		t.Errorf("Workspace\n%s\nAnalyze with the edits that apply\n%s", got, w)
+	}
+	_, err = Workspace(context.Background(), []byte("A,B\n1,x\n"), Options{}, func(got Preview) { p = got }, nil)
+	if err == nil || len(p.Problems) != 1 || *p.Problems[0].Line != 2 {
+		t.Errorf("unreadable cell: error %v, preview problems %+v", err, p.Problems)
+	}
 }

@@ -1,7 +1,8 @@
 // Worker: owns Go's wasm_exec.js and the statistics module, so the page never
 // freezes. The page compiles the module once and sends it to every worker it
 // starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
-// data, options, edits}, {id, kind: "page", list, offset, count},
+// data, options, edits} (answered by the module's workspace),
+// {id, kind: "page", list, offset, count},
 // {id, kind: "link", data, options, edits} and {id, kind: "open-link",
 // fragment}; replies: {id, json}. For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
@@ -29,25 +30,10 @@ ready.catch((err) => postMessage({ kind: "failed", message: String(err) }));
 self.addEventListener("securitypolicyviolation", (e) =>
   postMessage({ kind: "blocked", what: e.blockedURI + " (" + e.effectiveDirective + ")" }));
 
-// applicable keeps the group edits that name groups of this text, so that
-// edits made for a label survive while the label is being retyped.
-function applicable(edits, groups) {
-  const labels = new Set(groups.map((g) => g.label));
-  const rename = {};
-  for (const [from, to] of Object.entries(edits.rename || {})) {
-    if (labels.has(from) && to.trim() !== "" && to !== from) rename[from] = to;
-  }
-  return {
-    order: (edits.order || []).filter((l) => labels.has(l)),
-    exclude: (edits.exclude || []).filter((l) => labels.has(l)),
-    rename,
-  };
-}
-
-// withEdits is the module's options JSON: the settings, and the edits that
-// apply to the groups of the text's preview.
-function withEdits(q, preview) {
-  return JSON.stringify({ ...q.options, ...applicable(q.edits || {}, JSON.parse(preview).groups || []) });
+// request is the module's options JSON: the settings and the group edits
+// (the module leaves out edits naming groups the text does not have).
+function request(q) {
+  return JSON.stringify({ ...q.options, ...q.edits });
 }
 
 onmessage = async (event) => {
@@ -63,18 +49,15 @@ onmessage = async (event) => {
       json = m.page(q.list, q.offset, q.count);
       break;
     case "link":
-      json = m.link(q.data, withEdits(q, m.preview(q.data, JSON.stringify(q.options))));
+      json = m.link(q.data, request(q));
       break;
     case "open-link":
       json = m.openLink(q.fragment);
       break;
-    default: {
-      const bytes = new TextEncoder().encode(q.data);
-      const preview = m.preview(bytes, JSON.stringify(q.options));
-      postMessage({ id: q.id, kind: "preview", json: preview });
-      json = m.analyze(bytes, withEdits(q, preview),
+    default:
+      json = m.workspace(new TextEncoder().encode(q.data), request(q),
+        (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
         (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
-    }
   }
   postMessage({ id: q.id, kind: q.kind, json });
 };

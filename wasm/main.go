@@ -4,6 +4,7 @@
 //
 //	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
 //	globalThis.midrank.preview(data, optionsJSON) → previewJSON
+//	globalThis.midrank.workspace(data, optionsJSON, onPreview[, onProgress]) → responseJSON
 //	globalThis.midrank.page(list, offset, count) → pageJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
@@ -18,7 +19,10 @@
 // per-value ranking in text order ("ranks") or by rank ("ranked") or the tie table ("ties") of the last analysis
 // in pieces, for inputs too large to list in one response. preview gives
 // core.Preview: the text as a grid, how it was read, its groups as written
-// and every cell that could not be read.
+// and every cell that could not be read. workspace is what the page uses:
+// one reading of the text serves onPreview(previewJSON), called first, and
+// the analysis, with group edits that name absent labels left out; link
+// leaves them out too.
 package main
 
 import (
@@ -42,13 +46,14 @@ var last *core.Result
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
-		"analyze":  js.FuncOf(analyze),
-		"preview":  js.FuncOf(preview),
-		"page":     js.FuncOf(page),
-		"link":     js.FuncOf(shareLink),
-		"openLink": js.FuncOf(openLink),
-		"version":  core.Version,
-		"defaults": string(core.Defaults().JSON()),
+		"analyze":   js.FuncOf(analyze),
+		"preview":   js.FuncOf(preview),
+		"workspace": js.FuncOf(workspace),
+		"page":      js.FuncOf(page),
+		"link":      js.FuncOf(shareLink),
+		"openLink":  js.FuncOf(openLink),
+		"version":   core.Version,
+		"defaults":  string(core.Defaults().JSON()),
 	}))
 }
 
@@ -64,7 +69,28 @@ func analyze(_ js.Value, args []js.Value) any {
 	if len(args) > 2 && args[2].Type() == js.TypeFunction {
 		progress = throttled(args[2])
 	}
-	r, err := core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progress)
+	return answer(core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progress))
+}
+
+func workspace(_ js.Value, args []js.Value) any {
+	if len(args) < 3 || args[2].Type() != js.TypeFunction {
+		return string(core.EncodeError(errors.New("workspace(data, optionsJSON, onPreview[, onProgress]) needs three arguments")))
+	}
+	opt, err := optionsOf(args)
+	if err != nil {
+		return string(core.EncodeError(err))
+	}
+	onPreview := args[2]
+	var progress core.Progress
+	if len(args) > 3 && args[3].Type() == js.TypeFunction {
+		progress = throttled(args[3])
+	}
+	return answer(core.Workspace(context.Background(), bytesOf(args[0]), opt,
+		func(p core.Preview) { onPreview.Invoke(string(core.EncodePreview(p))) }, progress))
+}
+
+// answer is the JSON of an analysis, kept for page, or of its error.
+func answer(r *core.Result, err error) any {
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
@@ -105,11 +131,16 @@ func shareLink(_ js.Value, args []js.Value) any {
 	if len(args) < 2 {
 		return string(core.EncodeError(errors.New("link(data, optionsJSON) needs two arguments")))
 	}
-	opt, err := core.DecodeOptions([]byte(args[1].String()))
+	opt, err := optionsOf(args)
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
-	fragment, err := core.ShareLink(bytesOf(args[0]), opt)
+	data := bytesOf(args[0])
+	var labels []string
+	for _, g := range core.PreviewOf(data, opt).Groups {
+		labels = append(labels, g.Label)
+	}
+	fragment, err := core.ShareLink(data, opt.ForLabels(labels))
 	if err != nil {
 		return string(core.EncodeError(err))
 	}

@@ -83,6 +83,24 @@ func TestPreview(t *testing.T) {
 	}
 }
 
+// TestWorkspace: the preview comes first, through its callback, and the
+// answer is analyze's for the edits that apply.
+func TestWorkspace(t *testing.T) {
+	m := module()
+	data := "A,B,C\n1,2,3\n4,5,6\n7,8,9\n"
+	var previews []string
+	cb := js.FuncOf(func(_ js.Value, args []js.Value) any {
+		previews = append(previews, args[0].String())
+		return nil
+	})
+	defer cb.Release()
+	got := m.Call("workspace", data, `{"exclude":["B","Z"]}`, cb).String()
+	want := m.Call("analyze", data, `{"exclude":["B"]}`).String()
+	if got != want || len(previews) != 1 || !strings.Contains(previews[0], `"groups":[{"label":"A"`) {
+		t.Errorf("workspace = %.200s with previews %q, want %.200s", got, previews, want)
+	}
+}
+
 func TestProgressCallback(t *testing.T) {
 	m := module()
 	calls := 0

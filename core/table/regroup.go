@@ -15,6 +15,35 @@ type Edits struct {
 	Rename  map[string]string // the name to show for a group instead of its label
 }
 
+// For keeps the edits that name groups among labels, dropping the rest and
+// renamings to an empty or unchanged name, so that edits made for a label
+// can wait while the label is being retyped instead of stopping the reading.
+func (e Edits) For(labels []string) Edits {
+	has := make(map[string]bool, len(labels))
+	for _, l := range labels {
+		has[l] = true
+	}
+	keep := func(list []string) []string {
+		var out []string
+		for _, l := range list {
+			if has[l] {
+				out = append(out, l)
+			}
+		}
+		return out
+	}
+	out := Edits{Order: keep(e.Order), Exclude: keep(e.Exclude)}
+	for from, to := range e.Rename {
+		if has[from] && to != "" && to != from {
+			if out.Rename == nil {
+				out.Rename = map[string]string{}
+			}
+			out.Rename[from] = to
+		}
+	}
+	return out
+}
+
 // Excluded is a group left out by an edit, with what it held.
 type Excluded struct {
 	Label   string

@@ -287,3 +287,18 @@ func ExampleTable_Regroup() {
 	fmt.Println(t.Labels, t.Source, t.Missing, len(t.Values), t.Excluded)
 	// Output: [East N] [East North] [1 0] 3 [{South 2 0}]
 }
+
+// TestEditsFor: edits naming absent labels, and renamings that change
+// nothing, are left out; the others stay as they were.
+func TestEditsFor(t *testing.T) {
+	e := Edits{Order: []string{"C", "X", "A"}, Exclude: []string{"Y", "B"},
+		Rename: map[string]string{"A": "North", "B": "", "C": "C", "Z": "Far"}}
+	got := e.For([]string{"A", "B", "C"})
+	want := Edits{Order: []string{"C", "A"}, Exclude: []string{"B"}, Rename: map[string]string{"A": "North"}}
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("For = %+v, want %+v", got, want)
+	}
+	if got := (Edits{Order: []string{"X"}}).For([]string{"A"}); !reflect.DeepEqual(got, Edits{}) {
+		t.Errorf("For of edits that all name absent labels = %+v, want none", got)
+	}
+}
