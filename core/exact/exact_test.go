@@ -112,26 +112,32 @@ func TestAgainstEnumeration(t *testing.T) {
 			n += s
 		}
 		for name, make := range scoreSets {
-			scores := make(n)
-			want := bruteForce(sizes, scores)
-			// dense arrays where they fit, and hash tables throughout
-			for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
-				got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
-				if err != nil {
-					t.Fatalf("%v %s: %v", sizes, name, err)
-				}
-				if len(got.Stat) != len(want) {
-					t.Errorf("%v %s (%+v): %d attained values, enumeration has %d", sizes, name, lim, len(got.Stat), len(want))
-					continue
-				}
-				for i, s := range got.Stat {
-					if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
-						t.Errorf("%v %s: P(T=%d) = %v, enumeration %v", sizes, name, s, got.Prob[i], want[s])
-					}
-				}
+			if err := matchesEnumeration(sizes, make(n)); err != nil {
+				t.Errorf("%s: %v", name, err)
 			}
 		}
 	}
+}
+
+// matchesEnumeration compares Permutation, with dense arrays where they fit
+// and with hash tables throughout, with complete enumeration to 1e-12.
+func matchesEnumeration(sizes []int, scores []int64) error {
+	want := bruteForce(sizes, scores)
+	for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
+		got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
+		if err != nil {
+			return fmt.Errorf("%v %v: %v", sizes, scores, err)
+		}
+		if len(got.Stat) != len(want) {
+			return fmt.Errorf("%v %v (%+v): %d attained values, enumeration has %d", sizes, scores, lim, len(got.Stat), len(want))
+		}
+		for i, s := range got.Stat {
+			if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
+				return fmt.Errorf("%v %v (%+v): P(T=%d) = %v, enumeration %v", sizes, scores, lim, s, got.Prob[i], want[s])
+			}
+		}
+	}
+	return nil
 }
 
 func TestCritical(t *testing.T) {
@@ -206,20 +212,8 @@ func FuzzAgainstEnumeration(f *testing.F) {
 		if scores[n-1] == 0 {
 			return // a single block: nothing to deal
 		}
-		want := bruteForce(sizes, scores)
-		for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
-			got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
-			if err != nil {
-				t.Fatalf("%v %v: %v", sizes, scores, err)
-			}
-			if len(got.Stat) != len(want) {
-				t.Fatalf("%v %v (%+v): %d attained values, enumeration has %d", sizes, scores, lim, len(got.Stat), len(want))
-			}
-			for i, s := range got.Stat {
-				if math.Abs(got.Prob[i]-want[s]) > 1e-12 {
-					t.Fatalf("%v %v (%+v): P(T=%d) = %v, enumeration %v", sizes, scores, lim, s, got.Prob[i], want[s])
-				}
-			}
+		if err := matchesEnumeration(sizes, scores); err != nil {
+			t.Fatal(err)
 		}
 	})
 }

@@ -186,6 +186,18 @@ func (b *browser) analyse(t *testing.T, data string) {
 	b.waitFor(t, `/^(Done|The data could not)/.test(document.getElementById("status").textContent)`)
 }
 
+// startLongRun starts a Monte Carlo analysis of data with 100 million
+// resamples and waits until it reports progress.
+func (b *browser) startLongRun(t *testing.T, data string) {
+	t.Helper()
+	if err := chromedp.Do(b.ctx,
+		chromedp.SetValue("#data", data), chromedp.SetValue("#pvalue", "monte-carlo"),
+		chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+}
+
 // saved presses a download button and returns the file the page made,
 // caught instead of saved.
 func (b *browser) saved(t *testing.T, button string) string {
@@ -513,12 +525,7 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("Cancel stops a long Monte Carlo run at once", func(t *testing.T) {
-		if err := chromedp.Do(b.ctx,
-			chromedp.SetValue("#data", string(demo)), chromedp.SetValue("#pvalue", "monte-carlo"),
-			chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
-			t.Fatal(err)
-		}
-		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+		b.startLongRun(t, string(demo))
 		b.waitFor(t, `!document.getElementById("progress").hidden`)
 		if err := chromedp.Do(b.ctx, chromedp.Click("#cancel")); err != nil {
 			t.Fatal(err)
@@ -536,12 +543,7 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("a new analysis stops a running one instead of waiting for it", func(t *testing.T) {
-		if err := chromedp.Do(b.ctx,
-			chromedp.SetValue("#data", string(demo)), chromedp.SetValue("#pvalue", "monte-carlo"),
-			chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
-			t.Fatal(err)
-		}
-		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+		b.startLongRun(t, string(demo))
 		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "asymptotic"), chromedp.SetValue("#resamples", "100000")); err != nil {
 			t.Fatal(err)
 		}
