@@ -65,11 +65,7 @@ func analyze(_ js.Value, args []js.Value) any {
 	if err != nil {
 		return string(core.EncodeError(err))
 	}
-	var progress core.Progress
-	if len(args) > 2 && args[2].Type() == js.TypeFunction {
-		progress = throttled(args[2])
-	}
-	return answer(core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progress))
+	return answer(core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progressOf(args, 2)))
 }
 
 func workspace(_ js.Value, args []js.Value) any {
@@ -81,12 +77,8 @@ func workspace(_ js.Value, args []js.Value) any {
 		return string(core.EncodeError(err))
 	}
 	onPreview := args[2]
-	var progress core.Progress
-	if len(args) > 3 && args[3].Type() == js.TypeFunction {
-		progress = throttled(args[3])
-	}
 	return answer(core.Workspace(context.Background(), bytesOf(args[0]), opt,
-		func(p core.Preview) { onPreview.Invoke(string(core.EncodePreview(p))) }, progress))
+		func(p core.Preview) { onPreview.Invoke(string(core.EncodePreview(p))) }, progressOf(args, 3)))
 }
 
 // answer is the JSON of an analysis, kept for page, or of its error.
@@ -174,6 +166,14 @@ func optionsOf(args []js.Value) (core.Options, error) {
 		return core.DecodeOptions([]byte(args[1].String()))
 	}
 	return core.Options{}, nil
+}
+
+// progressOf is the progress callback in args[i], if one is given.
+func progressOf(args []js.Value, i int) core.Progress {
+	if len(args) > i && args[i].Type() == js.TypeFunction {
+		return throttled(args[i])
+	}
+	return nil
 }
 
 // throttled calls fn when the progress has moved by a percent or more.
