@@ -14,13 +14,14 @@ import (
 
 // Budgets of the exact method (see exact.Limits). Dense layers take 8 bytes
 // a cell, two layers at a time; the time grows with the cells of all layers,
-// about 25–50 ns each natively. Hash tables take about 48 bytes a state at
-// the peak. An explicit request may use more than the automatic choice,
-// which must leave time for a fallback.
+// about 20–50 ns each natively (more with more groups) and three to four
+// times that in the module. Hash tables take about 48 bytes a state at the
+// peak. An explicit request may use more than the automatic choice, which
+// must leave time for a fallback.
 const (
-	ExactCells      = 30_000_000 // --pvalue exact: dense layers of at most 240 MB, under 512 MB in all
+	ExactCells      = 40_000_000 // --pvalue exact: two layers of at most 320 MB together, under 512 MB at the peak
 	ExactStates     = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
-	AutoExactWork   = 40_000_000 // --pvalue auto: dense within about a second natively
+	AutoExactWork   = 25_000_000 // --pvalue auto: within about a second natively
 	AutoExactStates = 1_000_000  // --pvalue auto: hash layers within this
 	// HeavyTies is the tie correction below which the automatic choice does
 	// not trust the chi-square approximation even for groups of 5 or more.

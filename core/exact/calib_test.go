@@ -29,3 +29,29 @@ func TestEstimateStates(t *testing.T) {
 		}
 	}
 }
+
+// TestLayoutIsTight: the rows of the arrays hold hardly a cell that no state
+// reaches (at least 97% are reached, so the memory budget counts states, not
+// air), and the cells that Permutation plans for are the cells it makes.
+func TestLayoutIsTight(t *testing.T) {
+	for _, c := range []struct {
+		sizes  []int
+		blocks []Block
+	}{
+		{[]int{4, 4, 4, 4, 4}, untied(20)}, {[]int{6, 6, 6, 6}, untied(24)}, {[]int{10, 10, 10}, untied(30)},
+		{[]int{3, 5, 7}, untied(15)}, {[]int{2, 3, 4, 5}, untied(14)}, {[]int{4, 4}, untied(8)},
+		{[]int{6, 6, 6, 6}, distinct(24, 5)}, {[]int{5, 5, 6}, distinct(16, 4)},
+	} {
+		cells, states := 0, 0
+		lim := Limits{MaxCells: 1 << 24, layer: func(c, s int) { cells, states = cells+c, states+s }}
+		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
+			t.Fatal(err)
+		}
+		s, _ := newSpace(c.sizes, c.blocks)
+		sh := s.newShape()
+		_, planned, _ := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) })
+		if planned != cells || float64(states) < 0.97*float64(cells) {
+			t.Errorf("sizes %v, %d blocks: %d cells planned, %d made, %d states reached", c.sizes, len(c.blocks), planned, cells, states)
+		}
+	}
+}

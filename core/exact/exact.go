@@ -22,9 +22,11 @@
 // & Röhmel (1986) for equal sizes.
 //
 // The states of a layer with the same counts form a bucket, held as a dense
-// array over the stored sums (see Permutation for the layout and its bounds),
-// so that the work is a few passes over arrays; where the arrays would be too
-// large, as with many small groups, the buckets are hash tables instead.
+// array in rows: the sums of all stored groups but the last one fix a row,
+// which holds the sums of that one that bounds on the sums of every set of
+// groups allow (see layout), so that hardly a cell goes unused and the work
+// is a few passes over arrays; where the row tables would be too large, as
+// with many small groups, the buckets are hash tables instead.
 package exact
 
 import (
@@ -83,12 +85,13 @@ type TooLargeError struct{ What string }
 func (e *TooLargeError) Error() string { return ErrTooLarge.Error() + ": " + e.What }
 func (e *TooLargeError) Unwrap() error { return ErrTooLarge }
 
-// Limits bound an exact computation. A layer's buckets are dense arrays of
-// cells (8 bytes each, one per combination of sums in the bucket's box)
-// when the largest layer has at most MaxCells of them, and then all layers
-// may hold at most MaxWork (the time grows with it); otherwise hash tables
-// of the states reached (about 32 bytes each), at most MaxStates a layer.
-// Two layers are alive at a time.
+// Limits bound an exact computation. Two layers are alive at a time: the
+// one being dealt and the next. Buckets are dense arrays of cells (8 bytes
+// each, see bucket; a row takes the room of two cells) when any two
+// consecutive layers hold at most MaxCells together, and then all layers
+// may hold at most MaxWork cells (the time grows with it); otherwise hash
+// tables of the states reached (about 32 bytes each), at most MaxStates a
+// layer.
 type Limits struct {
 	MaxCells  int
 	MaxWork   int // 0 for no limit
@@ -154,29 +157,42 @@ type Progress func(done, total int)
 
 // Permutation computes the distribution of T for groups of the given sizes
 // (each ≥ 1) and scores given as ascending blocks. It stops with ctx, and
-// refuses with a *TooLargeError before starting when Plan exceeds lim.
+// refuses with a *TooLargeError before starting when the layers it would
+// build exceed lim.
 //
 // A layer is split into buckets by the groups' counts (in canonical order,
-// which depends on the counts alone). A bucket is a dense array over the
-// stored groups' sums, bounded by what those counts allow: the sums of the
-// c smallest and the c largest scores dealt, narrowed by the total. All
-// successors of a bucket under one deal of a block fall in one bucket of the
-// next layer, so the work streams through a few arrays with no hashing.
+// which depends on the counts alone). A bucket holds the stored groups' sums
+// that those counts allow, in rows (see bucket). All successors of a bucket
+// under one deal of a block fall in one bucket of the next layer, so the
+// work streams through a few arrays with no hashing.
 func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress) (*Distribution, error) {
 	s, err := newSpace(sizes, blocks)
 	if err != nil {
 		return nil, err
 	}
-	largest, work := s.plan()
-	if largest >= tooMany {
+	// The boxes bound the arrays; when they do not settle the question,
+	// the rows are laid out to count the cells, which costs a few cells'
+	// work a row, so not beyond MaxCells/2 rows in all. Where the arrays do
+	// not fit, hash tables would not either (a state takes the room of four
+	// cells, and hardly a cell goes unused) unless there are too many rows
+	// for the arrays to be worth laying out, as with many small groups.
+	largest, work, rows := s.plan(s.boxSize)
+	switch {
+	case largest >= tooMany:
 		return nil, &TooLargeError{"the states cannot be numbered in 62 bits"}
-	}
-	s.dense = largest <= lim.MaxCells
-	if s.dense && lim.MaxWork > 0 && work > lim.MaxWork {
-		// hash tables would be slower still
-		return nil, &TooLargeError{fmt.Sprintf("%d states in all, more than %d", work, lim.MaxWork)}
-	}
-	if !s.dense {
+	case rows <= lim.MaxCells/2:
+		if largest > lim.MaxCells || (lim.MaxWork > 0 && work > lim.MaxWork) {
+			sh := s.newShape()
+			largest, work, _ = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) })
+		}
+		if largest > lim.MaxCells {
+			return nil, &TooLargeError{fmt.Sprintf("two layers would take the room of %d cells, more than %d", largest, lim.MaxCells)}
+		}
+		if lim.MaxWork > 0 && work > lim.MaxWork {
+			return nil, &TooLargeError{fmt.Sprintf("%d states in all, more than %d", work, lim.MaxWork)}
+		}
+		s.dense = true
+	default:
 		if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
 			return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
 		}
@@ -223,6 +239,7 @@ type space struct {
 	cuts      []int     // the number of scores dealt after each block
 	countBits []uint    // bits of each group's count, in a bucket's key
 	binom     []float64 // binomial coefficients C(a, b) at a*(n+1)+b
+	subsets   []uint    // sets of the groups before group k−2 whose sums bound a row (bit i: group i)
 	dense     bool      // buckets are arrays rather than hash tables
 }
 
@@ -270,18 +287,32 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 			s.binom[a*(s.n+1)+b] = s.binom[(a-1)*(s.n+1)+b-1] + s.binom[(a-1)*(s.n+1)+b]
 		}
 	}
+	// Every set of the groups that fix a row bounds it, or with many groups
+	// (2^(k−2) sets) each one alone and all of them.
+	if k <= 7 {
+		for set := range uint(1) << (k - 2) {
+			s.subsets = append(s.subsets, set)
+		}
+	} else {
+		s.subsets = append(s.subsets, 0)
+		for i := range k - 2 {
+			s.subsets = append(s.subsets, 1<<i)
+		}
+		s.subsets = append(s.subsets, 1<<(k-2)-1)
+	}
 	return s, nil
 }
 
 // box gives, for groups with these counts after t scores are dealt, the
 // least and greatest sum of each group: the c smallest and c largest
 // scores dealt, narrowed by the sums of the other groups adding up to the
-// total. It returns the number of cells of the stored groups' sums.
+// total. It returns the number of combinations of the stored groups' sums
+// in the box, which bounds the cells of its layout.
 func (s *space) box(counts []int, t int, lo, hi []int64) int {
 	k := len(s.sizes)
 	var loSum, hiSum int64
 	for i, c := range counts {
-		lo[i], hi[i] = s.prefix[c], s.prefix[t]-s.prefix[t-c]
+		lo[i], hi[i] = s.prefix[c], s.top(t, c)
 		loSum += lo[i]
 		hiSum += hi[i]
 	}
@@ -297,7 +328,7 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 	// being at most hi.
 	for a := 0; a < k; {
 		b := a
-		for b+1 < k && s.class[b+1] == s.class[a] && counts[b+1] == counts[a] {
+		for b+1 < k && s.sameRun(counts, b) {
 			b++
 		}
 		if L := int64(b - a + 1); L > 1 {
@@ -324,6 +355,15 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 	return cells
 }
 
+// top is the sum of the c largest of the t smallest scores.
+func (s *space) top(t, c int) int64 { return s.prefix[t] - s.prefix[t-c] }
+
+// sameRun tells whether groups i and i+1 are of one class with equal
+// counts, so that in canonical order sum i ≤ sum i+1.
+func (s *space) sameRun(counts []int, i int) bool {
+	return s.class[i+1] == s.class[i] && counts[i+1] == counts[i]
+}
+
 func floorDiv(a, b int64) int64 {
 	q := a / b
 	if a%b != 0 && (a < 0) != (b < 0) {
@@ -345,13 +385,27 @@ func product(a, b int) int {
 	return a * b
 }
 
-// plan counts the cells of every layer: the largest layer and all of them.
-func (s *space) plan() (largest, work int) {
+// boxSize gives the cells of a bucket's box and its rows.
+func (s *space) boxSize(counts []int, t int) (cells, rows int) {
+	k := len(s.sizes)
+	lo, hi := make([]int64, k), make([]int64, k)
+	cells = s.box(counts, t, lo, hi)
+	if cells == 0 {
+		return 0, 0
+	}
+	return cells, cells / int(hi[k-2]-lo[k-2]+1)
+}
+
+// plan adds up size(counts, t), the cells and rows of a bucket, over the
+// buckets of each layer. It returns the largest room two consecutive
+// layers take, in cells (a row takes two, for its place in the row table),
+// and the cells and the rows of all layers.
+func (s *space) plan(size func(counts []int, t int) (cells, rows int)) (largest, cells, rows int) {
 	k := len(s.sizes)
 	counts := make([]int, k)
-	lo, hi := make([]int64, k), make([]int64, k)
+	before := 0 // the room of the layer before
 	for _, t := range s.cuts {
-		cells := 0
+		inLayer := 0
 		// every canonical count vector adding up to t: ascending within classes
 		var walk func(i, left int)
 		walk = func(i, left int) {
@@ -360,7 +414,9 @@ func (s *space) plan() (largest, work int) {
 					return
 				}
 				counts[i] = left
-				cells = min(cells+s.box(counts, t, lo, hi), tooMany)
+				c, r := size(counts, t)
+				inLayer = min(inLayer+c+2*r, tooMany)
+				cells, rows = min(cells+c, tooMany), min(rows+r, tooMany)
 				return
 			}
 			from := 0
@@ -373,32 +429,198 @@ func (s *space) plan() (largest, work int) {
 			}
 		}
 		walk(0, t)
-		largest = max(largest, cells)
-		work = min(work+cells, tooMany)
+		largest = max(largest, min(before+inLayer, tooMany))
+		before = inLayer
 	}
-	return largest, work
+	return largest, cells, rows
+}
+
+// shape is a dense bucket's layout as layout finds it, and its scratch.
+type shape struct {
+	lo, hi     []int64 // the box
+	first, off []int   // see bucket
+	sums       []int64
+	part       []int64    // for each set of subsets: the sum of its groups but the first
+	bound      [4][]int64 // and the least and greatest sum of its groups, then of them and group k−2
+}
+
+func (s *space) newShape() *shape {
+	k := len(s.sizes)
+	sh := &shape{lo: make([]int64, k), hi: make([]int64, k), sums: make([]int64, k), part: make([]int64, len(s.subsets))}
+	for i := range sh.bound {
+		sh.bound[i] = make([]int64, len(s.subsets))
+	}
+	return sh
+}
+
+// row adds a row whose group k−2 has the sums a … b (none when a > b).
+func (sh *shape) row(a, b int64) {
+	n := sh.first[len(sh.first)-1]
+	if a > b {
+		sh.off, sh.first = append(sh.off, n), append(sh.first, n)
+		return
+	}
+	sh.off, sh.first = append(sh.off, n-int(a)), append(sh.first, n+int(b-a+1))
+}
+
+// layout lays out the dense bucket with these counts after t scores are
+// dealt: the box that box gives, and in each row (a combination of the sums of
+// groups 0 … k−3 in the box) the sums of group k−2 that agree with every
+// bound below, which the states reached meet. It returns the cells and the
+// rows, and leaves the box and the row table in sh.
+//
+// The bounds: any set of groups holding C scores in all has a sum between
+// the C smallest and the C largest scores dealt (the sets of groups before
+// k−2, alone and with k−2, cover all sets, for the rest of a set holds the
+// rest of the scores); in a run of groups of equal counts the sums ascend;
+// the last group's sum, the total less the others, lies in its box. For
+// scores without ties these leave hardly a cell that no state reaches.
+func (s *space) layout(counts []int, t int, sh *shape) (cells, rows int) {
+	k := len(s.sizes)
+	q := k - 2 // the group whose sum runs along a row
+	lo, hi, sums, part, bound := sh.lo, sh.hi, sh.sums, sh.part, &sh.bound
+	sh.first, sh.off = append(sh.first[:0], 0), sh.off[:0]
+	if s.box(counts, t, lo, hi) == 0 {
+		return 0, 0
+	}
+	for j, set := range s.subsets {
+		c := 0
+		for i := range q {
+			if set&(1<<i) != 0 {
+				c += counts[i]
+			}
+		}
+		bound[0][j], bound[1][j] = s.prefix[c], s.top(t, c)
+		bound[2][j], bound[3][j] = s.prefix[c+counts[q]], s.top(t, c+counts[q])
+	}
+	total := s.prefix[t]
+	below := q > 0 && s.sameRun(counts, q-1) // sum k−3 ≤ sum k−2
+	above := s.sameRun(counts, q)            // sum k−2 ≤ the last sum
+	from, to := int64(0), int64(0)           // the first group's sums, where it fixes rows
+	if q > 0 {
+		from, to = lo[0], hi[0]
+	}
+	copy(sums, lo[:q])
+	for {
+		// groups 1 … k−3 are fixed: the first group's sums that their
+		// order and their sets allow
+		outer := int64(0)
+		for i := 1; i < q; i++ {
+			outer += sums[i]
+		}
+		first, last := from, to
+		for i := 1; i+1 < q; i++ {
+			if s.sameRun(counts, i) && sums[i] > sums[i+1] {
+				first = last + 1
+			}
+		}
+		if q > 1 && s.sameRun(counts, 0) {
+			last = min(last, sums[1])
+		}
+		for j, set := range s.subsets {
+			in := int64(0)
+			for i := 1; i < q; i++ {
+				if set&(1<<i) != 0 {
+					in += sums[i]
+				}
+			}
+			part[j] = in
+			if set&1 == 0 {
+				if in < bound[0][j] || in > bound[1][j] {
+					first = last + 1
+				}
+			} else {
+				first, last = max(first, bound[0][j]-in), min(last, bound[1][j]-in)
+			}
+		}
+		for s0 := from; s0 <= to; s0++ {
+			if s0 < first || s0 > last {
+				sh.row(1, 0)
+				continue
+			}
+			rest := total - outer - s0 // group k−2's sum and the last group's
+			a, b := max(lo[q], rest-hi[k-1]), min(hi[q], rest-lo[k-1])
+			for j, set := range s.subsets {
+				in := part[j]
+				if set&1 != 0 {
+					in += s0
+				}
+				a, b = max(a, bound[2][j]-in), min(b, bound[3][j]-in)
+			}
+			switch {
+			case below && q == 1:
+				a = max(a, s0)
+			case below:
+				a = max(a, sums[q-1])
+			}
+			if above {
+				b = min(b, floorDiv(rest, 2))
+			}
+			sh.row(a, b)
+		}
+		// the next combination of groups 1 … k−3, the second group's fastest
+		i := 1
+		for ; i < q; i++ {
+			if sums[i] < hi[i] {
+				sums[i]++
+				break
+			}
+			sums[i] = lo[i]
+		}
+		if i >= q {
+			break
+		}
+	}
+	return sh.first[len(sh.off)], len(sh.off)
 }
 
 // bucket holds the states of a layer whose groups have these counts: the
 // probability of each combination of the stored groups' sums (all groups
-// but the last, whose sum follows from the total), at the cell index
-// Σ (sᵢ − loᵢ)·strideᵢ of the bucket's box, in an array or a hash table.
+// but the last, whose sum follows from the total). A row is the
+// combinations that differ in the sum of group k−2, the last stored one,
+// only; its index is Σ (sᵢ − loᵢ)·strideᵢ over groups 0 … k−3. In an array,
+// each row holds the sums that layout allows, and a state's cell is
+// off[row] + the sum of group k−2; in a hash table, the key is
+// row·width + (s − lo) of group k−2.
 type bucket struct {
 	counts []int   // every group's count, canonical order
 	lo     []int64 // each stored group's least sum
 	width  []int   // and how many sums it can have
-	stride []int   // index step of each stored group's sum
+	stride []int   // row index step of the sums of groups 0 … k−3
 	p      []float64
+	first  []int // the index of each row's first cell, and len(p) at the end
+	off    []int
 	table  *table
 }
 
 func (b *bucket) add(idx int, p float64) {
-	if b.p != nil {
+	if b.table == nil {
 		b.p[idx] += p
 	} else {
 		b.table.add(uint64(idx), p)
 	}
 }
+
+// cell is the index of the state in row whose group k−2 has the sum v.
+func (b *bucket) cell(row int, v int64) int {
+	if b.table == nil {
+		return b.off[row] + int(v)
+	}
+	q := len(b.lo) - 1
+	return row*b.width[q] + int(v-b.lo[q])
+}
+
+// rowOf is the row of groups 0 … k−3 with these sums.
+func (b *bucket) rowOf(sums []int64) int {
+	row := 0
+	for i, st := range b.stride {
+		row += int(sums[i]-b.lo[i]) * st
+	}
+	return row
+}
+
+// index is the cell of the sums.
+func (b *bucket) index(sums []int64) int { return b.cell(b.rowOf(sums), sums[len(b.lo)-1]) }
 
 // states counts the states that have a probability.
 func (b *bucket) states() int {
@@ -414,19 +636,11 @@ func (b *bucket) states() int {
 	return n
 }
 
-// index is the cell of the sums, which lie in the bucket's box.
-func (b *bucket) index(sums []int64) int {
-	idx := 0
-	for i, st := range b.stride {
-		idx += int(sums[i]-b.lo[i]) * st
-	}
-	return idx
-}
-
 // each calls fn with every state of b that has a probability, sums holding
 // every group's sum.
 func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p float64)) error {
 	m := len(b.lo) // stored groups
+	q := m - 1
 	if b.table != nil {
 		for j, e := range b.table.slots {
 			if e.key == empty {
@@ -435,10 +649,12 @@ func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p 
 			if j&0xffff == 0xffff && ctx.Err() != nil {
 				return ctx.Err()
 			}
-			idx, stored := int(e.key), int64(0)
-			for i := m - 1; i >= 0; i-- {
-				sums[i] = b.lo[i] + int64(idx/b.stride[i])
-				idx %= b.stride[i]
+			row := int(e.key) / b.width[q]
+			sums[q] = b.lo[q] + int64(int(e.key)%b.width[q])
+			stored := sums[q]
+			for i := q - 1; i >= 0; i-- {
+				sums[i] = b.lo[i] + int64(row/b.stride[i])
+				row %= b.stride[i]
 				stored += sums[i]
 			}
 			sums[m] = total - stored
@@ -447,77 +663,75 @@ func (b *bucket) each(ctx context.Context, total int64, sums []int64, fn func(p 
 		return nil
 	}
 	for w := b.walk(total, sums); w.more(); w.next() {
-		if w.start&0xfffff < b.width[0] && ctx.Err() != nil {
+		if w.row&0xffff == 0 && ctx.Err() != nil {
 			return ctx.Err()
 		}
-		first, last := sums[0], sums[m]
-		for x, p := range w.row() {
+		cells, v := w.cells()
+		for x, p := range cells {
 			if p != 0 {
-				sums[0], sums[m] = first+int64(x), last-int64(x)
+				sums[q] = v + int64(x)
+				sums[m] = w.rest - sums[q]
 				fn(p)
 			}
 		}
-		sums[0], sums[m] = first, last
 	}
 	return nil
 }
 
-// rows walks a dense bucket row by row: a row is the cells whose stored
-// sums differ in the first group's only. At each row sums holds every
-// group's sum for the row's first cell.
+// rows walks a dense bucket row by row. At each row sums holds the sums of
+// groups 0 … k−3.
 type rows struct {
-	b      *bucket
-	sums   []int64
-	total  int64
-	coord  []int // the place of the row's first cell in each stored group's range
-	stored int64 // the stored groups' sums
-	start  int   // the index of the row's first cell
+	b    *bucket
+	sums []int64
+	rest int64 // the sum of group k−2 and the last group's
+	row  int
 }
 
 func (b *bucket) walk(total int64, sums []int64) *rows {
-	w := &rows{b: b, sums: sums, total: total, coord: make([]int, len(b.lo))}
-	for i, lo := range b.lo {
+	w := &rows{b: b, sums: sums, rest: total}
+	for i, lo := range b.lo[:len(b.lo)-1] {
 		sums[i] = lo
-		w.stored += lo
+		w.rest -= lo
 	}
-	sums[len(b.lo)] = total - w.stored
 	return w
 }
 
-func (w *rows) more() bool     { return w.start < len(w.b.p) }
-func (w *rows) row() []float64 { return w.b.p[w.start : w.start+w.b.width[0]] }
+func (w *rows) more() bool { return w.row < len(w.b.off) }
 
-// next steps to the next row: the other sums turn like an odometer, the
-// second group's fastest.
+// cells gives the row's cells and the sum of group k−2 in the first.
+func (w *rows) cells() ([]float64, int64) {
+	b := w.b
+	first := b.first[w.row]
+	return b.p[first:b.first[w.row+1]], int64(first - b.off[w.row])
+}
+
+// next steps to the next row: the sums turn like an odometer, the first
+// group's fastest.
 func (w *rows) next() {
-	b, sums, m := w.b, w.sums, len(w.b.lo)
-	w.start += b.width[0]
-	for i := 1; i < m; i++ {
-		if w.coord[i]+1 < b.width[i] {
-			w.coord[i]++
+	b, sums := w.b, w.sums
+	w.row++
+	for i, lo := range b.lo[:len(b.lo)-1] {
+		if sums[i]-lo+1 < int64(b.width[i]) {
 			sums[i]++
-			w.stored++
-			break
+			w.rest--
+			return
 		}
-		w.stored -= int64(w.coord[i])
-		sums[i] -= int64(w.coord[i])
-		w.coord[i] = 0
+		w.rest += sums[i] - lo
+		sums[i] = lo
 	}
-	sums[m] = w.total - w.stored
 }
 
 // layer is a layer being built: its buckets by their counts.
 type layer struct {
-	s      *space
-	t      int // scores dealt
-	byKey  map[uint64]*bucket
-	cells  int
-	lo, hi []int64 // scratch
+	s     *space
+	t     int // scores dealt
+	byKey map[uint64]*bucket
+	cells int    // in arrays
+	shape *shape // scratch
 }
 
 func newLayer(s *space, t int) *layer {
-	k := len(s.sizes)
-	return &layer{s: s, t: t, byKey: map[uint64]*bucket{}, lo: make([]int64, k), hi: make([]int64, k)}
+	return &layer{s: s, t: t, byKey: map[uint64]*bucket{}, shape: s.newShape()}
 }
 
 // get returns the bucket for counts (in canonical order), made when new.
@@ -531,21 +745,26 @@ func (l *layer) get(counts []int) *bucket {
 	if b := l.byKey[key]; b != nil {
 		return b
 	}
-	k := len(counts)
-	cells := l.s.box(counts, l.t, l.lo, l.hi)
-	b := &bucket{counts: slices.Clone(counts), lo: slices.Clone(l.lo[:k-1]), width: make([]int, k-1), stride: make([]int, k-1)}
+	k, sh := len(counts), l.shape
+	b := &bucket{counts: slices.Clone(counts), lo: make([]int64, k-1), width: make([]int, k-1), stride: make([]int, k-2)}
 	if l.s.dense {
-		b.p = make([]float64, cells)
+		cells, _ := l.s.layout(counts, l.t, sh)
+		b.p, b.first, b.off = make([]float64, cells), slices.Clone(sh.first), slices.Clone(sh.off)
+		l.cells += cells
 	} else {
+		l.s.box(counts, l.t, sh.lo, sh.hi)
 		b.table = newTable(1024)
 	}
+	copy(b.lo, sh.lo)
 	step := 1
 	for i := range k - 1 {
-		b.width[i], b.stride[i] = int(l.hi[i]-l.lo[i]+1), step
-		step *= b.width[i]
+		b.width[i] = int(sh.hi[i] - sh.lo[i] + 1)
+		if i < k-2 {
+			b.stride[i] = step
+			step *= b.width[i]
+		}
 	}
 	l.byKey[key] = b
-	l.cells += cells
 	return b
 }
 
@@ -570,19 +789,19 @@ func (l *layer) list() []*bucket {
 
 // state is scratch space.
 type state struct {
-	sum  []int64   // a state's sums
-	d    []int     // a block's deal, during enumeration
-	c2   []int     // counts after a deal
-	s2   []int64   // sums after a deal
-	to   []*bucket // for a single score: the bucket each receiver leads to
-	w    []float64 // and its probability for one group: (its room)/(all room)
-	dot0 []int     // the cell index of a row's first state in the box of each receiver's bucket
+	sum []int64   // a state's sums
+	d   []int     // a block's deal, during enumeration
+	c2  []int     // counts after a deal
+	s2  []int64   // sums after a deal
+	to  []*bucket // for a single score: the bucket each receiver leads to
+	w   []float64 // and its probability for one group: (its room)/(all room)
+	row []int     // the row of the state's sums in the bucket of each receiver
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
 	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k),
-		dot0: make([]int, k)}
+		row: make([]int, k)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -673,7 +892,7 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 			continue
 		}
 		last := i
-		for last+1 < k && s.class[last+1] == s.class[i] && c[last+1] == c[i] {
+		for last+1 < k && s.sameRun(c, last) {
 			last++
 		}
 		copy(st.c2, c)
@@ -689,45 +908,50 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		return from.each(ctx, total, sums, func(p float64) {
 			for r := range k {
 				if st.to[r] != nil {
-					st.dot0[r] = st.to[r].index(sums)
+					st.row[r] = st.to[r].rowOf(sums)
 				}
 			}
-			s.receive(st, c, score, p, 0)
+			s.receive(st, c, score, p)
 		})
 	}
-	// Along a row only the first group's sum and the last's change, by one
-	// a cell, so each index moves by the first group's stride. (Plain loops
-	// and a direct call: WebAssembly makes indirect calls dear.)
+	// Along a row only the sums of group k−2 and the last group change, so
+	// the rows of the successors in which no sums change place stay; those
+	// of the others follow from the sums that do. (Plain loops and a direct
+	// call: WebAssembly makes indirect calls dear.)
+	q := k - 2
 	for w := from.walk(total, sums); w.more(); w.next() {
-		if w.start&0xfffff < from.width[0] && ctx.Err() != nil {
+		if w.row&0xffff == 0 && ctx.Err() != nil {
 			return ctx.Err()
+		}
+		cells, v := w.cells()
+		if len(cells) == 0 {
+			continue
 		}
 		for r := range k {
 			if st.to[r] != nil {
-				st.dot0[r] = st.to[r].index(sums)
+				st.row[r] = st.to[r].rowOf(sums)
 			}
 		}
-		first, last := sums[0], sums[k-1]
-		for x, p := range w.row() {
+		for x, p := range cells {
 			if p != 0 {
-				sums[0], sums[k-1] = first+int64(x), last-int64(x)
-				s.receive(st, c, score, p, x)
+				sums[q] = v + int64(x)
+				sums[k-1] = w.rest - sums[q]
+				s.receive(st, c, score, p)
 			}
 		}
-		sums[0], sums[k-1] = first, last
 	}
 	return nil
 }
 
 // receive adds the successors of the state in st.sum (counts c) of
-// probability p when a single score is dealt; the state lies x cells into
-// its row, so its cell index in the box of receiver r's bucket is
-// st.dot0[r] + x·(that box's first stride). The index of the new
-// arrangement follows from it by the sums that change place.
-func (s *space) receive(st *state, c []int, score int64, p float64, x int) {
+// probability p when a single score is dealt; st.row[r] is the row of the
+// state's sums, as they stand, in the bucket of receiver r. The receiver's
+// row and cell follow from it by the sums that change place.
+func (s *space) receive(st *state, c []int, score int64, p float64) {
 	k := len(s.sizes)
+	q := k - 2 // the group whose sum runs along a row
 	// slices of length k, so that the compiler can drop most index checks
-	sums, class, c, targets, dot0, w := st.sum[:k], s.class[:k], c[:k], st.to[:k], st.dot0[:k], st.w[:k]
+	sums, class, c, targets, rows, w := st.sum[:k], s.class[:k], c[:k], st.to[:k], st.row[:k], st.w[:k]
 	m := 0 // how many groups so far share this receiver's class, count and sum
 	for r := range k {
 		if r > 0 && r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
@@ -745,15 +969,20 @@ func (s *space) receive(st *state, c []int, score int64, p float64, x int) {
 		for j+1 < k && class[j+1] == class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
 			j++
 		}
-		stride := to.stride
-		idx := dot0[r] + x*stride[0]
-		for i := r; i < min(j, k-1); i++ {
-			idx += int(sums[i+1]-sums[i]) * stride[i]
+		stride := to.stride[:q]
+		row, v := rows[r], sums[q]
+		for i := r; i < min(j, q); i++ {
+			row += int(sums[i+1]-sums[i]) * stride[i]
 		}
-		if j < k-1 {
-			idx += int(sums[r]+score-sums[j]) * stride[j]
+		switch {
+		case j < q:
+			row += int(sums[r]+score-sums[j]) * stride[j]
+		case j == q:
+			v = sums[r] + score
+		case r <= q: // j is the last group
+			v = sums[q+1]
 		}
-		to.add(idx, p*float64(m)*w[r])
+		to.add(to.cell(row, v), p*float64(m)*w[r])
 	}
 }
 
