@@ -789,19 +789,16 @@ func (l *layer) list() []*bucket {
 
 // state is scratch space.
 type state struct {
-	sum []int64   // a state's sums
-	d   []int     // a block's deal, during enumeration
-	c2  []int     // counts after a deal
-	s2  []int64   // sums after a deal
-	to  []*bucket // for a single score: the bucket each receiver leads to
-	w   []float64 // and its probability for one group: (its room)/(all room)
-	row []int     // the row of the state's sums in the bucket of each receiver
+	sum  []int64    // a state's sums
+	d    []int      // a block's deal, during enumeration
+	c2   []int      // counts after a deal
+	s2   []int64    // sums after a deal
+	recv []receiver // for a single score: what each group does when it receives
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
-	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), to: make([]*bucket, k), w: make([]float64, k),
-		row: make([]int, k)}
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -869,6 +866,20 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 	return deals(0, b.Count, 1/s.binom[room*(s.n+1)+b.Count])
 }
 
+// receiver describes, for the states of one bucket, what a group that
+// receives a single score does. Its class holds, after it, first the rest of
+// its run (groups of its count, ascending sums) up to group run, then groups
+// of one count more up to group up: its new pair moves past the run, then
+// past those of the others whose sums are smaller.
+type receiver struct {
+	to      *bucket // the successors' bucket; nil when the group is full
+	w       float64 // the probability that it receives: (its room)/(all room)
+	row     int     // the row of the states' sums, as they stand, in to
+	first   bool    // it starts its run
+	run, up int
+	alone   bool // its run is itself and up is itself: it keeps its place
+}
+
 // dealOne deals a single score: to each group with room, with probability
 // (its room)/(all room). Groups of one class with equal counts and sums
 // lead to one successor, made once and weighted by their number.
@@ -881,44 +892,47 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 	}
 	// A receiver of count c leads to the bucket whose counts have one c of
 	// its class raised to c+1: the last of the run of c's, which keeps the
-	// counts sorted. to[i] is that bucket for the receivers of i's run.
+	// counts sorted.
 	for i := range k {
-		st.to[i] = nil
-		if c[i] == s.sizes[i] {
-			continue
+		rc := &st.recv[i]
+		*rc = receiver{w: float64(s.sizes[i]-c[i]) / float64(room), first: i == s.class[i] || c[i-1] != c[i], run: i}
+		for rc.run+1 < k && s.sameRun(c, rc.run) {
+			rc.run++
 		}
-		if i > s.class[i] && c[i-1] == c[i] {
-			st.to[i] = st.to[i-1]
-			continue
+		rc.up = rc.run
+		for rc.up+1 < k && s.class[rc.up+1] == s.class[i] && c[rc.up+1] == c[i]+1 {
+			rc.up++
 		}
-		last := i
-		for last+1 < k && s.sameRun(c, last) {
-			last++
+		rc.alone = s.dense && rc.first && rc.up == i
+		switch {
+		case c[i] == s.sizes[i]:
+		case !rc.first:
+			rc.to = st.recv[i-1].to
+		default:
+			copy(st.c2, c)
+			st.c2[rc.run]++
+			rc.to = next.get(st.c2)
 		}
-		copy(st.c2, c)
-		st.c2[last]++
-		st.to[i] = next.get(st.c2)
-	}
-	for i := range k {
-		st.w[i] = float64(s.sizes[i]-c[i]) / float64(room)
 	}
 	total := s.prefix[dealt]
 	sums := st.sum
+	q := k - 2
 	if from.p == nil {
+		one := make([]float64, 1)
 		return from.each(ctx, total, sums, func(p float64) {
-			for r := range k {
-				if st.to[r] != nil {
-					st.row[r] = st.to[r].rowOf(sums)
+			for i := range st.recv {
+				if rc := &st.recv[i]; rc.to != nil {
+					rc.row = rc.to.rowOf(sums)
 				}
 			}
-			s.receive(st, c, score, p)
+			one[0] = p
+			s.receive(st, score, one, sums[q], sums[q]+sums[k-1])
 		})
 	}
 	// Along a row only the sums of group k−2 and the last group change, so
 	// the rows of the successors in which no sums change place stay; those
 	// of the others follow from the sums that do. (Plain loops and a direct
-	// call: WebAssembly makes indirect calls dear.)
-	q := k - 2
+	// call a row: WebAssembly makes calls dear.)
 	for w := from.walk(total, sums); w.more(); w.next() {
 		if w.row&0xffff == 0 && ctx.Err() != nil {
 			return ctx.Err()
@@ -927,62 +941,84 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		if len(cells) == 0 {
 			continue
 		}
-		for r := range k {
-			if st.to[r] != nil {
-				st.row[r] = st.to[r].rowOf(sums)
+		for i := range st.recv {
+			if rc := &st.recv[i]; rc.to != nil {
+				rc.row = rc.to.rowOf(sums)
 			}
 		}
-		for x, p := range cells {
-			if p != 0 {
-				sums[q] = v + int64(x)
-				sums[k-1] = w.rest - sums[q]
-				s.receive(st, c, score, p)
-			}
-		}
+		s.receive(st, score, cells, v, w.rest)
 	}
 	return nil
 }
 
-// receive adds the successors of the state in st.sum (counts c) of
-// probability p when a single score is dealt; st.row[r] is the row of the
-// state's sums, as they stand, in the bucket of receiver r. The receiver's
-// row and cell follow from it by the sums that change place.
-func (s *space) receive(st *state, c []int, score int64, p float64) {
+// receive adds the successors, when a single score is dealt, of the states
+// of a row with these probabilities: st.sum holds the sums of groups
+// 0 … k−3, the first state's group k−2 has the sum from, and that sum and
+// the last group's add up to rest. A receiver's row and cell follow from
+// the row of the states' sums in its bucket by the sums that change place.
+func (s *space) receive(st *state, score int64, cells []float64, from, rest int64) {
 	k := len(s.sizes)
 	q := k - 2 // the group whose sum runs along a row
 	// slices of length k, so that the compiler can drop most index checks
-	sums, class, c, targets, rows, w := st.sum[:k], s.class[:k], c[:k], st.to[:k], st.row[:k], st.w[:k]
-	m := 0 // how many groups so far share this receiver's class, count and sum
-	for r := range k {
-		if r > 0 && r > class[r] && c[r] == c[r-1] && sums[r] == sums[r-1] {
-			m++
-		} else {
-			m = 1
+	sums, recv := st.sum[:k], st.recv[:k]
+	for r := range recv {
+		rc := &recv[r]
+		if rc.to == nil || !rc.alone {
+			continue
 		}
-		to := targets[r]
-		if to == nil || (r+1 < k && class[r+1] == class[r] && c[r+1] == c[r] && sums[r+1] == sums[r]) {
-			continue // full, or not the last of a run of equal groups
-		}
-		// the receiver's new pair moves right past the smaller pairs of its
-		// class: those between take one place to the left
-		j := r
-		for j+1 < k && class[j+1] == class[r] && less(c[j+1], sums[j+1], c[r]+1, sums[r]+score) {
-			j++
-		}
-		stride := to.stride[:q]
-		row, v := rows[r], sums[q]
-		for i := r; i < min(j, q); i++ {
-			row += int(sums[i+1]-sums[i]) * stride[i]
-		}
+		// it keeps its place: its new sum moves its row, or its cell
+		row, at := rc.row, int(from)
 		switch {
-		case j < q:
-			row += int(sums[r]+score-sums[j]) * stride[j]
-		case j == q:
-			v = sums[r] + score
-		case r <= q: // j is the last group
-			v = sums[q+1]
+		case r < q:
+			row += int(score) * rc.to.stride[r]
+		case r == q:
+			at += int(score)
 		}
-		to.add(to.cell(row, v), p*float64(m)*w[r])
+		at += rc.to.off[row]
+		dst := rc.to.p[at : at+len(cells)]
+		for x, p := range cells {
+			dst[x] += p * rc.w
+		}
+	}
+	for x, p := range cells {
+		if p == 0 {
+			continue
+		}
+		sums[q] = from + int64(x)
+		sums[k-1] = rest - sums[q]
+		m := 0 // how many groups so far share this receiver's class, count and sum
+		for r := range recv {
+			rc := &recv[r]
+			if !rc.first && sums[r] == sums[r-1] {
+				m++
+			} else {
+				m = 1
+			}
+			if rc.to == nil || rc.alone || (rc.run > r && sums[r+1] == sums[r]) {
+				continue // full, done, or not the last of a run of equal groups
+			}
+			// the receiver's new pair moves right past the smaller pairs of its
+			// class: those between take one place to the left
+			sum := sums[r] + score
+			j := rc.run
+			for j < rc.up && sums[j+1] < sum {
+				j++
+			}
+			stride := rc.to.stride[:q]
+			row, v := rc.row, sums[q]
+			for i := r; i < min(j, q); i++ {
+				row += int(sums[i+1]-sums[i]) * stride[i]
+			}
+			switch {
+			case j < q:
+				row += int(sum-sums[j]) * stride[j]
+			case j == q:
+				v = sum
+			case r <= q: // j is the last group
+				v = sums[q+1]
+			}
+			rc.to.add(rc.to.cell(row, v), p*float64(m)*rc.w)
+		}
 	}
 }
 
