@@ -819,7 +819,7 @@ func less(c1 int, s1 int64, c2 int, s2 int64) bool {
 // deal adds to next every way of dealing block b to every state of bucket
 // from, weighted by its probability; dealt scores have been dealt before.
 func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *state, next *layer) error {
-	if b.Count == 1 {
+	if b.Count == 1 && s.dense {
 		return s.dealOne(ctx, from, b.Score, dealt, st, next)
 	}
 	k := len(s.sizes)
@@ -873,6 +873,9 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 // past those of the others whose sums are smaller.
 type receiver struct {
 	to      *bucket // the successors' bucket; nil when the group is full
+	p       []float64
+	off     []int   // to's
+	stride  []int   // to's
 	w       float64 // the probability that it receives: (its room)/(all room)
 	row     int     // the row of the states' sums, as they stand, in to
 	first   bool    // it starts its run
@@ -880,9 +883,10 @@ type receiver struct {
 	alone   bool // its run is itself and up is itself: it keeps its place
 }
 
-// dealOne deals a single score: to each group with room, with probability
-// (its room)/(all room). Groups of one class with equal counts and sums
-// lead to one successor, made once and weighted by their number.
+// dealOne deals a single score to the states of a dense bucket: to each
+// group with room, with probability (its room)/(all room). Groups of one
+// class with equal counts and sums lead to one successor, made once and
+// weighted by their number.
 func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt int, st *state, next *layer) error {
 	k := len(s.sizes)
 	c := from.counts
@@ -903,7 +907,7 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		for rc.up+1 < k && s.class[rc.up+1] == s.class[i] && c[rc.up+1] == c[i]+1 {
 			rc.up++
 		}
-		rc.alone = s.dense && rc.first && rc.up == i
+		rc.alone = rc.first && rc.up == i
 		switch {
 		case c[i] == s.sizes[i]:
 		case !rc.first:
@@ -913,22 +917,12 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 			st.c2[rc.run]++
 			rc.to = next.get(st.c2)
 		}
+		if rc.to != nil {
+			rc.p, rc.off, rc.stride = rc.to.p, rc.to.off, rc.to.stride
+		}
 	}
 	total := s.prefix[dealt]
 	sums := st.sum
-	q := k - 2
-	if from.p == nil {
-		one := make([]float64, 1)
-		return from.each(ctx, total, sums, func(p float64) {
-			for i := range st.recv {
-				if rc := &st.recv[i]; rc.to != nil {
-					rc.row = rc.to.rowOf(sums)
-				}
-			}
-			one[0] = p
-			s.receive(st, score, one, sums[q], sums[q]+sums[k-1])
-		})
-	}
 	// Along a row only the sums of group k−2 and the last group change, so
 	// the rows of the successors in which no sums change place stay; those
 	// of the others follow from the sums that do. (Plain loops and a direct
@@ -970,12 +964,12 @@ func (s *space) receive(st *state, score int64, cells []float64, from, rest int6
 		row, at := rc.row, int(from)
 		switch {
 		case r < q:
-			row += int(score) * rc.to.stride[r]
+			row += int(score) * rc.stride[r]
 		case r == q:
 			at += int(score)
 		}
-		at += rc.to.off[row]
-		dst := rc.to.p[at : at+len(cells)]
+		at += rc.off[row]
+		dst := rc.p[at : at+len(cells)]
 		for x, p := range cells {
 			dst[x] += p * rc.w
 		}
@@ -1004,7 +998,7 @@ func (s *space) receive(st *state, score int64, cells []float64, from, rest int6
 			for j < rc.up && sums[j+1] < sum {
 				j++
 			}
-			stride := rc.to.stride[:q]
+			stride := rc.stride[:q]
 			row, v := rc.row, sums[q]
 			for i := r; i < min(j, q); i++ {
 				row += int(sums[i+1]-sums[i]) * stride[i]
@@ -1017,7 +1011,7 @@ func (s *space) receive(st *state, score int64, cells []float64, from, rest int6
 			case r <= q: // j is the last group
 				v = sums[q+1]
 			}
-			rc.to.add(rc.to.cell(row, v), p*float64(m)*rc.w)
+			rc.p[rc.off[row]+int(v)] += p * float64(m) * rc.w
 		}
 	}
 }
