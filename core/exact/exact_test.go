@@ -73,7 +73,8 @@ func blocksOf(scores []int64) []Block {
 // ties, the distribution equals complete enumeration to 1e-12.
 func TestAgainstEnumeration(t *testing.T) {
 	patterns := [][]int{{2, 2, 2}, {3, 3, 3}, {1, 2, 3}, {4, 4, 4}, {2, 2, 2, 2}, {3, 3, 3, 3}, {5, 4, 3},
-		{2, 3, 3, 4}, {1, 1, 1, 1, 1, 1}, {2, 2, 2, 2, 2, 2}, {6, 6}, {1, 11}, {2, 2, 3, 3}}
+		{2, 3, 3, 4}, {1, 1, 1, 1, 1, 1}, {2, 2, 2, 2, 2, 2}, {6, 6}, {1, 11}, {2, 2, 3, 3},
+		{1, 1, 1, 1, 1, 1, 1, 1}, {1, 1, 1, 1, 1, 1, 1, 2}} // eight groups: rows bounded by fewer sets of groups
 	scoreSets := map[string]func(n int) []int64{
 		"untied": func(n int) []int64 {
 			s := make([]int64, n)
