@@ -186,7 +186,7 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 			largest, work, _ = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) })
 		}
 		if largest > lim.MaxCells {
-			return nil, &TooLargeError{fmt.Sprintf("two layers would take the room of %d cells, more than %d", largest, lim.MaxCells)}
+			return nil, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", largest*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
 		}
 		if lim.MaxWork > 0 && work > lim.MaxWork {
 			return nil, &TooLargeError{fmt.Sprintf("%d states in all, more than %d", work, lim.MaxWork)}
