@@ -49,7 +49,7 @@ func TestLayoutIsTight(t *testing.T) {
 		}
 		s, _ := newSpace(c.sizes, c.blocks)
 		sh := s.newShape()
-		_, planned, _ := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) })
+		planned := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }).cells
 		if planned != cells || float64(states) < 0.97*float64(cells) {
 			t.Errorf("sizes %v, %d blocks: %d cells planned, %d made, %d states reached", c.sizes, len(c.blocks), planned, cells, states)
 		}

@@ -170,28 +170,28 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	if err != nil {
 		return nil, err
 	}
-	// The boxes bound the arrays; when they do not settle the question,
-	// the rows are laid out to count the cells, which costs a few cells'
-	// work a row, so not beyond MaxCells/2 rows in all. Where the arrays do
-	// not fit, hash tables would not either (a state takes the room of four
-	// cells, and hardly a cell goes unused) unless there are too many rows
-	// for the arrays to be worth laying out, as with many small groups.
-	largest, work, rows := s.plan(s.boxSize)
-	switch {
-	case largest >= tooMany:
+	// The boxes bound the arrays. When they do not settle the question, the
+	// rows are laid out to count the cells, which costs about as much as a
+	// few cells a row, so not beyond 2·MaxCells rows in all. Hash tables
+	// hold the states reached, hardly fewer than the cells laid out, in four
+	// cells' room each: they serve where the row tables are what is large,
+	// as with many small groups.
+	fig := s.plan(s.boxSize)
+	if fig.peak >= tooMany {
 		return nil, &TooLargeError{"the states cannot be numbered in 62 bits"}
-	case rows <= lim.MaxCells/2:
-		if largest > lim.MaxCells || (lim.MaxWork > 0 && work > lim.MaxWork) {
-			sh := s.newShape()
-			largest, work, _ = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) })
-		}
-		if largest > lim.MaxCells {
-			return nil, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", largest*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
-		}
-		if lim.MaxWork > 0 && work > lim.MaxWork {
-			return nil, &TooLargeError{fmt.Sprintf("%d states in all, more than %d", work, lim.MaxWork)}
-		}
+	}
+	laid := false
+	if fig.rows <= 2*lim.MaxCells && !fig.fit(lim) {
+		sh := s.newShape()
+		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
+	}
+	switch {
+	case fig.fit(lim):
 		s.dense = true
+	case fig.peak <= lim.MaxCells:
+		return nil, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
+	case laid && fig.layer > 2*lim.MaxStates:
+		return nil, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
 	default:
 		if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
 			return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
@@ -396,16 +396,27 @@ func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 	return cells, cells / int(hi[k-2]-lo[k-2]+1)
 }
 
+// figures are the sizes of the layers of a computation, in cells.
+type figures struct {
+	peak        int // the room two consecutive layers take (a row takes two cells, for its place in the row table)
+	layer       int // the cells of the largest layer
+	cells, rows int // of all layers
+}
+
+// fit tells whether arrays of these figures keep within lim.
+func (f figures) fit(lim Limits) bool {
+	return f.peak <= lim.MaxCells && (lim.MaxWork == 0 || f.cells <= lim.MaxWork)
+}
+
 // plan adds up size(counts, t), the cells and rows of a bucket, over the
-// buckets of each layer. It returns the largest room two consecutive
-// layers take, in cells (a row takes two, for its place in the row table),
-// and the cells and the rows of all layers.
-func (s *space) plan(size func(counts []int, t int) (cells, rows int)) (largest, cells, rows int) {
+// buckets of each layer.
+func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 	k := len(s.sizes)
 	counts := make([]int, k)
+	var fig figures
 	before := 0 // the room of the layer before
 	for _, t := range s.cuts {
-		inLayer := 0
+		inLayer, layerCells := 0, 0
 		// every canonical count vector adding up to t: ascending within classes
 		var walk func(i, left int)
 		walk = func(i, left int) {
@@ -415,8 +426,8 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) (largest,
 				}
 				counts[i] = left
 				c, r := size(counts, t)
-				inLayer = min(inLayer+c+2*r, tooMany)
-				cells, rows = min(cells+c, tooMany), min(rows+r, tooMany)
+				inLayer, layerCells = min(inLayer+c+2*r, tooMany), min(layerCells+c, tooMany)
+				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
 				return
 			}
 			from := 0
@@ -429,10 +440,10 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) (largest,
 			}
 		}
 		walk(0, t)
-		largest = max(largest, min(before+inLayer, tooMany))
+		fig.peak, fig.layer = max(fig.peak, min(before+inLayer, tooMany)), max(fig.layer, layerCells)
 		before = inLayer
 	}
-	return largest, cells, rows
+	return fig
 }
 
 // shape is a dense bucket's layout as layout finds it, and its scratch.

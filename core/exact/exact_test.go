@@ -2,6 +2,7 @@ package exact
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -165,6 +166,12 @@ func TestTooLarge(t *testing.T) {
 	_, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), Limits{MaxCells: 1000, MaxStates: 1000}, nil)
 	if err == nil {
 		t.Fatal("no error beyond the state limit")
+	}
+	// beyond the arrays' budget, where hash tables would not fit either: refused before any layer is built
+	built := 0
+	lim := Limits{MaxCells: 1 << 23, MaxStates: 1 << 22, layer: func(int, int) { built++ }}
+	if _, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), lim, nil); !errors.Is(err, ErrTooLarge) || built > 0 {
+		t.Fatalf("err %v after %d layers; want ErrTooLarge before any", err, built)
 	}
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
