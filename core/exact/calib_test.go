@@ -32,7 +32,10 @@ func TestEstimateStates(t *testing.T) {
 
 // TestLayoutIsTight: the rows of the arrays hold hardly a cell that no state
 // reaches (at least 97% are reached, so the memory budget counts states, not
-// air), and the cells that Permutation plans for are the cells it makes.
+// air), and the cells that Permutation plans for are the cells it makes. The
+// 97% is this project's own bound, not an outside value: the least share
+// measured for these cases when the layout was written was 97.8%, for sizes
+// (2,3,4,5); the tied cases reach every cell.
 func TestLayoutIsTight(t *testing.T) {
 	for _, c := range []struct {
 		sizes  []int
