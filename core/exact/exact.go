@@ -800,16 +800,19 @@ func (l *layer) list() []*bucket {
 
 // state is scratch space.
 type state struct {
-	sum  []int64    // a state's sums
-	d    []int      // a block's deal, during enumeration
-	c2   []int      // counts after a deal
-	s2   []int64    // sums after a deal
-	recv []receiver // for a single score: what each group does when it receives
+	sum   []int64    // a state's sums
+	d     []int      // a block's deal, during enumeration
+	c2    []int      // counts after a deal
+	s2    []int64    // sums after a deal
+	recv  []receiver // for a single score: what each group does when it receives
+	slope []int64    // for a single score: how each group's sum changes along a row
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
-	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k)}
+	slope := make([]int64, k)
+	slope[k-2], slope[k-1] = 1, -1
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k), slope: slope}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -891,7 +894,6 @@ type receiver struct {
 	row     int     // the row of the states' sums, as they stand, in to
 	first   bool    // it starts its run
 	run, up int
-	alone   bool // its run is itself and up is itself: it keeps its place
 }
 
 // dealOne deals a single score to the states of a dense bucket: to each
@@ -918,7 +920,6 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 		for rc.up+1 < k && s.class[rc.up+1] == s.class[i] && c[rc.up+1] == c[i]+1 {
 			rc.up++
 		}
-		rc.alone = rc.first && rc.up == i
 		switch {
 		case c[i] == s.sizes[i]:
 		case !rc.first:
@@ -961,70 +962,115 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 // 0 … k−3, the first state's group k−2 has the sum from, and that sum and
 // the last group's add up to rest. A receiver's row and cell follow from
 // the row of the states' sums in its bucket by the sums that change place.
+//
+// Along a row the sum of group k−2 rises by one a cell and the last group's
+// falls by one, and what a receiver does (whether it is the last of a run of
+// equal pairs, how many share its pair, past which pairs its new one moves)
+// rests on the signs of differences of sums, each linear in the cell. So
+// the row falls into stretches in which none of those signs changes, and
+// in a stretch the successor's row and sum step by fixed amounts from cell
+// to cell: a straight loop of adds, since WebAssembly makes branches dear.
 func (s *space) receive(st *state, score int64, cells []float64, from, rest int64) {
 	k := len(s.sizes)
 	q := k - 2 // the group whose sum runs along a row
 	// slices of length k, so that the compiler can drop most index checks
-	sums, recv := st.sum[:k], st.recv[:k]
+	sums, slope, recv := st.sum[:k], st.slope[:k], st.recv[:k]
+	n := len(cells)
 	for r := range recv {
 		rc := &recv[r]
-		if rc.to == nil || !rc.alone {
+		if rc.to == nil {
 			continue
 		}
-		// it keeps its place: its new sum moves its row, or its cell
-		row, at := rc.row, int(from)
-		switch {
-		case r < q:
-			row += int(score) * rc.stride[r]
-		case r == q:
-			at += int(score)
-		}
-		at += rc.off[row]
-		dst := rc.p[at : at+len(cells)]
-		for x, p := range cells {
-			dst[x] += p * rc.w
-		}
-	}
-	for x, p := range cells {
-		if p == 0 {
-			continue
-		}
-		sums[q] = from + int64(x)
-		sums[k-1] = rest - sums[q]
-		m := 0 // how many groups so far share this receiver's class, count and sum
-		for r := range recv {
-			rc := &recv[r]
-			if !rc.first && sums[r] == sums[r-1] {
+		for x := 0; x < n; {
+			if cells[x] == 0 {
+				x++ // (its successor may lie outside the arrays)
+				continue
+			}
+			sums[q] = from + int64(x)
+			sums[k-1] = rest - sums[q]
+			end := n - x // where the stretch ends, from x
+			// only the last of a run of equal pairs receives, for them all
+			if rc.run > r {
+				d := sums[r+1] - sums[r]
+				end = min(end, until(d, slope[r+1]-slope[r]))
+				if d == 0 {
+					x += end
+					continue
+				}
+			}
+			m := 1 // how many groups of its run share its pair
+			for i := r; i > 0 && !recv[i].first; i-- {
+				d := sums[i] - sums[i-1]
+				end = min(end, until(d, slope[i]-slope[i-1]))
+				if d != 0 {
+					break
+				}
 				m++
-			} else {
-				m = 1
 			}
-			if rc.to == nil || rc.alone || (rc.run > r && sums[r+1] == sums[r]) {
-				continue // full, done, or not the last of a run of equal groups
-			}
-			// the receiver's new pair moves right past the smaller pairs of its
-			// class: those between take one place to the left
+			// the new pair moves right past the smaller pairs of its class:
+			// those between take one place to the left
 			sum := sums[r] + score
 			j := rc.run
-			for j < rc.up && sums[j+1] < sum {
+			for j < rc.up {
+				d := sums[j+1] - sum
+				end = min(end, until(d, slope[j+1]-slope[r]))
+				if d >= 0 {
+					break
+				}
 				j++
 			}
+			// the successor's row and group k−2's sum at x, and their steps
 			stride := rc.stride[:q]
-			row, v := rc.row, sums[q]
+			row, dRow, v, dv := rc.row, 0, sums[q], slope[q]
 			for i := r; i < min(j, q); i++ {
 				row += int(sums[i+1]-sums[i]) * stride[i]
+				dRow += int(slope[i+1]-slope[i]) * stride[i]
 			}
 			switch {
 			case j < q:
 				row += int(sum-sums[j]) * stride[j]
+				dRow += int(slope[r]-slope[j]) * stride[j]
 			case j == q:
-				v = sum
+				v, dv = sum, slope[r]
 			case r <= q: // j is the last group
-				v = sums[q+1]
+				v, dv = sums[q+1], slope[q+1]
 			}
-			rc.p[rc.off[row]+int(v)] += p * float64(m) * rc.w
+			w := float64(m) * rc.w
+			if dRow == 0 {
+				at, step := rc.off[row]+int(v), int(dv)
+				for _, p := range cells[x : x+end] {
+					if p != 0 {
+						rc.p[at] += p * w
+					}
+					at += step
+				}
+			} else {
+				for _, p := range cells[x : x+end] {
+					if p != 0 {
+						rc.p[rc.off[row]+int(v)] += p * w
+					}
+					row, v = row+dRow, v+dv
+				}
+			}
+			x += end
 		}
 	}
+}
+
+// until gives the least t ≥ 1 at which d + s·t differs in sign (negative,
+// zero or positive) from d, or a number beyond any row when there is none.
+func until(d, s int64) int {
+	switch {
+	case s == 0 || (d != 0 && (d > 0) == (s > 0)):
+		return 1 << 62
+	case d == 0:
+		return 1
+	}
+	t := -d / s // d and s have opposite signs: d + s·t has d's sign or is 0
+	if d+s*t != 0 {
+		t++
+	}
+	return int(t)
 }
 
 // finish turns the last layer, where every group is full, into the
