@@ -805,14 +805,16 @@ type state struct {
 	c2    []int      // counts after a deal
 	s2    []int64    // sums after a deal
 	recv  []receiver // for a single score: what each group does when it receives
-	slope []int64    // for a single score: how each group's sum changes along a row
+	slope []int64    // how each group's sum changes along a row
+	d2    []int64    // and each of a successor's, in its order
+	kept  []bool     // which of a successor's pairs were dealt nothing
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
 	slope := make([]int64, k)
 	slope[k-2], slope[k-1] = 1, -1
-	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k), slope: slope}
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k), slope: slope, d2: make([]int64, k), kept: make([]bool, k)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -830,54 +832,152 @@ func less(c1 int, s1 int64, c2 int, s2 int64) bool {
 	return c1 < c2 || (c1 == c2 && s1 < s2)
 }
 
+// move is one way to deal a block to the states of a bucket: d[i] of its
+// scores to group i, with probability w, into bucket to.
+type move struct {
+	d  []int
+	w  float64
+	to *bucket
+}
+
+// moves lists every way to deal block b to the states of bucket from, by
+// the multivariate hypergeometric probability ∏ C(rᵢ, dᵢ)/C(R, b) of
+// dealing dᵢ of its scores to group i, rᵢ the room left in group i and R
+// their sum. All states of the bucket lead under one deal to one bucket of
+// next: the counts, raised by the deal, in canonical order.
+func (s *space) moves(from *bucket, b Block, st *state, next *layer) []move {
+	k := len(s.sizes)
+	room := 0
+	for i := range k {
+		room += s.sizes[i] - from.counts[i]
+	}
+	var list []move
+	var walk func(i, left int, w float64)
+	walk = func(i, left int, w float64) {
+		r := s.sizes[i] - from.counts[i]
+		if i < k-1 {
+			for d := 0; d <= min(r, left); d++ {
+				st.d[i] = d
+				walk(i+1, left-d, w*s.binom[r*(s.n+1)+d])
+			}
+			return
+		}
+		if left > r {
+			return
+		}
+		st.d[i] = left
+		for i := range k {
+			st.c2[i] = from.counts[i] + st.d[i]
+		}
+		for i := 1; i < k; i++ {
+			for j := i; j > s.class[j] && st.c2[j] < st.c2[j-1]; j-- {
+				st.c2[j], st.c2[j-1] = st.c2[j-1], st.c2[j]
+			}
+		}
+		list = append(list, move{d: slices.Clone(st.d), w: w * s.binom[r*(s.n+1)+left], to: next.get(st.c2)})
+	}
+	walk(0, b.Count, 1/s.binom[room*(s.n+1)+b.Count])
+	return list
+}
+
 // deal adds to next every way of dealing block b to every state of bucket
 // from, weighted by its probability; dealt scores have been dealt before.
 func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *state, next *layer) error {
 	if b.Count == 1 && s.dense {
 		return s.dealOne(ctx, from, b.Score, dealt, st, next)
 	}
-	k := len(s.sizes)
-	room := 0
-	for i := range k {
-		room += s.sizes[i] - from.counts[i]
-	}
-	// every deal d (dᵢ scores to group i) leads all states to one bucket
-	var deals func(i, left int, w float64) error
-	deals = func(i, left int, w float64) error {
-		r := s.sizes[i] - from.counts[i]
-		if i < k-1 {
-			for d := 0; d <= min(r, left); d++ {
-				st.d[i] = d
-				if err := deals(i+1, left-d, w*s.binom[r*(s.n+1)+d]); err != nil {
-					return err
+	moves := s.moves(from, b, st, next)
+	total := s.prefix[dealt]
+	if !s.dense {
+		k := len(s.sizes)
+		for _, mv := range moves {
+			err := from.each(ctx, total, st.sum, func(p float64) {
+				for i := range k {
+					st.c2[i] = from.counts[i] + mv.d[i]
+					st.s2[i] = st.sum[i] + int64(mv.d[i])*b.Score
 				}
-			}
-			return nil
-		}
-		if left > r {
-			return nil
-		}
-		st.d[i] = left
-		w *= s.binom[r*(s.n+1)+left]
-		for i := range k {
-			st.c2[i] = from.counts[i] + st.d[i]
-		}
-		for i := 1; i < k; i++ { // the counts in canonical order
-			for j := i; j > s.class[j] && st.c2[j] < st.c2[j-1]; j-- {
-				st.c2[j], st.c2[j-1] = st.c2[j-1], st.c2[j]
+				s.arrange(st.c2, st.s2)
+				mv.to.add(mv.to.index(st.s2), p*mv.w)
+			})
+			if err != nil {
+				return err
 			}
 		}
-		to := next.get(st.c2)
-		return from.each(ctx, s.prefix[dealt], st.sum, func(p float64) {
-			for i := range k {
-				st.c2[i] = from.counts[i] + st.d[i]
-				st.s2[i] = st.sum[i] + int64(st.d[i])*b.Score
-			}
-			s.arrange(st.c2, st.s2)
-			to.add(to.index(st.s2), p*w)
-		})
+		return nil
 	}
-	return deals(0, b.Count, 1/s.binom[room*(s.n+1)+b.Count])
+	// row by row, so that a row's cells are read from cache by every move
+	for w := from.walk(total, st.sum); w.more(); w.next() {
+		if w.row&0xffff == 0 && ctx.Err() != nil {
+			return ctx.Err()
+		}
+		cells, v := w.cells()
+		if len(cells) == 0 {
+			continue
+		}
+		s.spread(st, from.counts, moves, b.Score, cells, v, w.rest)
+	}
+	return nil
+}
+
+// spread adds the successors under every move of the states of a row with
+// these probabilities: st.sum holds the sums of groups 0 … k−3, the first
+// state's group k−2 has the sum from, and that sum and the last group's add
+// up to rest.
+//
+// Along a row the sum of group k−2 rises by one a cell and the last group's
+// falls by one. The successor's pairs (count, sum) are put in canonical
+// order by comparing sums, each linear in the cell; so the row falls into
+// stretches in which none of the comparisons changes sign, and in a stretch
+// the successor's row and sum step by fixed amounts from cell to cell: a
+// straight loop of adds, since WebAssembly makes branches dear.
+func (s *space) spread(st *state, counts []int, moves []move, score int64, cells []float64, from, rest int64) {
+	k := len(s.sizes)
+	q := k - 2 // the group whose sum runs along a row
+	// slices of length k, so that the compiler can drop most index checks
+	sums, slope, class := st.sum[:k], st.slope[:k], s.class[:k]
+	pc, ps, pd, pk := st.c2[:k], st.s2[:k], st.d2[:k], st.kept[:k] // the successor's pairs, their slopes, and which are as they were
+	n := len(cells)
+	for m := range moves {
+		mv := &moves[m]
+		d, to := mv.d[:k], mv.to
+		stride, lo := to.stride[:q], to.lo[:q]
+		dst, off, w := to.p, to.off, mv.w // in locals: the compiler reloads fields after every store
+		for x := 0; x < n; {
+			if cells[x] == 0 {
+				x++ // (its successor may lie outside the arrays)
+				continue
+			}
+			sums[q] = from + int64(x)
+			sums[k-1] = rest - sums[q]
+			end := n - x // where the stretch ends, from x
+			// insertion sort within classes: the pairs stand sorted but for
+			// those dealt to, so two that are not need no comparing
+			for i := range k {
+				c, sum, sl, kept := counts[i]+d[i], sums[i]+int64(d[i])*score, slope[i], d[i] == 0
+				j := i
+				for ; j > class[i] && !(kept && pk[j-1]) && pc[j-1] >= c; j-- {
+					if pc[j-1] == c {
+						diff := ps[j-1] - sum
+						end = min(end, until(diff, pd[j-1]-sl))
+						if diff <= 0 {
+							break
+						}
+					}
+					pc[j], ps[j], pd[j], pk[j] = pc[j-1], ps[j-1], pd[j-1], pk[j-1]
+				}
+				pc[j], ps[j], pd[j], pk[j] = c, sum, sl, kept
+			}
+			// the successor's row and group k−2's sum at x, and their steps
+			row, dRow := 0, 0
+			for i := range q {
+				row += int(ps[i]-lo[i]) * stride[i]
+				dRow += int(pd[i]) * stride[i]
+			}
+			v, dv := ps[q], pd[q]
+			addAlong(dst, off, row, dRow, v, dv, cells[x:x+end], w)
+			x += end
+		}
+	}
 }
 
 // receiver describes, for the states of one bucket, what a group that
@@ -1035,25 +1135,41 @@ func (s *space) receive(st *state, score int64, cells []float64, from, rest int6
 			case r <= q: // j is the last group
 				v, dv = sums[q+1], slope[q+1]
 			}
-			w := float64(m) * rc.w
-			if dRow == 0 {
-				at, step := rc.off[row]+int(v), int(dv)
-				for _, p := range cells[x : x+end] {
-					if p != 0 {
-						rc.p[at] += p * w
-					}
-					at += step
-				}
-			} else {
-				for _, p := range cells[x : x+end] {
-					if p != 0 {
-						rc.p[rc.off[row]+int(v)] += p * w
-					}
-					row, v = row+dRow, v+dv
-				}
-			}
+			addAlong(rc.p, rc.off, row, dRow, v, dv, cells[x:x+end], float64(m)*rc.w)
 			x += end
 		}
+	}
+}
+
+// addAlong adds w times each probability of a stretch of cells that is not
+// 0 to its successor's cell in dst, a bucket's array with row table off:
+// the first successor's row and group k−2's sum are row and v, and they
+// step by dRow and dv from cell to cell.
+func addAlong(dst []float64, off []int, row, dRow int, v, dv int64, cells []float64, w float64) {
+	if dRow == 0 {
+		at, step := off[row]+int(v), int(dv)
+		if step == 1 && at+len(cells) <= len(dst) {
+			// a cell that is 0 adds 0 where its successor would be: no harm
+			// once the stretch's cells all lie in dst
+			to := dst[at : at+len(cells)]
+			for i, p := range cells {
+				to[i] += p * w
+			}
+			return
+		}
+		for _, p := range cells {
+			if p != 0 {
+				dst[at] += p * w
+			}
+			at += step
+		}
+		return
+	}
+	for _, p := range cells {
+		if p != 0 {
+			dst[off[row]+int(v)] += p * w
+		}
+		row, v = row+dRow, v+dv
 	}
 }
 
