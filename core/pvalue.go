@@ -23,6 +23,12 @@ const (
 	ExactStates     = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
 	AutoExactWork   = 25_000_000 // --pvalue auto: within about a second natively
 	AutoExactStates = 1_000_000  // --pvalue auto: hash layers within this
+	// AutoMonteCarloDraws bounds the random draws (values × resamples)
+	// that the automatic choice spends on Monte Carlo: about 0.2 s natively
+	// on one core (2.5·10⁸ draws a second, BenchmarkResamplesN100K4) and
+	// under a second in the module. Beyond it the samples are large, and
+	// chi-square is chosen.
+	AutoMonteCarloDraws = 50_000_000
 	// HeavyTies is the tie correction below which the automatic choice does
 	// not trust the chi-square approximation even for groups of 5 or more.
 	HeavyTies = 0.95
@@ -44,11 +50,10 @@ type MonteCarlo struct {
 // permutationProblem is the data in the integer form that the exact and
 // Monte Carlo methods work on (exact.Scores).
 type permutationProblem struct {
-	sizes    []int
-	blocks   []exact.Block
-	scores   []int64 // every observation's score, ascending
-	weights  []int64 // L/nᵢ
-	observed int64   // T of the data
+	sizes  []int
+	blocks []exact.Block
+	scores []int64 // every observation's score, ascending
+	sums   []int64 // each group's sum of scores in the data
 	// for turning T back into H
 	gcd, base int64 // g and 2r₁
 	total     int64 // Σ scores
@@ -71,15 +76,13 @@ func newProblem(ranking rank.Ranking) *permutationProblem {
 			p.scores = append(p.scores, b.Score)
 		}
 	}
-	sums := make([]int64, len(p.sizes))
+	p.sums = make([]int64, len(p.sizes))
 	for i, g := range ranking.Groups {
-		sums[g] += p.scores[i]
+		p.sums[g] += p.scores[i]
 	}
 	for _, s := range p.scores {
 		p.total += s
 	}
-	p.observed = exact.Statistic(p.sizes, sums)
-	p.weights = exact.Weights(p.sizes)
 	return p
 }
 
@@ -89,7 +92,7 @@ func newProblem(ranking rank.Ranking) *permutationProblem {
 //	Σ Rᵢ²/nᵢ = (g²/4)·T/L + (g·b/2)·Σx + b²N/4,  H = (12/(N(N+1))·Σ Rᵢ²/nᵢ − 3(N+1))/C.
 func (p *permutationProblem) h(t int64, c float64) float64 {
 	n := float64(len(p.scores))
-	l := float64(p.weights[0]) * float64(p.sizes[0])
+	l := float64(exact.Weights(p.sizes)[0]) * float64(p.sizes[0])
 	g, b := float64(p.gcd), float64(p.base)
 	ss := g*g/4*float64(t)/l + g*b/2*float64(p.total) + b*b*n/4
 	return (12/(n*(n+1))*ss - 3*(n+1)) / c
@@ -124,7 +127,11 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		reasons = append(reasons, "the exact distribution is too large to compute here")
 		method = "asymptotic"
 		if smallest(ranking.Sizes) < report.SmallGroup || r.TieCorrection < HeavyTies {
-			method = "monte-carlo"
+			if draws := float64(len(ranking.Sorted)) * float64(s.resamples); draws <= AutoMonteCarloDraws {
+				method = "monte-carlo"
+			} else {
+				reasons = append(reasons, fmt.Sprintf("Monte Carlo with %d resamples of %d values would take too long for an automatic choice (ask for monte-carlo to run it)", s.resamples, len(ranking.Sorted)))
+			}
 		}
 	}
 	switch method {
@@ -133,9 +140,12 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		r.PValue = r.PAsymptotic
 		if len(reasons) == 0 {
 			r.PMethodReason = "Chi-square approximation, as requested."
-		} else {
+		} else if len(reasons) == 1 {
 			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and every group has at least %d values with few ties, where the approximation is good.",
 				reasons[0], report.SmallGroup)
+		} else {
+			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and %s; with %d values the approximation, with the tie correction, is usually close.",
+				reasons[0], reasons[1], len(ranking.Sorted))
 		}
 	case "monte-carlo":
 		p := newProblem(ranking)
@@ -143,7 +153,7 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		if progress != nil {
 			mcProgress = func(done, total int) { progress("monte-carlo", done, total) }
 		}
-		mc, err := montecarlo.PValue(ctx, p.sizes, p.weights, p.scores, p.observed, s.resamples, s.seed, mcProgress)
+		mc, err := montecarlo.PValue(ctx, p.sizes, p.scores, p.sums, s.resamples, s.seed, mcProgress)
 		if err != nil {
 			return err
 		}
@@ -171,7 +181,8 @@ func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha f
 	if err != nil {
 		return err
 	}
-	pe := d.Upper(p.observed)
+	// the exact method has checked that T of every deal fits in 62 bits
+	pe := d.Upper(exact.Statistic(p.sizes, p.sums))
 	r.PExact = &pe
 	r.PValue = pe
 	if t, attained, ok := d.Critical(alpha); ok {

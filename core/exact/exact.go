@@ -34,6 +34,7 @@ import (
 	"errors"
 	"fmt"
 	"maps"
+	"math"
 	"math/bits"
 	"slices"
 	"sort"
@@ -87,7 +88,7 @@ func (e *TooLargeError) Unwrap() error { return ErrTooLarge }
 
 // Limits bound an exact computation. Two layers are alive at a time: the
 // one being dealt and the next. Buckets are dense arrays of cells (8 bytes
-// each, see bucket; a row takes the room of two cells) when any two
+// each, see bucket; a row takes the room of four cells) when any two
 // consecutive layers hold at most MaxCells together, and then all layers
 // may hold at most MaxWork cells (the time grows with it); otherwise hash
 // tables of the states reached (about 32 bytes each), at most MaxStates a
@@ -96,7 +97,7 @@ type Limits struct {
 	MaxCells  int
 	MaxWork   int // 0 for no limit
 	MaxStates int
-	layer     func(cells, states int) // told each layer's size, for tests
+	layer     func(*layer) // shown each layer when it is built, for tests
 }
 
 // Weights returns L/nᵢ for each group, the factors of T.
@@ -170,38 +171,14 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	if err != nil {
 		return nil, err
 	}
-	// The boxes bound the arrays. When they do not settle the question, the
-	// rows are laid out to count the cells, which costs about as much as a
-	// few cells a row, so not beyond 2·MaxCells rows in all. Hash tables
-	// hold the states reached, hardly fewer than the cells laid out, in four
-	// cells' room each: they serve where the row tables are what is large,
-	// as with many small groups.
-	fig := s.plan(s.boxSize)
-	if fig.peak >= tooMany {
-		return nil, &TooLargeError{"the states cannot be numbered in 62 bits"}
-	}
-	laid := false
-	if fig.rows <= 2*lim.MaxCells && !fig.fit(lim) {
-		sh := s.newShape()
-		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
-	}
-	switch {
-	case fig.fit(lim):
-		s.dense = true
-	case fig.peak <= lim.MaxCells:
-		return nil, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
-	case laid && fig.layer > 2*lim.MaxStates:
-		return nil, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
-	default:
-		if est := EstimateStates(sizes, blocks); est > 20*float64(lim.MaxStates) {
-			return nil, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
-		}
+	if _, err := s.budget(lim); err != nil {
+		return nil, err
 	}
 	k := len(s.sizes)
 	start := newLayer(s, 0)
 	start.get(make([]int, k)).add(0, 1) // nothing dealt: every pair (0, 0)
 	cur := start.list()
-	dealt := 0
+	dealt, work := 0, 0
 	st := s.scratch()
 	for bi, b := range blocks {
 		if err := ctx.Err(); err != nil {
@@ -213,13 +190,18 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 				return nil, err
 			}
 			from.p, from.table = nil, nil // free it as soon as it is used
-			if !s.dense && next.states() > lim.MaxStates {
+			if !s.dense && next.reached > lim.MaxStates {
 				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.n)}
+			}
+		}
+		if !s.dense {
+			if work += hashCost * next.reached; lim.MaxWork > 0 && work > lim.MaxWork {
+				return nil, &TooLargeError{fmt.Sprintf("more than %d states in all after %d of %d observations", lim.MaxWork/hashCost, dealt, s.n)}
 			}
 		}
 		cur = next.list()
 		if lim.layer != nil {
-			lim.layer(next.cells, next.states())
+			lim.layer(next)
 		}
 		dealt += b.Count
 		if progress != nil && (bi%8 == 7 || bi == len(blocks)-1) {
@@ -229,22 +211,72 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	return s.finish(ctx, cur, st)
 }
 
+// budget decides, before any layer is built, whether arrays or hash tables
+// hold the layers, and refuses with a *TooLargeError what lim does not allow;
+// it returns the planned figures.
+func (s *space) budget(lim Limits) (figures, error) {
+	if err := s.screen(lim); err != nil {
+		return figures{}, err
+	}
+	// The boxes bound the arrays. When they do not settle the question, the
+	// rows are laid out to count the cells, which costs about as much as a
+	// few cells a row, so not beyond 2·MaxCells rows in all. Hash tables
+	// hold the states reached, hardly fewer than the cells laid out, in four
+	// cells' room each: they serve where the row tables are what is large,
+	// as with many small groups.
+	fig := s.plan(s.boxSize)
+	if fig.peak >= tooMany {
+		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
+	}
+	laid := false
+	if fig.rows <= 2*lim.MaxCells && !fig.fit(lim) {
+		sh := s.newShape()
+		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
+	}
+	switch {
+	case fig.fit(lim):
+		s.dense = true
+	case fig.peak <= lim.MaxCells:
+		return fig, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
+	case laid && fig.layer > 2*lim.MaxStates:
+		return fig, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
+	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
+		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
+	default:
+		if est := EstimateStates(s.sizes, s.blocks); est > 20*float64(lim.MaxStates) {
+			return fig, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
+		}
+	}
+	return fig, nil
+}
+
 // space describes the states: groups sorted by size, and the scores.
 type space struct {
 	n         int
-	sizes     []int     // ascending
+	sizes     []int // ascending
+	blocks    []Block
 	class     []int     // first group of the size class of each group
 	weight    []int64   // L/nᵢ
 	prefix    []int64   // prefix[t]: the sum of the t smallest scores
 	cuts      []int     // the number of scores dealt after each block
 	countBits []uint    // bits of each group's count, in a bucket's key
-	binom     []float64 // binomial coefficients C(a, b) at a*(n+1)+b
+	logFact   []float64 // log a! for a = 0 … n (see logChoose)
 	subsets   []uint    // sets of the groups before group k−2 whose sums bound a row (bit i: group i)
 	dense     bool      // buckets are arrays rather than hash tables
+	lo, hi    []int64   // scratch for boxSize
+	// bucketRoom is a bucket's own room in cells of 8 bytes: its header,
+	// slices of k numbers and its place in the layer's map, about
+	// 256 + 32k bytes (measured by TestPlanBoundsMemory); it matters where
+	// buckets hold few states, as with yes/no data.
+	bucketRoom int
+	// fixedRoom is the room in cells that does not grow with the layers:
+	// the batch of moves and their deals, four numbers a score (prefix sums,
+	// log-factorials, cuts) and 64 KB for the rest.
+	fixedRoom int
 }
 
 func newSpace(sizes []int, blocks []Block) (*space, error) {
-	s := &space{sizes: slices.Sorted(slices.Values(sizes)), prefix: []int64{0}}
+	s := &space{sizes: slices.Sorted(slices.Values(sizes)), blocks: blocks, prefix: []int64{0}}
 	for _, b := range blocks {
 		for range b.Count {
 			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
@@ -265,6 +297,9 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	}
 	s.class = make([]int, k)
 	s.countBits = make([]uint, k)
+	s.lo, s.hi = make([]int64, k), make([]int64, k)
+	s.bucketRoom = (256 + 32*k) / 8
+	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
 	s.weight = Weights(s.sizes)
 	var maxT float64
 	for i, n := range s.sizes {
@@ -280,12 +315,9 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	if maxT >= 1<<62 {
 		return nil, &TooLargeError{"the statistic would overflow 62 bits"}
 	}
-	s.binom = make([]float64, (s.n+1)*(s.n+1))
-	for a := 0; a <= s.n; a++ {
-		s.binom[a*(s.n+1)] = 1
-		for b := 1; b <= a; b++ {
-			s.binom[a*(s.n+1)+b] = s.binom[(a-1)*(s.n+1)+b-1] + s.binom[(a-1)*(s.n+1)+b]
-		}
+	s.logFact = make([]float64, s.n+1)
+	for a := range s.logFact {
+		s.logFact[a], _ = math.Lgamma(float64(a) + 1)
 	}
 	// Every set of the groups that fix a row bounds it, or with many groups
 	// (2^(k−2) sets) each one alone and all of them.
@@ -388,7 +420,7 @@ func product(a, b int) int {
 // boxSize gives the cells of a bucket's box and its rows.
 func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 	k := len(s.sizes)
-	lo, hi := make([]int64, k), make([]int64, k)
+	lo, hi := s.lo, s.hi
 	cells = s.box(counts, t, lo, hi)
 	if cells == 0 {
 		return 0, 0
@@ -398,7 +430,7 @@ func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 
 // figures are the sizes of the layers of a computation, in cells.
 type figures struct {
-	peak        int // the room two consecutive layers take (a row takes two cells, for its place in the row table)
+	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes four cells: its place in the row table, and in the layer's scratch while it is laid out; a bucket takes bucketRoom)
 	layer       int // the cells of the largest layer
 	cells, rows int // of all layers
 }
@@ -426,7 +458,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 				}
 				counts[i] = left
 				c, r := size(counts, t)
-				inLayer, layerCells = min(inLayer+c+2*r, tooMany), min(layerCells+c, tooMany)
+				inLayer, layerCells = min(inLayer+c+4*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
 				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
 				return
 			}
@@ -440,7 +472,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 			}
 		}
 		walk(0, t)
-		fig.peak, fig.layer = max(fig.peak, min(before+inLayer, tooMany)), max(fig.layer, layerCells)
+		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
 		before = inLayer
 	}
 	return fig
@@ -734,11 +766,12 @@ func (w *rows) next() {
 
 // layer is a layer being built: its buckets by their counts.
 type layer struct {
-	s     *space
-	t     int // scores dealt
-	byKey map[uint64]*bucket
-	cells int    // in arrays
-	shape *shape // scratch
+	s       *space
+	t       int // scores dealt
+	byKey   map[uint64]*bucket
+	cells   int    // in arrays
+	reached int    // states in hash tables
+	shape   *shape // scratch
 }
 
 func newLayer(s *space, t int) *layer {
@@ -764,7 +797,7 @@ func (l *layer) get(counts []int) *bucket {
 		l.cells += cells
 	} else {
 		l.s.box(counts, l.t, sh.lo, sh.hi)
-		b.table = newTable(1024)
+		b.table = newTable(1024, &l.reached)
 	}
 	copy(b.lo, sh.lo)
 	step := 1
@@ -808,13 +841,16 @@ type state struct {
 	slope  []int64    // how each group's sum changes along a row
 	slope2 []int64    // and each of a successor's, in its order
 	kept   []bool     // which of a successor's pairs were dealt nothing
+	after  []int      // the room of the groups from each on, during enumeration
+	moves  []move     // the last list of moves, and their deals side by side
+	deals  []int
 }
 
 func (s *space) scratch() *state {
 	k := len(s.sizes)
 	slope := make([]int64, k)
 	slope[k-2], slope[k-1] = 1, -1
-	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k), slope: slope, slope2: make([]int64, k), kept: make([]bool, k)}
+	return &state{sum: make([]int64, k), d: make([]int, k), c2: make([]int, k), s2: make([]int64, k), recv: make([]receiver, k), slope: slope, slope2: make([]int64, k), kept: make([]bool, k), after: make([]int, k+1)}
 }
 
 // arrange puts counts and sums into canonical order within each size class:
@@ -840,30 +876,45 @@ type move struct {
 	to *bucket
 }
 
-// moves lists every way to deal block b to the states of bucket from, by
-// the multivariate hypergeometric probability ∏ C(rᵢ, dᵢ)/C(R, b) of
-// dealing dᵢ of its scores to group i, rᵢ the room left in group i and R
-// their sum. All states of the bucket lead under one deal to one bucket of
-// next: the counts, raised by the deal, in canonical order.
-func (s *space) moves(from *bucket, b Block, st *state, next *layer) []move {
+// moves hands every way to deal block b to the states of bucket from to
+// use, a batch of at most movesBatch at a time (a block of many equal scores,
+// as in yes/no data, has hundreds of thousands), with the multivariate
+// hypergeometric probability ∏ C(rᵢ, dᵢ)/C(R, b) of dealing dᵢ of its scores
+// to group i, rᵢ the room left in group i and R their sum. All states of the
+// bucket lead under one deal to one bucket of next: the counts, raised by
+// the deal, in canonical order. Only deals that the rooms allow are visited:
+// group i takes at least what groups i+1 … cannot hold.
+func (s *space) moves(from *bucket, b Block, st *state, next *layer, use func([]move) error) error {
 	k := len(s.sizes)
-	room := 0
-	for i := range k {
-		room += s.sizes[i] - from.counts[i]
+	after := st.after[:k+1] // after[i]: the room of groups i …
+	after[k] = 0
+	for i := k - 1; i >= 0; i-- {
+		after[i] = after[i+1] + s.sizes[i] - from.counts[i]
 	}
-	var list []move
-	var walk func(i, left int, w float64)
-	walk = func(i, left int, w float64) {
+	if b.Count > after[0] {
+		return nil
+	}
+	list, flat := st.moves[:0], st.deals[:0]
+	flush := func() error {
+		for i := range list {
+			list[i].d = flat[i*k : (i+1)*k : (i+1)*k]
+		}
+		err := use(list)
+		clear(list) // no bucket is kept alive by a stale pointer
+		list, flat = list[:0], flat[:0]
+		return err
+	}
+	var walk func(i, left int, logW float64) error
+	walk = func(i, left int, logW float64) error {
 		r := s.sizes[i] - from.counts[i]
 		if i < k-1 {
-			for d := 0; d <= min(r, left); d++ {
+			for d := max(0, left-after[i+1]); d <= min(r, left); d++ {
 				st.d[i] = d
-				walk(i+1, left-d, w*s.binom[r*(s.n+1)+d])
+				if err := walk(i+1, left-d, logW+s.logChoose(r, d)); err != nil {
+					return err
+				}
 			}
-			return
-		}
-		if left > r {
-			return
+			return nil
 		}
 		st.d[i] = left
 		for i := range k {
@@ -874,10 +925,32 @@ func (s *space) moves(from *bucket, b Block, st *state, next *layer) []move {
 				st.c2[j], st.c2[j-1] = st.c2[j-1], st.c2[j]
 			}
 		}
-		list = append(list, move{d: slices.Clone(st.d), w: w * s.binom[r*(s.n+1)+left], to: next.get(st.c2)})
+		flat = append(flat, st.d...)
+		list = append(list, move{w: math.Exp(logW + s.logChoose(r, left)), to: next.get(st.c2)})
+		if len(list) == movesBatch {
+			return flush()
+		}
+		return nil
 	}
-	walk(0, b.Count, 1/s.binom[room*(s.n+1)+b.Count])
-	return list
+	err := walk(0, b.Count, -s.logChoose(after[0], b.Count))
+	if err == nil && len(list) > 0 {
+		err = flush()
+	}
+	st.moves, st.deals = list, flat // kept for the next call
+	return err
+}
+
+// movesBatch is how many moves are handed on at once: enough that a row's
+// cells are read from cache by many, few enough that the list stays in cache.
+const movesBatch = 4096
+
+// logChoose is log C(a, b) = log a! − log b! − log (a−b)!, from log-gamma, so
+// that no coefficient overflows (C(1030, 515) already exceeds float64). Each
+// log a! carries a relative error of about 2⁻⁵³, so a deal's probability, a
+// difference of such logs, is off by about (k+1)·2⁻⁵³·log N! relatively:
+// 10⁻¹⁴ at N = 20, 10⁻¹¹ at N = 3,000.
+func (s *space) logChoose(a, b int) float64 {
+	return s.logFact[a] - s.logFact[b] - s.logFact[a-b]
 }
 
 // deal adds to next every way of dealing block b to every state of bucket
@@ -886,37 +959,40 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 	if b.Count == 1 && s.dense {
 		return s.dealOne(ctx, from, b.Score, dealt, st, next)
 	}
-	moves := s.moves(from, b, st, next)
 	total := s.prefix[dealt]
 	if !s.dense {
 		k := len(s.sizes)
-		for _, mv := range moves {
-			err := from.each(ctx, total, st.sum, func(p float64) {
-				for i := range k {
-					st.c2[i] = from.counts[i] + mv.d[i]
-					st.s2[i] = st.sum[i] + int64(mv.d[i])*b.Score
+		return s.moves(from, b, st, next, func(moves []move) error {
+			for _, mv := range moves {
+				err := from.each(ctx, total, st.sum, func(p float64) {
+					for i := range k {
+						st.c2[i] = from.counts[i] + mv.d[i]
+						st.s2[i] = st.sum[i] + int64(mv.d[i])*b.Score
+					}
+					s.arrange(st.c2, st.s2)
+					mv.to.add(mv.to.index(st.s2), p*mv.w)
+				})
+				if err != nil {
+					return err
 				}
-				s.arrange(st.c2, st.s2)
-				mv.to.add(mv.to.index(st.s2), p*mv.w)
-			})
-			if err != nil {
-				return err
 			}
+			return nil
+		})
+	}
+	return s.moves(from, b, st, next, func(moves []move) error {
+		// row by row, so that a row's cells are read from cache by every move
+		for w := from.walk(total, st.sum); w.more(); w.next() {
+			if w.row&0xffff == 0 && ctx.Err() != nil {
+				return ctx.Err()
+			}
+			cells, v := w.cells()
+			if len(cells) == 0 {
+				continue
+			}
+			s.spread(st, from.counts, moves, b.Score, cells, v, w.rest)
 		}
 		return nil
-	}
-	// row by row, so that a row's cells are read from cache by every move
-	for w := from.walk(total, st.sum); w.more(); w.next() {
-		if w.row&0xffff == 0 && ctx.Err() != nil {
-			return ctx.Err()
-		}
-		cells, v := w.cells()
-		if len(cells) == 0 {
-			continue
-		}
-		s.spread(st, from.counts, moves, b.Score, cells, v, w.rest)
-	}
-	return nil
+	})
 }
 
 // spread adds the successors under every move of the states of a row with
@@ -1239,7 +1315,9 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 	}
 	k := len(sorted)
 	worst := 1.0
-	for t := 1; t < n; t++ {
+	t := 0
+	for _, b := range blocks[:len(blocks)-1] { // layers exist after each block but the last
+		t += b.Count
 		est := 1.0
 		for i := 0; i < k-1; i++ {
 			pairs := 0.0

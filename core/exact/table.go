@@ -15,13 +15,14 @@ type entry struct {
 // with linear probing; it grows at half full to keep probes short. It holds
 // a bucket's states when a dense array would be too large.
 type table struct {
-	slots []entry
-	n     int
-	shift uint // 64 − log2(len(slots))
+	slots  []entry
+	n      int
+	shift  uint // 64 − log2(len(slots))
+	shared *int // counts the new keys of every table of a layer
 }
 
-func newTable(capacity int) *table {
-	l := &table{}
+func newTable(capacity int, shared *int) *table {
+	l := &table{shared: shared}
 	l.reset(capacity)
 	return l
 }
@@ -58,6 +59,9 @@ func (l *table) add(key uint64, p float64) {
 		case empty:
 			*e = entry{key, p}
 			l.n++
+			if l.shared != nil {
+				*l.shared++
+			}
 			if 2*l.n > len(l.slots) {
 				l.grow()
 			}
@@ -86,9 +90,12 @@ func (l *table) grow() {
 	}
 	l.shift--
 	l.n = 0
+	shared := l.shared
+	l.shared = nil // the keys are not new
 	for _, e := range old {
 		if e.key != empty {
 			l.add(e.key, e.p)
 		}
 	}
+	l.shared = shared
 }

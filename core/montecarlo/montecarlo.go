@@ -43,10 +43,20 @@ type Result struct {
 // Progress is told how many resamples are done.
 type Progress func(done, total int)
 
-// PValue estimates P(T ≥ observed) for T = Σ weightᵢ·sᵢ², sᵢ the sum of the
-// scores dealt to group i, groups of the given sizes taking the scores in
-// turn. It stops with ctx.
-func PValue(ctx context.Context, sizes []int, weights []int64, scores []int64, observed int64, resamples int, seed uint64, progress Progress) (Result, error) {
+// PValue estimates the probability that a random deal of the scores into
+// groups of the given sizes (taking the scores in turn) has a statistic
+// X = Σ sᵢ²/nᵢ at least that of the observed group sums, sᵢ the sum of the
+// scores dealt to group i; X orders deals as H does, and the comparison is
+// exact (see reach). It stops with ctx.
+func PValue(ctx context.Context, sizes []int, scores []int64, observedSums []int64, resamples int, seed uint64, progress Progress) (Result, error) {
+	var total int64
+	for _, s := range scores {
+		total += s
+	}
+	target, err := newReach(sizes, observedSums, total)
+	if err != nil {
+		return Result{}, err
+	}
 	chunks := (resamples + ChunkSize - 1) / ChunkSize
 	var next atomic.Int64
 	var exceed atomic.Int64
@@ -56,14 +66,14 @@ func PValue(ctx context.Context, sizes []int, weights []int64, scores []int64, o
 	workers := min(runtime.GOMAXPROCS(0), chunks)
 	for range workers {
 		wg.Go(func() {
-			d := newDealer(sizes, weights, scores)
+			d := newDealer(sizes, scores, total)
 			for ctx.Err() == nil {
 				c := int(next.Add(1) - 1)
 				if c >= chunks {
 					return
 				}
 				count := min(ChunkSize, resamples-c*ChunkSize)
-				exceed.Add(int64(d.chunk(random.New(seed, uint64(c)), count, observed)))
+				exceed.Add(int64(d.chunk(random.New(seed, uint64(c)), count, target)))
 				finished := done.Add(int64(count))
 				if progress != nil {
 					report.Lock()
@@ -83,21 +93,19 @@ func PValue(ctx context.Context, sizes []int, weights []int64, scores []int64, o
 	return r, nil
 }
 
-// dealer holds one worker's two copies of the scores.
+// dealer holds one worker's two copies of the scores and their group sums.
 type dealer struct {
-	sizes   []int
-	weights []int64
-	scores  []int64
-	a, b    []int64
-	total   int64
+	sizes        []int
+	scores       []int64
+	a, b         []int64
+	sumsA, sumsB []int64
+	total        int64
 }
 
-func newDealer(sizes []int, weights []int64, scores []int64) *dealer {
-	d := &dealer{sizes: sizes, weights: weights, scores: scores, a: make([]int64, len(scores)), b: make([]int64, len(scores))}
-	for _, s := range scores {
-		d.total += s
-	}
-	return d
+func newDealer(sizes []int, scores []int64, total int64) *dealer {
+	n, k := len(scores), len(sizes)
+	return &dealer{sizes: sizes, scores: scores, total: total,
+		a: make([]int64, n), b: make([]int64, n), sumsA: make([]int64, k), sumsB: make([]int64, k)}
 }
 
 // chunk draws count deals from g and returns how many reach observed. Each
@@ -108,7 +116,7 @@ func newDealer(sizes []int, weights []int64, scores []int64) *dealer {
 // the range by random.Bounded written out in line): the two chains of swaps
 // do not wait for each other, so the processor overlaps them. When count is
 // odd, the second deal of the last pair is made but not counted.
-func (d *dealer) chunk(g *random.Xoshiro, count int, observed int64) int {
+func (d *dealer) chunk(g *random.Xoshiro, count int, target *reach) int {
 	copy(d.a, d.scores)
 	copy(d.b, d.scores)
 	a, b := d.a, d.b
@@ -116,7 +124,6 @@ func (d *dealer) chunk(g *random.Xoshiro, count int, observed int64) int {
 	last := len(d.sizes) - 1
 	hits := 0
 	for done := 0; done < count; done += 2 {
-		var ta, tb int64
 		pos := 0
 		restA, restB := d.total, d.total
 		for gi, size := range d.sizes[:last] {
@@ -137,17 +144,15 @@ func (d *dealer) chunk(g *random.Xoshiro, count int, observed int64) int {
 				sa += a[pos]
 				sb += b[pos]
 			}
-			ta += d.weights[gi] * sa * sa
-			tb += d.weights[gi] * sb * sb
+			d.sumsA[gi], d.sumsB[gi] = sa, sb
 			restA -= sa
 			restB -= sb
 		}
-		ta += d.weights[last] * restA * restA
-		tb += d.weights[last] * restB * restB
-		if ta >= observed {
+		d.sumsA[last], d.sumsB[last] = restA, restB
+		if target.reaches(d.sumsA) {
 			hits++
 		}
-		if tb >= observed && done+1 < count {
+		if done+1 < count && target.reaches(d.sumsB) {
 			hits++
 		}
 	}

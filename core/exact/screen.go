@@ -1,0 +1,85 @@
+package exact
+
+import "fmt"
+
+// screenWork bounds the work of the screen itself, k·N additions: beyond it
+// (say 10,000 groups, or 50 groups of 20,000 values) the exact method is out
+// of reach anyway, and refusing at once keeps the refusal cheap.
+const screenWork = 50_000_000
+
+// saturate caps the counts of the screen: far beyond any budget, and far
+// from overflowing float64.
+const saturate = 1e30
+
+// hashCost is what a state in a hash table costs in time against a cell of
+// an array (a probe and a scattered write against a step of a straight
+// loop), for the budget Limits.MaxWork; measured here at 4 to 8.
+const hashCost = 4
+
+// planBuckets bounds the count vectors that the planner may walk over all
+// layers (each takes it about 50 to 100 ns natively): 20 million is one to two
+// seconds.
+const planBuckets = 20_000_000
+
+// bucketCost is what the planner's visit to a bucket costs in time against
+// a cell of an array, for the budget Limits.MaxWork; measured here at 3 to 5.
+const bucketCost = 4
+
+// screen refuses, in time linear in k·N and before any layer is planned, a
+// computation whose layers must exceed lim: a layer after t scores holds at
+// least one state for each canonical count vector, and there are at least
+//
+//	V(t)/∏ mⱼ!
+//
+// of them, V(t) the number of count vectors (c₁ … c_k), 0 ≤ cᵢ ≤ nᵢ, adding
+// up to t — the coefficient of xᵗ in ∏ᵢ (1 + x + … + x^nᵢ) — and mⱼ the
+// number of groups of each size, whose orders canonical order merges. The
+// planner walks these vectors one by one, so without this screen it alone
+// could run for minutes on large samples.
+func (s *space) screen(lim Limits) error {
+	k := len(s.sizes)
+	if k*s.n > screenWork {
+		return &TooLargeError{fmt.Sprintf("%d groups and %d values are beyond the exact method here", k, s.n)}
+	}
+	// V(t) for every t, one group at a time: multiplying by 1 + … + x^n is
+	// a moving sum over a window of n+1 coefficients.
+	v := make([]float64, s.n+1)
+	next := make([]float64, s.n+1)
+	v[0] = 1
+	degree := 0
+	merged := 1.0
+	for i, n := range s.sizes {
+		degree += n
+		window := 0.0
+		for t := 0; t <= degree; t++ {
+			window += v[t]
+			if t > n {
+				window -= v[t-n-1]
+			}
+			next[t] = min(window, saturate)
+		}
+		v, next = next, v
+		if i > 0 && s.class[i] != i {
+			merged *= float64(i - s.class[i] + 1)
+		}
+	}
+	var peak, largest, total, before float64
+	for _, t := range s.cuts {
+		layer := v[t] / merged
+		peak, largest, total = max(peak, before+layer), max(largest, layer), total+layer
+		before = layer
+	}
+	walk := float64(planBuckets)
+	if lim.MaxWork > 0 {
+		walk = min(walk, float64(lim.MaxWork)/bucketCost)
+	}
+	if total > walk {
+		return &TooLargeError{fmt.Sprintf("at least %.2g states in all, more than %.0f", total, walk)}
+	}
+	arrays := peak <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
+	tables := largest <= float64(lim.MaxStates) && (lim.MaxWork == 0 || total*hashCost <= float64(lim.MaxWork))
+	if !arrays && !tables {
+		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
+	}
+	return nil
+}
