@@ -374,7 +374,7 @@ func (r *Result) Page(list List, offset, count int) PageOf {
 		p.Total = len(r.ranking.Ties)
 	}
 	offset = min(max(offset, 0), p.Total)
-	end := min(offset+max(count, 0), p.Total)
+	end := offset + min(max(count, 0), p.Total-offset) // no overflow, whatever count
 	p.Offset = offset
 	if list == ListTies {
 		p.Ties = r.ranking.Ties[offset:end]

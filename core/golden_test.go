@@ -122,8 +122,8 @@ func TestEncodeMatchesStructTags(t *testing.T) {
 			t.Errorf("%s: Encode differs from encoding/json", c.Name)
 		}
 		p := r.Page(ListRanks, 1, 3)
-		if got, want := EncodePage(p), stdJSON(t, p); !bytes.Equal(got, want) {
-			t.Errorf("%s: EncodePage = %s, encoding/json %s", c.Name, got, want)
+		if got, err := EncodePage(p); err != nil || !bytes.Equal(got, stdJSON(t, p)) {
+			t.Errorf("%s: EncodePage = %s, %v; encoding/json %s", c.Name, got, err, stdJSON(t, p))
 		}
 	}
 }

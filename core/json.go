@@ -92,6 +92,9 @@ func Encode(r *Result) ([]byte, error) {
 	w.EndArray()
 	w.StringMember("decision", r.Decision)
 	w.EndObject()
+	if err := w.Err(); err != nil {
+		return nil, err
+	}
 	return append(w.Bytes(), '\n'), nil
 }
 
@@ -111,9 +114,9 @@ func writeRanks(w *jsonlite.Writer, ranks []RankedValue) {
 		buf = append(buf[:0], `{"group":`...)
 		buf = append(buf, q...)
 		buf = append(buf, `,"value":`...)
-		buf = jsonlite.AppendFloat(buf, v.Value)
+		buf = w.AppendFloat(buf, v.Value)
 		buf = append(buf, `,"rank":`...)
-		buf = jsonlite.AppendFloat(buf, v.Rank)
+		buf = w.AppendFloat(buf, v.Rank)
 		buf = append(buf, `,"line":`...)
 		buf = strconv.AppendInt(buf, int64(v.Line), 10)
 		buf = append(buf, `,"shared":`...)
@@ -318,7 +321,7 @@ func writePlace(w *jsonlite.Writer, p ProblemDetail) {
 }
 
 // EncodePage renders one page of a list as JSON.
-func EncodePage(p PageOf) []byte {
+func EncodePage(p PageOf) ([]byte, error) {
 	var w jsonlite.Writer
 	w.BeginObject()
 	w.StringMember("list", string(p.List))
@@ -333,5 +336,8 @@ func EncodePage(p PageOf) []byte {
 		writeTies(&w, p.Ties)
 	}
 	w.EndObject()
-	return append(w.Bytes(), '\n')
+	if err := w.Err(); err != nil {
+		return nil, err
+	}
+	return append(w.Bytes(), '\n'), nil
 }

@@ -26,8 +26,11 @@
 package main
 
 import (
+	"cmp"
 	"context"
 	"errors"
+	"fmt"
+	"math"
 	"slices"
 	"syscall/js"
 	"unsafe"
@@ -46,110 +49,138 @@ var last *core.Result
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
-		"analyze":   js.FuncOf(analyze),
-		"preview":   js.FuncOf(preview),
-		"workspace": js.FuncOf(workspace),
-		"page":      js.FuncOf(page),
-		"link":      js.FuncOf(shareLink),
-		"openLink":  js.FuncOf(openLink),
+		"analyze":   guarded(analyze),
+		"preview":   guarded(preview),
+		"workspace": guarded(workspace),
+		"page":      guarded(page),
+		"link":      guarded(shareLink),
+		"openLink":  guarded(openLink),
 		"version":   core.Version,
 		"defaults":  string(core.Defaults().JSON()),
 	}))
 }
 
-func analyze(_ js.Value, args []js.Value) any {
-	if len(args) < 1 {
-		return string(core.EncodeError(errors.New("analyze(data, optionsJSON) needs the data")))
-	}
-	opt, err := optionsOf(args)
-	if err != nil {
-		return string(core.EncodeError(err))
-	}
-	return answer(core.AnalyzeContext(context.Background(), bytesOf(args[0]), opt, progressOf(args, 2)))
+// guarded wraps a function of the API so that whatever goes wrong inside
+// (a bug, a callback that throws) comes back as an error answer instead of
+// stopping the module, which would need a reload of the page.
+func guarded(fn func([]js.Value) (string, error)) js.Func {
+	return js.FuncOf(func(_ js.Value, args []js.Value) (out any) {
+		defer func() {
+			if p := recover(); p != nil {
+				out = string(core.EncodeError(fmt.Errorf("internal error in the module: %v; reload the page, and please report it", p)))
+			}
+		}()
+		answer, err := fn(args)
+		if err != nil {
+			return string(core.EncodeError(err))
+		}
+		return answer
+	})
 }
 
-func workspace(_ js.Value, args []js.Value) any {
-	if len(args) < 3 || args[2].Type() != js.TypeFunction {
-		return string(core.EncodeError(errors.New("workspace(data, optionsJSON, onPreview[, onProgress]) needs three arguments")))
-	}
-	opt, err := optionsOf(args)
+func analyze(args []js.Value) (string, error) {
+	const call = "analyze(data, optionsJSON[, onProgress])"
+	data, opt, err := inputOf(call, args)
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
-	onPreview := args[2]
-	return answer(core.Workspace(context.Background(), bytesOf(args[0]), opt,
-		func(p core.Preview) { onPreview.Invoke(string(core.EncodePreview(p))) }, progressOf(args, 3)))
+	progress, err := progressOf(call, args, 2)
+	if err != nil {
+		return "", err
+	}
+	return answer(core.AnalyzeContext(context.Background(), data, opt, progress))
 }
 
-// answer is the JSON of an analysis, kept for page, or of its error.
-func answer(r *core.Result, err error) any {
+func workspace(args []js.Value) (string, error) {
+	const call = "workspace(data, optionsJSON, onPreview[, onProgress])"
+	data, opt, err := inputOf(call, args)
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
+	}
+	onPreview, err := callbackOf(call, args, 2)
+	if err != nil || onPreview == nil {
+		return "", cmp.Or(err, fmt.Errorf("%s needs onPreview", call))
+	}
+	progress, err := progressOf(call, args, 3)
+	if err != nil {
+		return "", err
+	}
+	return answer(core.Workspace(context.Background(), data, opt,
+		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
+}
+
+// answer is the JSON of an analysis, kept for page.
+func answer(r *core.Result, err error) (string, error) {
+	if err != nil {
+		return "", err
 	}
 	b, err := core.Encode(r)
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
 	last = r
-	return unsafe.String(unsafe.SliceData(b), len(b))
+	return unsafe.String(unsafe.SliceData(b), len(b)), nil
 }
 
-func preview(_ js.Value, args []js.Value) any {
-	if len(args) < 1 {
-		return string(core.EncodeError(errors.New("preview(data, optionsJSON) needs the data")))
-	}
-	opt, err := optionsOf(args)
+func preview(args []js.Value) (string, error) {
+	data, opt, err := inputOf("preview(data, optionsJSON)", args)
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
-	return string(core.EncodePreview(core.PreviewOf(bytesOf(args[0]), opt)))
+	return string(core.EncodePreview(core.PreviewOf(data, opt))), nil
 }
 
-func page(_ js.Value, args []js.Value) any {
+func page(args []js.Value) (string, error) {
+	const call = "page(list, offset, count)"
 	if last == nil {
-		return string(core.EncodeError(errors.New("page: there is no analysis yet; call analyze first")))
+		return "", errors.New("page: there is no analysis yet; call analyze first")
 	}
-	if len(args) < 3 {
-		return string(core.EncodeError(errors.New("page(list, offset, count) needs three arguments")))
+	if len(args) < 3 || args[0].Type() != js.TypeString {
+		return "", fmt.Errorf("%s needs a list name and two whole numbers", call)
 	}
 	list := core.List(args[0].String())
 	if !slices.Contains(core.Lists, list) {
-		return string(core.EncodeError(errors.New(`page: the list is "ranks", "ranked" or "ties"`)))
+		return "", errors.New(`page: the list is "ranks", "ranked" or "ties"`)
 	}
-	return string(core.EncodePage(last.Page(list, args[1].Int(), args[2].Int())))
+	offset, err := wholeOf(call, "offset", args[1])
+	if err != nil {
+		return "", err
+	}
+	count, err := wholeOf(call, "count", args[2])
+	if err != nil {
+		return "", err
+	}
+	b, err := core.EncodePage(last.Page(list, offset, count))
+	return string(b), err
 }
 
-func shareLink(_ js.Value, args []js.Value) any {
-	if len(args) < 2 {
-		return string(core.EncodeError(errors.New("link(data, optionsJSON) needs two arguments")))
-	}
-	opt, err := optionsOf(args)
+func shareLink(args []js.Value) (string, error) {
+	data, opt, err := inputOf("link(data, optionsJSON)", args)
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
-	data := bytesOf(args[0])
 	var labels []string
 	for _, g := range core.PreviewOf(data, opt).Groups {
 		labels = append(labels, g.Label)
 	}
 	fragment, err := core.ShareLink(data, opt.ForLabels(labels))
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
 	var w jsonlite.Writer
 	w.BeginObject()
 	w.StringMember("link", fragment)
 	w.EndObject()
-	return string(w.Bytes())
+	return string(w.Bytes()), nil
 }
 
-func openLink(_ js.Value, args []js.Value) any {
-	if len(args) < 1 {
-		return string(core.EncodeError(errors.New("openLink(fragment) needs the fragment")))
+func openLink(args []js.Value) (string, error) {
+	if len(args) < 1 || args[0].Type() != js.TypeString {
+		return "", errors.New("openLink(fragment) needs the fragment as a string")
 	}
 	req, err := core.OpenLink(args[0].String())
 	if err != nil {
-		return string(core.EncodeError(err))
+		return "", err
 	}
 	var w jsonlite.Writer
 	w.BeginObject()
@@ -157,44 +188,99 @@ func openLink(_ js.Value, args []js.Value) any {
 	w.Key("options")
 	w.Raw(req.Options.JSON())
 	w.EndObject()
-	return string(w.Bytes())
+	return string(w.Bytes()), nil
 }
 
-// optionsOf reads the options JSON in args[1]; none means the defaults.
-func optionsOf(args []js.Value) (core.Options, error) {
-	if len(args) > 1 && args[1].Type() == js.TypeString {
-		return core.DecodeOptions([]byte(args[1].String()))
+// inputOf reads the data in args[0] and the options in args[1] of call.
+func inputOf(call string, args []js.Value) ([]byte, core.Options, error) {
+	if len(args) < 1 {
+		return nil, core.Options{}, fmt.Errorf("%s needs the data", call)
 	}
-	return core.Options{}, nil
-}
-
-// progressOf is the progress callback in args[i], if one is given.
-func progressOf(args []js.Value, i int) core.Progress {
-	if len(args) > i && args[i].Type() == js.TypeFunction {
-		return throttled(args[i])
+	data, err := bytesOf(call, args[0])
+	if err != nil {
+		return nil, core.Options{}, err
 	}
-	return nil
+	opt, err := optionsOf(call, args)
+	return data, opt, err
 }
 
-// throttled calls fn when the progress has moved by a percent or more.
-func throttled(fn js.Value) core.Progress {
+// wholeOf reads a whole number from 0 to 2³¹ − 1.
+func wholeOf(call, name string, v js.Value) (int, error) {
+	if v.Type() == js.TypeNumber {
+		if f := v.Float(); f >= 0 && f <= math.MaxInt32 && f == math.Trunc(f) {
+			return int(f), nil
+		}
+	}
+	return 0, fmt.Errorf("%s: %s must be a whole number from 0 to %d, not %s", call, name, math.MaxInt32, v.Type())
+}
+
+// optionsOf reads the options in args[1]: JSON text, or an object, which is
+// put through JSON.stringify; none (or undefined or null) means the defaults.
+func optionsOf(call string, args []js.Value) (core.Options, error) {
+	if len(args) < 2 || args[1].IsUndefined() || args[1].IsNull() {
+		return core.Options{}, nil
+	}
+	switch v := args[1]; v.Type() {
+	case js.TypeString:
+		return core.DecodeOptions([]byte(v.String()))
+	case js.TypeObject:
+		return core.DecodeOptions([]byte(js.Global().Get("JSON").Call("stringify", v).String()))
+	}
+	return core.Options{}, fmt.Errorf("%s: the options must be JSON text or an object, not a %s", call, args[1].Type())
+}
+
+// callbackOf is the function in args[i], nil when none is given, wrapped so
+// that an exception it throws is swallowed: a failing progress bar must not
+// stop an analysis, and later calls are skipped.
+func callbackOf(call string, args []js.Value, i int) (func(...any), error) {
+	if len(args) <= i || args[i].IsUndefined() || args[i].IsNull() {
+		return nil, nil
+	}
+	fn := args[i]
+	if fn.Type() != js.TypeFunction {
+		return nil, fmt.Errorf("%s: argument %d must be a function, not a %s", call, i+1, fn.Type())
+	}
+	broken := false
+	return func(values ...any) {
+		if broken {
+			return
+		}
+		defer func() {
+			if recover() != nil {
+				broken = true
+			}
+		}()
+		fn.Invoke(values...)
+	}, nil
+}
+
+// progressOf is the progress callback in args[i], if one is given, called
+// when the progress has moved by a percent or more.
+func progressOf(call string, args []js.Value, i int) (core.Progress, error) {
+	fn, err := callbackOf(call, args, i)
+	if fn == nil || err != nil {
+		return nil, err
+	}
 	last := -1
 	return func(stage string, done, total int) {
 		if pct := 100 * done / max(total, 1); pct != last {
 			last = pct
-			fn.Invoke(stage, done, total)
+			fn(stage, done, total)
 		}
-	}
+	}, nil
 }
 
 // bytesOf returns the data argument as bytes: a Uint8Array is copied once;
 // a string is converted by syscall/js and then viewed without another copy.
-func bytesOf(v js.Value) []byte {
-	if v.Type() == js.TypeObject && v.InstanceOf(js.Global().Get("Uint8Array")) {
+func bytesOf(call string, v js.Value) ([]byte, error) {
+	switch {
+	case v.Type() == js.TypeString:
+		s := v.String()
+		return unsafe.Slice(unsafe.StringData(s), len(s)), nil
+	case v.Type() == js.TypeObject && v.InstanceOf(js.Global().Get("Uint8Array")):
 		b := make([]byte, v.Length())
 		js.CopyBytesToGo(b, v)
-		return b
+		return b, nil
 	}
-	s := v.String()
-	return unsafe.Slice(unsafe.StringData(s), len(s))
+	return nil, fmt.Errorf("%s: the data must be text or a Uint8Array, not a %s", call, v.Type())
 }

@@ -133,3 +133,43 @@ func TestLinks(t *testing.T) {
 		t.Errorf("openLink of a broken link = %s", bad)
 	}
 }
+
+// TestBadArguments: wrong arguments get an error answer that names what is
+// wrong, a progress callback that throws does not stop the analysis, and the
+// module keeps answering afterwards.
+func TestBadArguments(t *testing.T) {
+	m := module()
+	data := "A,B,C\n1,2,3\n4,5,6\n7,8,9\n"
+	m.Call("analyze", data, "")
+	for _, c := range []struct {
+		name string
+		args []any
+		says string
+	}{
+		{"page", []any{"ranks", "x", 1}, "offset must be a whole number"},
+		{"page", []any{"ranks", 1e300, 1e300}, "offset must be a whole number"},
+		{"page", []any{"ranks", 0, -1}, "count must be a whole number"},
+		{"page", []any{7, 0, 1}, "needs a list name"},
+		{"analyze", []any{12, ""}, "the data must be text or a Uint8Array"},
+		{"analyze", []any{data, 5}, "the options must be JSON text or an object"},
+		{"analyze", []any{data, "", "not a function"}, "must be a function"},
+		{"openLink", []any{nil}, "needs the fragment"},
+	} {
+		if got := m.Call(c.name, c.args...).String(); !strings.Contains(got, `"error"`) || !strings.Contains(got, c.says) {
+			t.Errorf("%s%v = %.300s, want an error saying %q", c.name, c.args, got, c.says)
+		}
+	}
+	// options as an object are read, not ignored
+	asObject := m.Call("analyze", data, js.ValueOf(map[string]any{"alpha": 0.1})).String()
+	if !strings.Contains(asObject, `"alpha":0.1`) {
+		t.Errorf("analyze with options as an object = %.200s", asObject)
+	}
+	throws := js.Global().Get("Function").New("stage", "done", "total", "throw new Error('broken progress bar')")
+	got := m.Call("analyze", data, `{"pvalue":"monte-carlo","resamples":20000}`, throws).String()
+	if !strings.Contains(got, `"p_method":"monte-carlo"`) {
+		t.Errorf("analyze with a throwing callback = %.300s", got)
+	}
+	if again := m.Call("page", "ranks", 0, 1).String(); !strings.Contains(again, `"total":9`) {
+		t.Errorf("page after the bad calls = %.200s", again)
+	}
+}

@@ -125,3 +125,10 @@ func upperGammaInverse(a, q float64) float64 {
 	}
 	return x
 }
+
+// LogFactorial is ln n! = ln Γ(n+1), the same bytes on every platform (see
+// elementary.go).
+func LogFactorial(n int) float64 { return lgamma(float64(n) + 1) }
+
+// Exp is eˣ, the same bytes on every platform (see elementary.go).
+func Exp(x float64) float64 { return exp(x) }

@@ -34,10 +34,11 @@ import (
 	"errors"
 	"fmt"
 	"maps"
-	"math"
 	"math/bits"
 	"slices"
 	"sort"
+
+	"midrank/core/dist"
 )
 
 // Block is a run of equal scores.
@@ -317,7 +318,7 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 	}
 	s.logFact = make([]float64, s.n+1)
 	for a := range s.logFact {
-		s.logFact[a], _ = math.Lgamma(float64(a) + 1)
+		s.logFact[a] = dist.LogFactorial(a)
 	}
 	// Every set of the groups that fix a row bounds it, or with many groups
 	// (2^(k−2) sets) each one alone and all of them.
@@ -926,7 +927,7 @@ func (s *space) moves(from *bucket, b Block, st *state, next *layer, use func([]
 			}
 		}
 		flat = append(flat, st.d...)
-		list = append(list, move{w: math.Exp(logW + s.logChoose(r, left)), to: next.get(st.c2)})
+		list = append(list, move{w: dist.Exp(logW + s.logChoose(r, left)), to: next.get(st.c2)})
 		if len(list) == movesBatch {
 			return flush()
 		}
@@ -945,7 +946,9 @@ func (s *space) moves(from *bucket, b Block, st *state, next *layer, use func([]
 const movesBatch = 4096
 
 // logChoose is log C(a, b) = log a! − log b! − log (a−b)!, from log-gamma, so
-// that no coefficient overflows (C(1030, 515) already exceeds float64). Each
+// that no coefficient overflows (C(1030, 515) already exceeds float64); the
+// logarithms and their exponential are package dist's, which give the same
+// bytes on every platform. Each
 // log a! carries a relative error of about 2⁻⁵³, so a deal's probability, a
 // difference of such logs, is off by about (k+1)·2⁻⁵³·log N! relatively:
 // 10⁻¹⁴ at N = 20, 10⁻¹¹ at N = 3,000.

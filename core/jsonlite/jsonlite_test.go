@@ -32,8 +32,8 @@ func TestStringsMatchEncodingJSON(t *testing.T) {
 
 func TestFloatsMatchEncodingJSON(t *testing.T) {
 	for _, f := range []float64{0, 1, -1, 0.1, 1e-7, 1.5e-7, 1e20, 1e21, 123456789.125, 5e-324, math.MaxFloat64, -2.5e-12, 0.000001} {
-		if got, want := AppendFloat(nil, f), stdlib(f); !bytes.Equal(got, want) {
-			t.Errorf("AppendFloat(%v) = %s, encoding/json %s", f, got, want)
+		if got, want := appendFloat(nil, f), stdlib(f); !bytes.Equal(got, want) {
+			t.Errorf("appendFloat(%v) = %s, encoding/json %s", f, got, want)
 		}
 	}
 }

@@ -5,6 +5,7 @@
 package jsonlite
 
 import (
+	"fmt"
 	"math"
 	"slices"
 	"strconv"
@@ -16,7 +17,23 @@ import (
 type Writer struct {
 	b     []byte
 	first []bool // per open object or array: no member written yet
+	key   string // the last member name, for the error
+	err   error
 }
+
+// NotFiniteError reports that a NaN or an infinity was to be written; JSON
+// has no such numbers, so the Writer put null in its place.
+type NotFiniteError struct {
+	Key   string // the member it was written for, or the last one before it
+	Value float64
+}
+
+func (e *NotFiniteError) Error() string {
+	return fmt.Sprintf("internal error: %q would be %v, which JSON cannot hold", e.Key, e.Value)
+}
+
+// Err returns the first NotFiniteError met, or nil.
+func (w *Writer) Err() error { return w.err }
 
 // Grow makes room for n more bytes, saving the copies of growing by steps.
 func (w *Writer) Grow(n int) { w.b = slices.Grow(w.b, n) }
@@ -50,6 +67,7 @@ func (w *Writer) Key(name string) {
 	w.comma()
 	w.b = AppendString(w.b, name)
 	w.b = append(w.b, ':')
+	w.key = name
 	w.first[len(w.first)-1] = true // the value that follows takes no comma; the next Key does
 }
 
@@ -60,8 +78,21 @@ func (w *Writer) Raw(json []byte) { w.comma(); w.b = append(w.b, json...) }
 func (w *Writer) String(s string) { w.comma(); w.b = AppendString(w.b, s) }
 
 // Float writes a finite number as encoding/json does: the shortest decimal
-// that reads back the same, with an exponent below 1e-6 and from 1e21.
-func (w *Writer) Float(f float64) { w.comma(); w.b = AppendFloat(w.b, f) }
+// that reads back the same, with an exponent below 1e-6 and from 1e21. A NaN
+// or an infinity is written as null, and Err reports it.
+func (w *Writer) Float(f float64) { w.comma(); w.b = w.AppendFloat(w.b, f) }
+
+// AppendFloat appends f to b as Float writes it, for a value built in a
+// scratch buffer and written with Raw.
+func (w *Writer) AppendFloat(b []byte, f float64) []byte {
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		if w.err == nil {
+			w.err = &NotFiniteError{Key: w.key, Value: f}
+		}
+		return append(b, "null"...)
+	}
+	return appendFloat(b, f)
+}
 
 // Int writes a whole number.
 func (w *Writer) Int(i int64) { w.comma(); w.b = strconv.AppendInt(w.b, i, 10) }
@@ -137,8 +168,9 @@ func (w *Writer) BoolMember(name string, v bool) { w.Key(name); w.Bool(v) }
 // OptFloatMember writes "name": *f, or null.
 func (w *Writer) OptFloatMember(name string, f *float64) { w.Key(name); w.OptFloat(f) }
 
-// AppendFloat formats f as encoding/json does (its floatEncoder for 64 bits).
-func AppendFloat(b []byte, f float64) []byte {
+// appendFloat formats a finite f as encoding/json does (its floatEncoder for
+// 64 bits).
+func appendFloat(b []byte, f float64) []byte {
 	abs := math.Abs(f)
 	format := byte('f')
 	if abs != 0 && (abs < 1e-6 || abs >= 1e21) {

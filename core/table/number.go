@@ -12,7 +12,7 @@ const (
 	cellNumber   cellKind = iota // a finite number
 	cellMissing                  // empty or a missing marker
 	cellText                     // anything else
-	cellInfinite                 // an infinity, or a number too large for float64
+	cellInfinite                 // an infinity, or a number beyond ±LargestValue
 )
 
 // pow10 holds the powers of ten that float64 represents exactly.
@@ -31,7 +31,7 @@ var pow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10,
 // digit separators ("1_000", "1,000.5") and words are text. Special cases:
 //
 //	"", "NA", "N/A", "NaN", ".", "-" (any letter case) are missing;
-//	"inf", "infinity", "∞" with an optional sign, and overflowing numbers, are infinite.
+//	"inf", "infinity", "∞" with an optional sign, and numbers beyond ±LargestValue, are infinite.
 //
 // Short numbers (at most 15 digits and a power of ten within ±22)
 // are converted exactly as m·10^e or m/10^e, which is correctly rounded because
@@ -137,8 +137,14 @@ func slowParse(s []byte, markAt int) float64 {
 	return f
 }
 
+// LargestValue is the largest magnitude a value may have: half the largest
+// float64, so that every difference of two values (the Hodges–Lehmann shifts)
+// and every sum of two (midpoints of quantiles) is finite. Larger values are
+// refused like infinities; no measure that this tool serves comes near.
+const LargestValue = math.MaxFloat64 / 2
+
 func finite(f float64, usedComma bool) (float64, cellKind, bool) {
-	if math.IsInf(f, 0) {
+	if math.Abs(f) > LargestValue {
 		return 0, cellInfinite, false
 	}
 	if f == 0 {

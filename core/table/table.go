@@ -162,7 +162,7 @@ func (p *parser) cellError(f field, kind cellKind, column int, group string) *Er
 			Fix:    "correct the cell, or write NA there to mark the value as missing"}
 	}
 	return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
-		Reason: fmt.Sprintf("%q is infinite or too large to rank", quoteFound(f.text)),
+		Reason: fmt.Sprintf("%q is infinite or too large to compute with (the limit is ±%.3g)", quoteFound(f.text), LargestValue),
 		Fix:    "correct the cell, or write NA there to mark the value as missing"}
 }
 
