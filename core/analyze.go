@@ -120,9 +120,10 @@ type Result struct {
 	Warnings           []string      `json:"warnings"`
 	Decision           string        `json:"decision"`
 
-	table   *table.Table
-	ranking rank.Ranking
-	byRank  struct {
+	table      *table.Table
+	ranking    rank.Ranking
+	pairsAsked bool // a post-hoc method was asked for
+	byRank     struct {
 		once  sync.Once
 		order []int32 // indices of the values, smallest first, stable
 	}
@@ -323,10 +324,24 @@ func summarise(t *table.Table, ranking rank.Ranking) []Group {
 
 func warnings(r *Result) []string {
 	w := []string{}
+	var small []Group
 	for _, g := range r.Groups {
 		if g.N < report.SmallGroup && r.PMethod == "asymptotic" {
+			small = append(small, g)
+		}
+	}
+	switch {
+	case len(small) > 3:
+		w = append(w, fmt.Sprintf("%d groups (%q, %q and %d more) have fewer than %d values: the chi-square approximation is rough for groups this small.",
+			len(small), small[0].Label, small[1].Label, len(small)-2, report.SmallGroup))
+	default:
+		for _, g := range small {
 			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, report.SmallGroup))
 		}
+	}
+	if r.K > MaxPairGroups && r.PostHoc == nil && r.pairsAsked {
+		w = append(w, fmt.Sprintf("Pairs of groups were not compared: with %d groups there would be %d pairs, and pairwise comparisons are made for at most %d groups.",
+			r.K, r.K*(r.K-1)/2, MaxPairGroups))
 	}
 	if mc := r.MonteCarlo; mc != nil && report.Straddles(mc.CILow, mc.CIHigh, r.Alpha) {
 		w = append(w, fmt.Sprintf("The Monte Carlo interval for p (%s to %s) includes the significance level %s: run more resamples for a firm decision.",

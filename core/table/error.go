@@ -28,11 +28,11 @@ func (e *Error) Error() string {
 	case e.Line > 0:
 		fmt.Fprintf(&b, "line %d", e.Line)
 	}
-	switch {
-	case e.Group != "" && b.Len() > 0:
-		fmt.Fprintf(&b, " (group %q)", e.Group)
-	case e.Group != "":
-		fmt.Fprintf(&b, "group %q", e.Group)
+	switch group := quoteFound([]byte(e.Group)); {
+	case group != "" && b.Len() > 0:
+		fmt.Fprintf(&b, " (group %q)", group)
+	case group != "":
+		fmt.Fprintf(&b, "group %q", group)
 	}
 	if b.Len() > 0 {
 		b.WriteString(": ")

@@ -77,6 +77,9 @@ type Table struct {
 // Parse reads text in the given layout. A UTF-8 byte-order mark is ignored.
 // The text is not copied; the returned Table does not refer to it.
 func Parse(data []byte, opt Options) (*Table, error) {
+	if err := checkSize(data); err != nil {
+		return nil, err
+	}
 	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
 	t := &Table{Separator: opt.Separator, Layout: opt.Layout}
 	if t.Separator == 0 {
@@ -176,8 +179,14 @@ func (p *parser) wide(lines int) error {
 		return &Error{Reason: "there is no data", Fix: "paste or open a table with a label row and values below it"}
 	}
 	header := r.line
+	if len(r.fields) > MaxGroups {
+		return tooManyGroups(header, MaxGroups+1)
+	}
 	seen := map[string]int{}
 	for c, f := range r.fields {
+		if err := checkLabel(f.text, header, c+1); err != nil {
+			return err
+		}
 		label := f.String()
 		if label != "" {
 			if first, dup := seen[label]; dup {
@@ -307,7 +316,10 @@ func (p *parser) long() error {
 		}
 		g := last
 		if !bytes.Equal(f[0].text, lastLabel) || f[0].escaped {
-			g = p.groupOf(index, f[0])
+			var bad error
+			if g, bad = p.groupOf(index, f[0]); bad != nil {
+				return bad
+			}
 			lastLabel, last = f[0].text, g
 			if f[0].escaped {
 				lastLabel = nil
@@ -331,7 +343,7 @@ func (p *parser) long() error {
 
 // groupOf finds or adds the group of a label; looking up a plain label
 // allocates nothing.
-func (p *parser) groupOf(index map[string]int, label field) int {
+func (p *parser) groupOf(index map[string]int, label field) (int, error) {
 	t := p.t
 	if !label.escaped && len(t.Labels) <= 8 {
 		// a few comparisons beat hashing for the usual handful of groups
@@ -339,7 +351,7 @@ func (p *parser) groupOf(index map[string]int, label field) int {
 		for g, l := range t.Labels {
 			// length and first byte first: most mismatches end there, without a call
 			if string(text) == l {
-				return g
+				return g, nil
 			}
 		}
 	}
@@ -351,12 +363,18 @@ func (p *parser) groupOf(index map[string]int, label field) int {
 		g, known = index[string(label.text)]
 	}
 	if known {
-		return g
+		return g, nil
+	}
+	if err := checkLabel(label.text, p.r.line, 1); err != nil {
+		return 0, err
+	}
+	if len(t.Labels) == MaxGroups {
+		return 0, tooManyGroups(p.r.line, 1)
 	}
 	g = len(t.Labels)
 	name := label.String()
 	index[name] = g
 	t.Labels = append(t.Labels, name)
 	t.Missing = append(t.Missing, 0)
-	return g
+	return g, nil
 }
