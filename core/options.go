@@ -146,11 +146,14 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			if err != nil {
 				return err
 			}
+			if f == 0 { // zero in Options means the default; written out, it is a mistake
+				return fmt.Errorf("%q must lie strictly between 0 and 1", name)
+			}
 			o.Alpha = f
 		case "resamples":
 			n, err := wholeNumber(name, v)
-			if err != nil {
-				return err
+			if err != nil || n < 1 || n > MaxResamples {
+				return fmt.Errorf("%q must be a whole number from 1 to %d", name, MaxResamples)
 			}
 			o.Resamples = int(n)
 		case "seed":

@@ -45,10 +45,11 @@ func TestHostileLinks(t *testing.T) {
 	w.Close()
 	bomb := Prefix + base64.RawURLEncoding.EncodeToString(b.Bytes())
 	tests := []struct{ name, link, says string }{
-		{"other prefix", "#r2.abc", "does not start"},
+		{"other prefix", "#q1abc", "does not start"},
+		{"unknown format", "#r2.abc", `format "r2"`},
 		{"bad base64", Prefix + "ab$cd", "character"},
 		{"not deflate", Prefix + base64.RawURLEncoding.EncodeToString([]byte("hello, world")), "damaged"},
-		{"truncated", bomb[:len(bomb)/2], "damaged"},
+		{"truncated", Encode(make([]byte, 1<<20))[:100], "damaged"},
 		{"bomb", bomb, "expands to more than"},
 		{"too long", Prefix + strings.Repeat("A", MaxLink+1), "longer than"},
 	}

@@ -14,8 +14,10 @@ import (
 
 	"midrank/core"
 	"midrank/core/adjust"
+	"midrank/core/link"
 	"midrank/core/posthoc"
 	"midrank/core/sealed"
+	"midrank/core/table"
 )
 
 // Exit statuses.
@@ -23,6 +25,7 @@ const (
 	exitOK       = 0 // analysed
 	exitData     = 1 // the data cannot be analysed
 	exitSettings = 2 // bad flags or values
+	exitInternal = 3 // a fault of midrank itself
 )
 
 const usage = `usage: midrank [flags] FILE
@@ -34,24 +37,57 @@ flags:
 `
 
 // run is the whole command line; main only passes the process's streams.
-func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
+	defer func() {
+		if p := recover(); p != nil {
+			fmt.Fprintf(stderr, "midrank: internal error: %v; please report it, with the input and flags that caused it\n", p)
+			code = exitInternal
+		}
+	}()
 	fs := flag.NewFlagSet("midrank", flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	var opt core.Options
-	var seed string
+	// badValue keeps the last flag value refused, whose error the flag
+	// package flattens into text: the JSON error names the option.
+	var badValue *core.OptionError
+	refuse := func(option, value, reason string) error {
+		badValue = &core.OptionError{Option: option, Value: value, Reason: reason}
+		return badValue
+	}
 	asJSON := fs.Bool("json", false, "print the result as JSON")
 	showRanks := fs.Bool("ranks", false, "list every value with its rank, and every tie")
 	printLink := fs.Bool("link", false, "print a share link that carries the data and settings, instead of the report")
 	linkBase := fs.String("link-base", "", "the page's address to put before the link fragment, e.g. http://intranet/midrank/")
-	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. or #s1. fragment or the whole address) instead of FILE")
+	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. or #s1. fragment or the whole address; - reads it from standard input, @FILE from a file) instead of FILE")
 	passphrase := fs.String("passphrase", "", "with --link: seal the link with this passphrase; with --open: the passphrase of a sealed link (also read from MIDRANK_PASSPHRASE)")
 	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide or long")
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
-	fs.Float64Var(&opt.Alpha, "alpha", core.DefaultAlpha, "significance level, between 0 and 1")
+	fs.Func("alpha", fmt.Sprintf("significance level, strictly between 0 and 1 (default %v)", core.DefaultAlpha), func(v string) error {
+		f, err := decimal(v)
+		if err != nil || !(f > 0 && f < 1) {
+			return refuse("alpha", v, "the significance level is a decimal number strictly between 0 and 1, for example 0.05")
+		}
+		opt.Alpha = f
+		return nil
+	})
 	fs.StringVar(&opt.PValue, "pvalue", "auto", "auto (exact when it fits, else chi-square or Monte Carlo), asymptotic, exact or monte-carlo")
-	fs.IntVar(&opt.Resamples, "resamples", core.DefaultResamples, "Monte Carlo resamples")
-	fs.StringVar(&seed, "seed", "", fmt.Sprintf("Monte Carlo seed, a whole number from 0 to %d (default %d)", uint64(core.MaxSeed), core.DefaultSeed))
+	fs.Func("resamples", fmt.Sprintf("Monte Carlo resamples, 1 to %d (default %d)", core.MaxResamples, core.DefaultResamples), func(v string) error {
+		n, err := strconv.Atoi(v)
+		if err != nil || n < 1 || n > core.MaxResamples {
+			return refuse("resamples", v, fmt.Sprintf("choose a whole number from 1 to %d, for example %d", core.MaxResamples, core.DefaultResamples))
+		}
+		opt.Resamples = n
+		return nil
+	})
+	fs.Func("seed", fmt.Sprintf("Monte Carlo seed, a whole number from 0 to %d (default %d)", uint64(core.MaxSeed), core.DefaultSeed), func(v string) error {
+		n, err := strconv.ParseUint(v, 10, 64)
+		if err != nil || n > core.MaxSeed {
+			return refuse("seed", v, fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(core.MaxSeed)))
+		}
+		opt.Seed = &n
+		return nil
+	})
 	fs.StringVar(&opt.PostHoc, "posthoc", "dunn", "pairwise comparisons: "+strings.Join(posthoc.Methods, ", "))
 	fs.StringVar(&opt.Adjust, "adjust", "holm", "multiplicity adjustment: "+strings.Join(adjust.Methods, ", "))
 	fs.Func("order", "put the group with this label (as written in the data) next; repeat to set the order of several", func(label string) error {
@@ -94,6 +130,9 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 			return exitOK
 		}
 		*asJSON = wantsJSON(args)
+		if badValue != nil {
+			return fail(exitSettings, badValue)
+		}
 		return fail(exitSettings, fmt.Errorf("%v (midrank -h lists the flags)", err))
 	}
 	if *fromLink != "" {
@@ -103,18 +142,20 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	} else if fs.NArg() != 1 {
 		return fail(exitSettings, errors.New("give one input file, or - for standard input (midrank -h lists the flags)"))
 	}
-	if seed != "" {
-		s, err := strconv.ParseUint(seed, 10, 64)
-		if err != nil {
-			return fail(exitSettings, &core.OptionError{Option: "seed", Value: seed, Reason: fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(core.MaxSeed))})
-		}
-		opt.Seed = &s
+	given := map[string]bool{}
+	fs.Visit(func(f *flag.Flag) { given[f.Name] = true })
+	if given["passphrase"] && *passphrase == "" {
+		return fail(exitSettings, errors.New("--passphrase is empty; give a passphrase, or leave the flag out for an unsealed link"))
 	}
 
 	var data []byte
 	var err error
 	if *fromLink != "" {
-		_, fragment, _ := strings.Cut(*fromLink, "#")
+		address, err := linkText(*fromLink, stdin)
+		if err != nil {
+			return fail(exitData, err)
+		}
+		_, fragment, _ := strings.Cut(address, "#")
 		req, err := openLink("#"+fragment, passphraseOf(*passphrase))
 		if err != nil {
 			return fail(exitData, err)
@@ -151,7 +192,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	if *asJSON {
 		b, err := core.Encode(result)
 		if err != nil {
-			return fail(exitData, err)
+			return fail(exitInternal, err)
 		}
 		stdout.Write(b)
 		return exitOK
@@ -203,13 +244,60 @@ func wantsJSON(args []string) bool {
 	return false
 }
 
+// readInput reads FILE, or standard input for -, refusing more than
+// table.MaxText bytes before reading them all.
 func readInput(name string, stdin io.Reader) ([]byte, error) {
-	if name == "-" {
-		return io.ReadAll(stdin)
+	in := stdin
+	if name != "-" {
+		f, err := os.Open(name)
+		if err != nil {
+			return nil, fmt.Errorf("cannot read the input: %w", err)
+		}
+		defer f.Close()
+		in = f
 	}
-	data, err := os.ReadFile(name)
+	data, err := io.ReadAll(io.LimitReader(in, table.MaxText+1))
 	if err != nil {
 		return nil, fmt.Errorf("cannot read the input: %w", err)
 	}
+	if len(data) > table.MaxText {
+		return nil, fmt.Errorf("the input is larger than %d MB, the most that is read; analyse a part of it, or save only the group and value columns", table.MaxText>>20)
+	}
 	return data, nil
+}
+
+// linkText is the link that --open names: the value itself, standard input
+// for -, or the file after @ (a long link does not fit on a command line).
+func linkText(value string, stdin io.Reader) (string, error) {
+	var in io.Reader
+	switch {
+	case value == "-":
+		in = stdin
+	case strings.HasPrefix(value, "@"):
+		f, err := os.Open(value[1:])
+		if err != nil {
+			return "", fmt.Errorf("cannot read the link: %w", err)
+		}
+		defer f.Close()
+		in = f
+	default:
+		return value, nil
+	}
+	b, err := io.ReadAll(io.LimitReader(in, link.MaxLink+1024))
+	if err != nil {
+		return "", fmt.Errorf("cannot read the link: %w", err)
+	}
+	return strings.TrimSpace(string(b)), nil
+}
+
+// decimal reads a plain decimal number as the data's cells are written
+// (digits, a point, an exponent): Go's own syntax would also take
+// hexadecimal, underscores, Inf and NaN, none of which a user means here.
+func decimal(s string) (float64, error) {
+	for _, c := range s {
+		if !strings.ContainsRune("0123456789.eE+-", c) {
+			return 0, fmt.Errorf("%q is not a decimal number", s)
+		}
+	}
+	return strconv.ParseFloat(s, 64)
 }

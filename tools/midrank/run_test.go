@@ -92,7 +92,15 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--ranks", "-"}, data, exitOK, "Every value with its rank", ""},
 		{[]string{"--alpha", "1.5", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
 		{[]string{"--json", "--alpha", "1.5", "-"}, data, exitSettings, `"option":"alpha"`, "alpha"},
-		{[]string{"--json", "--alpha", "high", "-"}, data, exitSettings, `{"error":{"message":`, "invalid value"},
+		{[]string{"--json", "--alpha", "high", "-"}, data, exitSettings, `"option":"alpha"`, `alpha "high"`},
+		{[]string{"--alpha", "0", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
+		{[]string{"--alpha", "-0", "-"}, data, exitSettings, "", "strictly between 0 and 1"},
+		{[]string{"--alpha", "0x1p-4", "-"}, data, exitSettings, "", "decimal number"},
+		{[]string{"--resamples", "0", "-"}, data, exitSettings, "", "from 1 to"},
+		{[]string{"--seed", "", "-"}, data, exitSettings, "", "whole number"},
+		{[]string{"--link", "--passphrase", "", "-"}, data, exitSettings, "", "--passphrase is empty"},
+		{[]string{"--open", "-"}, "#r2.abc", exitData, "", "cannot be opened"},
+		{[]string{"--open", "@/nonexistent/link.txt"}, "", exitData, "", "cannot read the link"},
 		{[]string{"--posthoc", "conover", "--adjust", "bh", "-"}, data, exitOK, "Pairs of groups", ""},
 		{[]string{"--json", "--pvalue", "monte-carlo", "--resamples", "2000", "--seed", "9", "-"}, data, exitOK, `"resamples":2000,"seed":9`, ""},
 		{[]string{"--pvalue", "exact", "-"}, wideUntied(4, 15), exitSettings, "", "beyond the budget"},
@@ -113,6 +121,27 @@ func TestExitStatus(t *testing.T) {
 		if code != tt.code || !strings.Contains(stdout.String(), tt.stdout) || !strings.Contains(stderr.String(), tt.stderr) {
 			t.Errorf("midrank %v: exit %d\nstdout %.200q\nstderr %q\nwant exit %d, stdout with %q, stderr with %q",
 				tt.args, code, stdout.String(), stderr.String(), tt.code, tt.stdout, tt.stderr)
+		}
+	}
+}
+
+// TestOpenLinkFromInput: a link too long for a command line is read from
+// standard input (--open -) or a file (--open @FILE).
+func TestOpenLinkFromInput(t *testing.T) {
+	const data = "A,B,C\n1,2,3\n4,5,6\n"
+	var made, stderr bytes.Buffer
+	if code := run([]string{"--link", "--alpha", "0.1", "-"}, strings.NewReader(data), &made, &stderr); code != exitOK {
+		t.Fatalf("--link: exit %d, %s", code, stderr.String())
+	}
+	file := t.TempDir() + "/link.txt"
+	if err := os.WriteFile(file, made.Bytes(), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	for _, args := range [][]string{{"--json", "--open", "-"}, {"--json", "--open", "@" + file}} {
+		var stdout bytes.Buffer
+		code := run(args, bytes.NewReader(made.Bytes()), &stdout, &stderr)
+		if code != exitOK || !strings.Contains(stdout.String(), `"alpha":0.1`) || !strings.Contains(stdout.String(), `"n":6`) {
+			t.Errorf("midrank %v: exit %d, %.200s %s", args, code, stdout.String(), stderr.String())
 		}
 	}
 }
