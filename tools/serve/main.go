@@ -15,6 +15,8 @@ import (
 	"net/http"
 	"os"
 	"os/signal"
+	"strconv"
+	"strings"
 	"syscall"
 	"time"
 
@@ -44,6 +46,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	srv := &http.Server{
 		Handler:           accessLog(logger, static.Handler(os.DirFS(*dir))),
 		ReadHeaderTimeout: 10 * time.Second,
+		IdleTimeout:       60 * time.Second, // an idle keep-alive connection is closed, not kept for ever
 	}
 	fmt.Fprintf(stdout, "Midrank is served at http://%s/ (Ctrl-C stops)\n", ln.Addr())
 
@@ -66,14 +69,25 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// accessLog logs method, path (never the query string) and status.
+// accessLog logs method, path and status: the path as the client sent it,
+// still percent-encoded (so that %0a or %00 cannot start a forged line, and
+// a share link's %23 is not turned into a readable #), quoted, and cut at
+// loggedPath bytes, since a long path is most likely a link's data, which
+// has no place in a log; never the query string.
 func accessLog(l *log.Logger, next http.Handler) http.Handler {
 	return http.HandlerFunc(func(w http.ResponseWriter, r *http.Request) {
 		rec := &statusRecorder{ResponseWriter: w, status: http.StatusOK}
 		next.ServeHTTP(rec, r)
-		l.Printf("%s %s %d", r.Method, r.URL.Path, rec.status)
+		path, _, _ := strings.Cut(r.RequestURI, "?")
+		if len(path) > loggedPath {
+			path = fmt.Sprintf("%s…(%d bytes more)", path[:loggedPath], len(path)-loggedPath)
+		}
+		l.Printf("%s %s %d", r.Method, strconv.Quote(path), rec.status)
 	})
 }
+
+// loggedPath is the most of a path that the log keeps.
+const loggedPath = 120
 
 type statusRecorder struct {
 	http.ResponseWriter
