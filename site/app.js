@@ -19,6 +19,7 @@ let latest = 0; // the id of the latest request: older replies are dropped
 let result = null;
 let rankOffset = 0;
 let defaults = {}; // the module's default settings, by request key
+let limits = {}; // the module's bounds: text (bytes of a text read), link (characters of a link)
 let analysing = false; // an analysis is running in the worker
 const pending = new Map();
 
@@ -36,17 +37,46 @@ function startWorker() {
     ? new Worker(URL.createObjectURL(new Blob([offline.textContent], { type: "text/javascript" })))
     : new Worker("worker.js");
   w.onmessage = onWorkerMessage;
+  w.onerror = (e) => { e.preventDefault(); if (w === worker) moduleFailed(e.message || "the worker stopped"); };
   compiled.then((module) => w.postMessage({ kind: "module", module }),
     (err) => { $("status").textContent = "The statistics module could not be loaded: " + err; });
   worker = w;
 }
 
+// ask sends a request to the worker; the body of the reply is the module's
+// JSON, {cancelled: true}, or {failed, error} when the module stopped or
+// answered something that is not JSON.
 function ask(message) {
   const id = nextId++;
   return new Promise((resolve) => {
     pending.set(id, resolve);
     worker.postMessage({ id, ...message });
-  }).then((json) => ({ id, body: JSON.parse(json) }));
+  }).then((reply) => {
+    let body = reply;
+    if (typeof reply === "string") {
+      try {
+        body = JSON.parse(reply);
+      } catch (err) {
+        body = { failed: "its answer could not be read (" + err.message + ")" };
+      }
+    }
+    if (body.failed) {
+      body.error = { message: "The statistics module stopped: " + body.failed + ". Your text and settings are kept, and the module was started again; "
+        + "for data this large, try the chi-square or Monte Carlo p-value, or fewer values." };
+    }
+    return { id, body };
+  });
+}
+
+// moduleFailed answers every waiting request with the failure and starts a
+// fresh worker: the text and settings on the page stay as they are.
+function moduleFailed(message) {
+  const waiting = [...pending.values()];
+  pending.clear();
+  worker.terminate();
+  analysing = false;
+  startWorker();
+  for (const resolve of waiting) resolve({ failed: message });
 }
 
 function onWorkerMessage(event) {
@@ -54,6 +84,7 @@ function onWorkerMessage(event) {
   if (m.kind === "ready") {
     $("version").textContent = m.version;
     defaults = m.defaults;
+    limits = m.limits;
     document.documentElement.dataset.moduleReadyMs = String(Math.round(m.ms));
     $("analyse").disabled = false;
     if (!started) {
@@ -64,8 +95,12 @@ function onWorkerMessage(event) {
     }
     return;
   }
-  if (m.kind === "failed") {
+  if (m.kind === "failed" && m.id === undefined) {
     $("status").textContent = "The statistics module could not start: " + m.message;
+    return;
+  }
+  if (m.kind === "failed" && m.id !== undefined) {
+    moduleFailed(m.message);
     return;
   }
   if (m.kind === "blocked") {
@@ -157,17 +192,43 @@ function showHeldAsText() {
 // on this computer only, so that a reload loses nothing.
 const KEPT = "midrank.workspace.v1";
 
+// RUNNING is set while an analysis runs: found on a reload, it means that
+// the page stopped during the last analysis (out of memory, a closed tab),
+// so the kept text is not analysed again by itself.
+const RUNNING = "midrank.running.v1";
+
 function keep() {
+  if (!remember(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }))) {
+    $("kept-note").textContent = "This browser's storage is full or switched off, so what you type here is not kept: a reload would lose it. Save your text as a file if you need it later.";
+    $("kept-note").classList.add("warning");
+  }
+}
+
+// remember sets (or, with null, removes) an item of this browser's storage;
+// false when the storage refuses (full, or switched off).
+function remember(key, value) {
   try {
-    localStorage.setItem(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }));
+    if (value === null) localStorage.removeItem(key);
+    else localStorage.setItem(key, value);
+    return true;
   } catch {
-    // storage may be full or switched off; the page works without it
+    return false;
+  }
+}
+
+// recall reads an item of this browser's storage; null when there is none
+// or the storage is switched off.
+function recall(key) {
+  try {
+    return localStorage.getItem(key);
+  } catch {
+    return null;
   }
 }
 
 function restoreKept() {
   try {
-    const kept = JSON.parse(localStorage.getItem(KEPT) || "null");
+    const kept = JSON.parse(recall(KEPT) || "null");
     if (!kept) return false;
     setText(kept.data);
     for (const f of fields) if (kept.options[f] !== undefined) $(f).value = String(kept.options[f]);
@@ -219,6 +280,7 @@ async function seal(plainLink, passphrase) {
 }
 
 async function unseal(fragment, passphrase) {
+  if (fragment.length > limits.link) throw new Error("the link cannot be opened: it is longer than " + limits.link + " characters");
   let raw;
   try {
     raw = fromBase64url(fragment.slice(SEALED.length));
@@ -254,17 +316,26 @@ async function openLink(fragment) {
   return true;
 }
 
+// A fragment that looks like a link of some format ("#r1.", "#s1.", or one
+// this version does not know, which the module names in its message).
+const LINK_FRAGMENT = /^#[a-z][0-9]{1,3}\./;
+
 async function start() {
-  const linked = location.hash.startsWith("#r1.") || location.hash.startsWith("#s1.");
-  if (!linked && restoreKept()) $("demo-note").hidden = true;
-  if (location.hash.startsWith("#s1.")) {
-    // a protected link waits for its passphrase
-    $("unlock").hidden = false;
-    $("unlock-passphrase").focus();
-    $("status").textContent = "Enter the passphrase to open the link.";
+  const linked = LINK_FRAGMENT.test(location.hash);
+  const kept = !linked && restoreKept();
+  if (kept) $("demo-note").hidden = true;
+  if (linked) {
+    await followLink();
     return;
   }
-  if (linked && !(await openLink(location.hash))) return;
+  if (kept && recall(RUNNING)) {
+    // the page stopped during the last analysis of this text: not again by itself
+    showProblem({ message: "The last analysis of this text did not finish: the page stopped or was closed while it ran. "
+      + "It was not started again, so that the page stays usable. Press Analyse to try again; for large data the "
+      + "chi-square or Monte Carlo p-value is much lighter than the exact one." });
+    $("status").textContent = "Waiting for you: press Analyse to run the analysis again.";
+    return;
+  }
   if (dataText().trim() === "") {
     $("data").value = offline
       ? document.getElementById("demo-data").textContent
@@ -272,6 +343,25 @@ async function start() {
   }
   analyse();
 }
+
+// followLink opens the link in the address's fragment and analyses it; a
+// sealed link waits for its passphrase.
+async function followLink() {
+  $("unlock").hidden = true;
+  if (location.hash.startsWith(SEALED)) {
+    $("unlock").hidden = false;
+    $("unlock-passphrase").focus();
+    $("status").textContent = "Enter the passphrase to open the link.";
+    return;
+  }
+  if (await openLink(location.hash)) analyse();
+}
+
+// A link pasted into the address bar of an open tab changes only the
+// fragment: it is opened as on a fresh load.
+addEventListener("hashchange", () => {
+  if (started && LINK_FRAGMENT.test(location.hash)) followLink();
+});
 
 async function analyse() {
   const began = performance.now();
@@ -284,8 +374,11 @@ async function analyse() {
   if (analysing) restartWorker();
   analysing = true;
   latest = nextId; // the id ask is about to use: progress of older runs is ignored
+  remember(RUNNING, "1");
   const { id, body } = await ask({ kind: "analyze", data: dataText(), options, edits });
-  if (id !== latest || body.cancelled) return;
+  if (id !== latest) return;
+  remember(RUNNING, null);
+  if (body.cancelled) return;
   analysing = false;
   $("cancel").hidden = true;
   $("progress").hidden = true;
@@ -753,6 +846,11 @@ $("forget").addEventListener("click", () => {
 
 // Files are read with the File API in this tab; nothing is sent anywhere.
 function readFile(file) {
+  if (file.size > limits.text) {
+    showProblem({ message: "The file " + file.name + " is " + (file.size / 1048576).toFixed(1) + " MB; the most that is read is "
+      + (limits.text / 1048576) + " MB. Save only the group and value columns, or a part of the rows." });
+    return;
+  }
   const reader = new FileReader();
   reader.onload = () => {
     setText(reader.result);
@@ -786,9 +884,14 @@ function download(name, type, text) {
   setTimeout(() => URL.revokeObjectURL(url), 1000);
 }
 
+// A text cell that a spreadsheet would take for a formula (it begins with
+// = + - @, a tab or a carriage return) gets a leading apostrophe, as OWASP's
+// guidance on CSV injection advises; numbers are written as they are, so
+// that negative values stay numbers.
 function csvCell(v) {
-  const s = String(v);
-  return /[",\n\r]/.test(s) ? '"' + s.replace(/"/g, '""') + '"' : s;
+  let s = String(v);
+  if (typeof v === "string" && /^[=+\-@\t\r]/.test(s)) s = "'" + s;
+  return /[",\n\r']/.test(s) ? '"' + s.replace(/"/g, '""') + '"' : s;
 }
 
 function csv(rows) {
@@ -879,7 +982,10 @@ $("save-html").addEventListener("click", () => {
   const settings = formOptions();
   const letters = r.posthoc ? r.posthoc.letters : {};
   const parts = [
-    "<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>Kruskal–Wallis report</title>",
+    "<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">",
+    // the report runs nothing and loads nothing, wherever it is opened
+    "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">",
+    "<title>Kruskal–Wallis report</title>",
     "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1f2328}",
     "table{border-collapse:collapse;margin:.5rem 0 1rem}th,td{border-bottom:1px solid #d9d4c7;padding:.2rem .6rem;text-align:right}",
     "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
@@ -915,29 +1021,40 @@ $("save-html").addEventListener("click", () => {
 $("save-markdown").addEventListener("click", () => {
   if (!result) return;
   const r = result;
-  const md = (cells) => "| " + cells.map((c) => String(c).replace(/\|/g, "\\|")).join(" | ") + " |";
+  const md = (cells) => "| " + cells.map(mdText).join(" | ") + " |";
   const lines = ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    ...(groupEditsText(r) ? [groupEditsText(r), ""] : []), r.decision, "", "## Test figures", "", md(["figure", "value"]), md(["---", "---"]),
+    ...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), mdText(r.decision), "", "## Test figures", "", md(["figure", "value"]), "| --- | --- |",
     md(["H, corrected for ties", r.h]), md(["H before the correction", r.h_uncorrected]), md(["tie correction C", r.tie_correction]),
     md(["degrees of freedom", r.df]), md(["p-value", r.p_value]), md(["how p was found", r.p_method_reason]),
     md(["H needed at alpha " + r.alpha + " (chi-square)", r.critical_value]),
     md(["epsilon squared", r.epsilon_squared + " (" + r.epsilon_squared_size + ")"]),
     md(["eta squared (H)", r.eta_squared === null ? "undefined" : r.eta_squared + " (" + r.eta_squared_size + ")"]),
-    "", "## Groups", "", "Quartiles: " + r.quantile_method + ".", "",
+    "", "## Groups", "", "Quartiles: " + mdText(r.quantile_method) + ".", "",
     md(["group", "values", "missing", "median", "lower quartile", "upper quartile", "mean rank", "rank sum"]),
-    md(["---", "---", "---", "---", "---", "---", "---", "---"])].concat(
+    "|" + " --- |".repeat(8)].concat(
     r.groups.map((g) => md([g.label, g.n, g.missing, g.median, g.q1, g.q3, g.mean_rank, g.rank_sum])));
   if (r.posthoc) {
-    lines.push("", "## Pairs (" + r.posthoc.method + ", adjusted by " + r.posthoc.adjust + ")", "",
+    lines.push("", "## Pairs (" + mdText(r.posthoc.method + ", adjusted by " + r.posthoc.adjust) + ")", "",
       md(["first", "second", "statistic", "p", "adjusted p", "P(first > second)", "shift"]),
-      md(["---", "---", "---", "---", "---", "---", "---"]));
+      "|" + " --- |".repeat(7));
     for (const p of r.posthoc.pairs) {
       lines.push(md([p.a, p.b, p.statistic, p.p, p.p_adjusted, p.probability_of_superiority, p.hodges_lehmann]));
     }
   }
-  if (r.warnings.length) lines.push("", "## Take note", "", ...r.warnings.map((w) => "- " + w));
+  if (r.warnings.length) lines.push("", "## Take note", "", ...r.warnings.map((w) => "- " + mdText(w)));
   download("midrank-report.md", "text/markdown", lines.join("\n") + "\n");
 });
+
+// mdText makes text literal in Markdown: every character that Markdown,
+// its table and autolink extensions or the HTML inside it give a meaning is
+// escaped with a backslash (CommonMark 0.31, §2.4, backslash escapes; ":",
+// "." and "@" stop addresses from becoming links), and a line break becomes
+// a space, so that a label can neither start a link, an image or a tag nor
+// break a table row. Numbers are written as they are.
+function mdText(v) {
+  if (typeof v !== "string") return String(v);
+  return v.replace(/\r\n|\r|\n/g, " ").replace(/[\\`*_{}\[\]()#+\-.!|<>~&:@$]/g, "\\$&");
+}
 $("cancel").addEventListener("click", cancel);
 
 // Links longer than this are cut by some mail and chat programs.

@@ -6,7 +6,8 @@
 // {id, kind: "link", data, options, edits} and {id, kind: "open-link",
 // fragment}; replies: {id, json}. For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
-// total} during long computations. Served, it loads wasm_exec.js; in the
+// total} during long computations. When the module itself fails, the reply
+// is {id, kind: "failed", message}. Served, it loads wasm_exec.js; in the
 // single-file build it runs from a blob: URL with wasm_exec.js prepended.
 const fromBlob = self.location.protocol === "blob:";
 if (!fromBlob) importScripts("wasm_exec.js");
@@ -20,7 +21,7 @@ const ready = new Promise((resolve) => { begin = resolve; }).then(async (module)
   const instance = await WebAssembly.instantiate(module, go.importObject);
   go.run(instance); // main registers globalThis.midrank, then waits for calls
   const m = globalThis.midrank;
-  postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), ms: performance.now() - arrived });
+  postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), limits: JSON.parse(m.limits), ms: performance.now() - arrived });
   return m;
 });
 ready.catch((err) => postMessage({ kind: "failed", message: String(err) }));
@@ -42,22 +43,29 @@ onmessage = async (event) => {
     begin(q.module);
     return;
   }
-  const m = await ready;
   let json;
-  switch (q.kind) {
-    case "page":
-      json = m.page(q.list, q.offset, q.count);
-      break;
-    case "link":
-      json = m.link(q.data, request(q));
-      break;
-    case "open-link":
-      json = m.openLink(q.fragment);
-      break;
-    default:
-      json = m.workspace(new TextEncoder().encode(q.data), request(q),
-        (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
-        (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+  try {
+    const m = await ready;
+    switch (q.kind) {
+      case "page":
+        json = m.page(q.list, q.offset, q.count);
+        break;
+      case "link":
+        json = m.link(q.data, request(q));
+        break;
+      case "open-link":
+        json = m.openLink(q.fragment);
+        break;
+      default:
+        json = m.workspace(new TextEncoder().encode(q.data), request(q),
+          (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
+          (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+    }
+  } catch (err) {
+    // the module stopped (out of memory, a fault in it): the page is told,
+    // keeps the text and starts a fresh worker
+    postMessage({ id: q.id, kind: "failed", message: String(err && err.message || err) });
+    return;
   }
   postMessage({ id: q.id, kind: q.kind, json });
 };

@@ -10,6 +10,7 @@
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
 //	globalThis.midrank.version
 //	globalThis.midrank.defaults → the default settings as options JSON
+//	globalThis.midrank.limits → {"text": bytes of the largest text read, "link": characters of the longest link}
 //
 // where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
 // which saves a copy), optionsJSON holds core.Options, and responseJSON is
@@ -37,6 +38,8 @@ import (
 
 	"midrank/core"
 	"midrank/core/jsonlite"
+	"midrank/core/link"
+	"midrank/core/table"
 )
 
 func main() {
@@ -57,7 +60,18 @@ func register() {
 		"openLink":  guarded(openLink),
 		"version":   core.Version,
 		"defaults":  string(core.Defaults().JSON()),
+		"limits":    limits(),
 	}))
+}
+
+// limits are the bounds the page checks before it hands anything over.
+func limits() string {
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.IntMember("text", table.MaxText)
+	w.IntMember("link", link.MaxLink)
+	w.EndObject()
+	return string(w.Bytes())
 }
 
 // guarded wraps a function of the API so that whatever goes wrong inside

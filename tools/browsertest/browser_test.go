@@ -12,6 +12,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"slices"
 	"strconv"
 	"strings"
@@ -215,6 +216,15 @@ func (b *browser) saved(t *testing.T, button string) string {
 	return text
 }
 
+// unescaped finds a character that Markdown would read as a tag, a link or
+// an image when no backslash stands before it.
+var unescaped = regexp.MustCompile(`(^|[^\\])[<\[!]`)
+
+// markdownText is Markdown with its backslash escapes read, as it renders.
+func markdownText(md string) string {
+	return regexp.MustCompile(`\\(.)`).ReplaceAllString(md, "$1")
+}
+
 // shown formats a figure as the page does (four significant digits).
 func shown(v float64) string {
 	return strconv.FormatFloat(v, 'g', 4, 64)
@@ -393,7 +403,7 @@ func TestPage(t *testing.T) {
 		if got := groups(); !slices.Equal(got, []string{"North <site>", "South"}) {
 			t.Errorf("groups after undoing the move: %q", got)
 		}
-		if md := b.saved(t, "save-markdown"); !strings.Contains(md, "\u201cNorth\u201d is shown as \u201cNorth <site>\u201d") ||
+		if md := markdownText(b.saved(t, "save-markdown")); !strings.Contains(md, "\u201cNorth\u201d is shown as \u201cNorth <site>\u201d") ||
 			!strings.Contains(md, "Left out by request: \u201cEast\u201d (4 values, 0 missing)") {
 			t.Errorf("the Markdown report does not say which groups were renamed and left out:\n%.400s", md)
 		}
@@ -628,6 +638,95 @@ func TestPage(t *testing.T) {
 		if !strings.Contains(html, escaped) || !strings.Contains(html, "&lt;i&gt;Ward&lt;/i&gt;") || strings.Contains(html, "<i>Ward") || !strings.Contains(html, "<svg") {
 			t.Errorf("the report lacks the decision, the escaped label or the pictures:\n%.600s", html)
 		}
+	})
+
+	t.Run("downloads escape labels for their format", func(t *testing.T) {
+		b.analyse(t, "\"=HYPERLINK(\"\"http://x\"\")\",<script>x</script>,\"two\nlines\",![](http://t/p.png)\n1,2,3,4\n5,6,7,8\n9,10,11,12\n")
+		groups := b.saved(t, "save-groups")
+		if !strings.Contains(groups, `"'=HYPERLINK(""http://x"")"`) || strings.Contains(groups, "\n=HYPERLINK") {
+			t.Errorf("the groups CSV does not neutralise the formula label:\n%s", groups)
+		}
+		md := b.saved(t, "save-markdown")
+		if unescaped.MatchString(md) || strings.Contains(md, "two\nlines") || !strings.Contains(md, `\<script\>x\</script\>`) ||
+			!strings.Contains(md, `\!\[\]\(http\://t/p\.png\)`) || !strings.Contains(md, "two lines") {
+			t.Errorf("the Markdown report does not escape the labels:\n%s", md)
+		}
+		html := b.saved(t, "save-html")
+		if !strings.Contains(html, `<meta http-equiv="Content-Security-Policy" content="default-src 'none'`) {
+			t.Errorf("the HTML report carries no policy of its own:\n%.400s", html)
+		}
+	})
+
+	t.Run("a failing module is reported, restarted, and the text kept", func(t *testing.T) {
+		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
+		b.analyse(t, typed)
+		// a BigInt in the options that reach this worker makes its
+		// JSON.stringify throw, as a fault inside the module would; the
+		// worker started after the failure is a fresh one, without it
+		inject := `const post = worker.postMessage.bind(worker);
+			worker.postMessage = (m) => post(m.kind === "analyze" ? { ...m, options: { ...m.options, alpha: 1n } } : m); true`
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](inject)); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, typed)
+		if got := b.text(t, "#problem"); !strings.Contains(got, "The statistics module stopped") {
+			t.Errorf("problem %q, want the module's failure", got)
+		}
+		if got, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("data").value`)); got != typed {
+			t.Errorf("after the failure the text is %q, want %q", got, typed)
+		}
+		b.analyse(t, typed)
+		if got := b.text(t, "#status"); !strings.HasPrefix(got, "Done") {
+			t.Errorf("after the restart the status is %q, want Done", got)
+		}
+	})
+
+	t.Run("after a page that stopped mid-analysis, the kept text waits for Analyse", func(t *testing.T) {
+		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
+		b.analyse(t, typed)
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`localStorage.setItem("midrank.running.v1", "1"); true`)); err != nil {
+			t.Fatal(err)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.Reload()); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Waiting for you")`)
+		if got := b.text(t, "#problem"); !strings.Contains(got, "did not finish") {
+			t.Errorf("problem %q, want the note that the last analysis did not finish", got)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.Click("#analyse")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && localStorage.getItem("midrank.running.v1") === null`)
+	})
+
+	t.Run("a full storage is said, and the page works on", func(t *testing.T) {
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`window.realSet = Storage.prototype.setItem; Storage.prototype.setItem = () => { throw new DOMException("full", "QuotaExceededError"); }; true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, "A,B,C\n1,2,3\n4,5,6\n7,8,9\n")
+		if got := b.text(t, "#kept-note"); !strings.Contains(got, "storage is full") || !strings.HasPrefix(b.text(t, "#status"), "Done") {
+			t.Errorf("kept note %q, status %q", got, b.text(t, "#status"))
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`Storage.prototype.setItem = realSet; true`)); err != nil {
+			t.Fatal(err)
+		}
+	})
+
+	t.Run("a link put into the address of an open tab is opened", func(t *testing.T) {
+		data := "Team A,Team B,Team C\n4,5,2\n3,5,1\n4,4,2\n5,5,3\n"
+		fragment, err := core.ShareLink([]byte(data), core.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`location.hash = "`+fragment+`"; true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("data").value.startsWith("Team A") && document.getElementById("status").textContent.startsWith("Done")`)
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`location.hash = "#r2.abc"; true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("problem").textContent.includes('format "r2"')`)
 	})
 
 	t.Run("fits 360 px and keeps text contrast at 4.5:1, light and dark", func(t *testing.T) {
