@@ -108,7 +108,12 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		if method == "auto" {
 			limit.MaxWork, limit.MaxStates = AutoExactWork, AutoExactStates
 		}
-		err := r.exactPValue(ctx, newProblem(ranking), s.alpha, limit, progress)
+		// the screen needs only the sizes and the tie blocks: large samples
+		// are refused before their scores are worked out
+		err := exact.Screen(ranking.Sizes, blockCounts(ranking), limit)
+		if err == nil {
+			err = r.exactPValue(ctx, newProblem(ranking), s.alpha, limit, progress)
+		}
 		switch {
 		case err == nil:
 			r.PMethod = "exact"
@@ -190,6 +195,15 @@ func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha f
 		r.ExactCriticalValue, r.ExactAttainedAlpha = &h, &attained
 	}
 	return nil
+}
+
+// blockCounts lists the sizes of the tie blocks, in ascending order of value.
+func blockCounts(ranking rank.Ranking) []int {
+	var counts []int
+	for i, j := range ranking.Blocks() {
+		counts = append(counts, j-i)
+	}
+	return counts
 }
 
 func smallest(sizes []int) int {

@@ -50,7 +50,10 @@ func TestLayoutIsTight(t *testing.T) {
 		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
 			t.Fatal(err)
 		}
-		s, _ := newSpace(c.sizes, c.blocks)
+		s, _ := newSpace(c.sizes, countsOf(c.blocks))
+		if err := s.prepare(c.blocks); err != nil {
+			t.Fatal(err)
+		}
 		sh := s.newShape()
 		planned := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }).cells
 		if planned != cells || float64(states) < 0.97*float64(cells) {

@@ -101,9 +101,14 @@ type Limits struct {
 	layer     func(*layer) // shown each layer when it is built, for tests
 }
 
-// Weights returns L/nᵢ for each group, the factors of T.
+// Weights returns L/nᵢ for each group, the factors of T, for sizes whose
+// least common multiple fits in 62 bits (as Permutation checks; it panics
+// otherwise).
 func Weights(sizes []int) []int64 {
-	l := lcmOf(sizes)
+	l, ok := lcmOf(sizes)
+	if !ok {
+		panic("exact: Weights of sizes whose least common multiple exceeds 62 bits")
+	}
 	w := make([]int64, len(sizes))
 	for i, n := range sizes {
 		w[i] = l / int64(n)
@@ -139,12 +144,18 @@ func Scores(doubled []int64, counts []int) (blocks []Block, g, base int64) {
 	return blocks, g, base
 }
 
-func lcmOf(sizes []int) int64 {
-	l := int64(1)
+// lcmOf is the least common multiple of the sizes; ok is false when it
+// exceeds 2⁶².
+func lcmOf(sizes []int) (l int64, ok bool) {
+	l = 1
 	for _, n := range sizes {
-		l = l / gcd(l, int64(n)) * int64(n)
+		hi, lo := bits.Mul64(uint64(l/gcd(l, int64(n))), uint64(n))
+		if hi != 0 || lo > 1<<62 {
+			return 0, false
+		}
+		l = int64(lo)
 	}
-	return l
+	return l, true
 }
 
 func gcd(a, b int64) int64 {
@@ -168,11 +179,11 @@ type Progress func(done, total int)
 // under one deal of a block fall in one bucket of the next layer, so the
 // work streams through a few arrays with no hashing.
 func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress) (*Distribution, error) {
-	s, err := newSpace(sizes, blocks)
+	s, err := newSpace(sizes, countsOf(blocks))
 	if err != nil {
 		return nil, err
 	}
-	if _, err := s.budget(lim); err != nil {
+	if _, err := s.budget(lim, blocks); err != nil {
 		return nil, err
 	}
 	k := len(s.sizes)
@@ -212,11 +223,35 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	return s.finish(ctx, cur, st)
 }
 
+// countsOf lists how many scores each block holds.
+func countsOf(blocks []Block) []int {
+	counts := make([]int, len(blocks))
+	for i, b := range blocks {
+		counts[i] = b.Count
+	}
+	return counts
+}
+
+// Screen tells, from the groups' sizes and the sizes of the tie blocks alone
+// (in ascending order of score) and in time linear in k·N, whether
+// Permutation would refuse at once for lim (see screen): a cheap first
+// question before the scores are worked out.
+func Screen(sizes []int, counts []int, lim Limits) error {
+	s, err := newSpace(sizes, counts)
+	if err != nil {
+		return err
+	}
+	return s.screen(lim)
+}
+
 // budget decides, before any layer is built, whether arrays or hash tables
 // hold the layers, and refuses with a *TooLargeError what lim does not allow;
 // it returns the planned figures.
-func (s *space) budget(lim Limits) (figures, error) {
+func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 	if err := s.screen(lim); err != nil {
+		return figures{}, err
+	}
+	if err := s.prepare(blocks); err != nil {
 		return figures{}, err
 	}
 	// The boxes bound the arrays. When they do not settle the question, the
@@ -276,13 +311,10 @@ type space struct {
 	fixedRoom int
 }
 
-func newSpace(sizes []int, blocks []Block) (*space, error) {
-	s := &space{sizes: slices.Sorted(slices.Values(sizes)), blocks: blocks, prefix: []int64{0}}
-	for _, b := range blocks {
-		for range b.Count {
-			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
-		}
-		s.n += b.Count
+func newSpace(sizes []int, counts []int) (*space, error) {
+	s := &space{sizes: slices.Sorted(slices.Values(sizes))}
+	for _, c := range counts {
+		s.n += c
 		s.cuts = append(s.cuts, s.n)
 	}
 	total := 0
@@ -297,24 +329,46 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 		return nil, fmt.Errorf("exact: %d groups; there must be two or more", k)
 	}
 	s.class = make([]int, k)
-	s.countBits = make([]uint, k)
-	s.lo, s.hi = make([]int64, k), make([]int64, k)
-	s.bucketRoom = (256 + 32*k) / 8
-	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
-	s.weight = Weights(s.sizes)
-	var maxT float64
 	for i, n := range s.sizes {
 		if i > 0 && n == s.sizes[i-1] {
 			s.class[i] = s.class[i-1]
 		} else {
 			s.class[i] = i
 		}
+	}
+	return s, nil
+}
+
+// prepare takes the scores and works out what the planner and the dealing
+// need, in time and memory linear in N: run only after the screen. It
+// refuses scores whose statistic would not fit in 62 bits.
+func (s *space) prepare(blocks []Block) error {
+	k := len(s.sizes)
+	s.blocks = blocks
+	s.prefix = make([]int64, 1, s.n+1)
+	for _, b := range blocks {
+		for range b.Count {
+			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
+		}
+	}
+	s.countBits = make([]uint, k)
+	s.lo, s.hi = make([]int64, k), make([]int64, k)
+	s.bucketRoom = (256 + 32*k) / 8
+	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
+	l, ok := lcmOf(s.sizes)
+	if !ok {
+		return &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+	}
+	s.weight = make([]int64, k)
+	var maxT float64
+	for i, n := range s.sizes {
+		s.weight[i] = l / int64(n)
 		top := float64(s.prefix[s.n] - s.prefix[s.n-n])
 		maxT += float64(s.weight[i]) * top * top
 		s.countBits[i] = uint(bits.Len(uint(n)))
 	}
 	if maxT >= 1<<62 {
-		return nil, &TooLargeError{"the statistic would overflow 62 bits"}
+		return &TooLargeError{"the statistic would overflow 62 bits"}
 	}
 	s.logFact = make([]float64, s.n+1)
 	for a := range s.logFact {
@@ -333,7 +387,7 @@ func newSpace(sizes []int, blocks []Block) (*space, error) {
 		}
 		s.subsets = append(s.subsets, 1<<(k-2)-1)
 	}
-	return s, nil
+	return nil
 }
 
 // box gives, for groups with these counts after t scores are dealt, the

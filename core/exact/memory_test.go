@@ -26,12 +26,12 @@ func TestPlanBoundsMemory(t *testing.T) {
 		{"yes/no (60,70,80,90)", []int{60, 70, 80, 90}, distinct(300, 2)},
 	}
 	for _, c := range cases {
-		s, err := newSpace(c.sizes, c.blocks)
+		s, err := newSpace(c.sizes, countsOf(c.blocks))
 		if err != nil {
 			t.Fatal(err)
 		}
 		lim := Limits{MaxCells: 40_000_000, MaxStates: 4_000_000}
-		if _, err := s.budget(lim); err != nil || !s.dense {
+		if _, err := s.budget(lim, c.blocks); err != nil || !s.dense {
 			t.Fatalf("%s: %v, arrays %v", c.name, err, s.dense)
 		}
 		var m runtime.MemStats
