@@ -77,6 +77,7 @@ fuzz:
 	$(call fuzz-once,./core/jsonlite,FuzzParseObject) || $(call fuzz-once,./core/jsonlite,FuzzParseObject)
 	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
 	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
+	$(call fuzz-once,./core,FuzzPValues) || $(call fuzz-once,./core,FuzzPValues)
 
 # bench: the speed and memory benchmarks
 bench:

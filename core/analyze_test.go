@@ -201,8 +201,8 @@ func FuzzAnalyze(f *testing.F) {
 		if err != nil {
 			return
 		}
-		if _, err := Encode(r); err != nil {
-			t.Fatalf("Encode: %v", err)
+		if b, err := Encode(r); err != nil || !json.Valid(b) {
+			t.Fatalf("Encode: %v, valid JSON %v", err, json.Valid(b))
 		}
 		if !(r.PValue >= 0 && r.PValue <= 1) || r.H < 0 || !(r.TieCorrection > 0 && r.TieCorrection <= 1) {
 			t.Fatalf("p = %v, H = %v, C = %v", r.PValue, r.H, r.TieCorrection)

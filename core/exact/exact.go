@@ -274,7 +274,7 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 		s.dense = true
 	case fig.peak <= lim.MaxCells:
 		return fig, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
-	case laid && fig.layer > 2*lim.MaxStates:
+	case laid && fig.hashed > 2*lim.MaxStates:
 		return fig, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
 	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
 		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
@@ -487,6 +487,7 @@ func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 type figures struct {
 	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes four cells: its place in the row table, and in the layer's scratch while it is laid out; a bucket takes bucketRoom)
 	layer       int // the cells of the largest layer
+	hashed      int // the largest layer held in hash tables, in states, its buckets counted at hashBucket states each
 	cells, rows int // of all layers
 }
 
@@ -503,7 +504,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 	var fig figures
 	before := 0 // the room of the layer before
 	for _, t := range s.cuts {
-		inLayer, layerCells := 0, 0
+		inLayer, layerCells, layerBuckets := 0, 0, 0
 		// every canonical count vector adding up to t: ascending within classes
 		var walk func(i, left int)
 		walk = func(i, left int) {
@@ -514,6 +515,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 				counts[i] = left
 				c, r := size(counts, t)
 				inLayer, layerCells = min(inLayer+c+4*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
+				layerBuckets++
 				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
 				return
 			}
@@ -528,6 +530,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 		}
 		walk(0, t)
 		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
+		fig.hashed = max(fig.hashed, min(layerCells+layerBuckets*hashBucket, tooMany))
 		before = inLayer
 	}
 	return fig
@@ -852,7 +855,7 @@ func (l *layer) get(counts []int) *bucket {
 		l.cells += cells
 	} else {
 		l.s.box(counts, l.t, sh.lo, sh.hi)
-		b.table = newTable(1024, &l.reached)
+		b.table = newTable(16, &l.reached) // most buckets hold few states; a table grows as it fills
 	}
 	copy(b.lo, sh.lo)
 	step := 1

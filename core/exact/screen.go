@@ -16,6 +16,11 @@ const saturate = 1e30
 // loop), for the budget Limits.MaxWork; measured here at 4 to 8.
 const hashCost = 4
 
+// hashBucket is what a bucket of hash tables costs in memory, in states (a
+// state takes about 48 bytes at the peak): its header, slices and map entry,
+// and a table of 16 slots, about 600 bytes in all.
+const hashBucket = 12
+
 // planBuckets bounds the count vectors that the planner may walk over all
 // layers (each takes it about 50 to 100 ns natively): 20 million is one to two
 // seconds.
@@ -77,7 +82,7 @@ func (s *space) screen(lim Limits) error {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in all, more than %.0f", total, walk)}
 	}
 	arrays := peak <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
-	tables := largest <= float64(lim.MaxStates) && (lim.MaxWork == 0 || total*hashCost <= float64(lim.MaxWork))
+	tables := largest*(1+hashBucket) <= 2*float64(lim.MaxStates) && (lim.MaxWork == 0 || total*hashCost <= float64(lim.MaxWork))
 	if !arrays && !tables {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
 	}
