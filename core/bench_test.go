@@ -75,3 +75,37 @@ func BenchmarkEncode200k(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkAutomaticChoice: the default p-value choice (no pairs) on the
+// shapes of real data that once took minutes or went wrong: yes/no answers,
+// rating scales in unequal groups, continuous values, up to 1,000,000
+// values. Each should stay within about 1 s natively and 3 s in the module
+// (make bench-wasm).
+func BenchmarkAutomaticChoice(b *testing.B) {
+	cases := []struct {
+		name  string
+		sizes []int
+		draw  func(r *rand.Rand, g int) string
+	}{
+		{"yes-no_4x100", []int{100, 100, 100, 100}, yesNo},
+		{"yes-no_3x1000", []int{1000, 1000, 1000}, yesNo},
+		{"yes-no_3x100000", []int{100_000, 100_000, 100_000}, yesNo},
+		{"rating_701-753-811-785", []int{701, 753, 811, 785}, rating(0.05)},
+		{"rating_4x7500", []int{7500, 7500, 7500, 7500}, rating(0)},
+		{"continuous_5x60", []int{60, 60, 60, 60, 60}, continuous},
+		{"continuous_3x16667", []int{16_667, 16_667, 16_666}, continuous},
+		{"continuous_5x200000", []int{200_000, 200_000, 200_000, 200_000, 200_000}, continuous},
+		{"rating_6x166667", []int{166_667, 166_667, 166_667, 166_667, 166_666, 166_666}, rating(0.01)},
+	}
+	for _, c := range cases {
+		b.Run(c.name, func(b *testing.B) {
+			data := sample(c.sizes, 1, c.draw)
+			b.SetBytes(int64(len(data)))
+			for b.Loop() {
+				if _, err := Analyze(data, testOnly); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

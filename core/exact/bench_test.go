@@ -28,6 +28,10 @@ func distinct(n, v int) []Block {
 	return b
 }
 
+// benchLimits are the budgets of an explicit request (core.ExactCells and
+// core.ExactStates), so that each case runs as it would for a user.
+var benchLimits = Limits{MaxCells: 40_000_000, MaxStates: 4_000_000}
+
 func BenchmarkPermutation(b *testing.B) {
 	cases := []struct {
 		sizes  []int
@@ -46,7 +50,7 @@ func BenchmarkPermutation(b *testing.B) {
 		b.Run(fmt.Sprint(c.sizes, c.name), func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				if _, err := Permutation(context.Background(), c.sizes, c.blocks, Limits{MaxCells: 1 << 24, MaxStates: 1 << 24}, nil); err != nil {
+				if _, err := Permutation(context.Background(), c.sizes, c.blocks, benchLimits, nil); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -89,7 +89,7 @@ func (e *TooLargeError) Unwrap() error { return ErrTooLarge }
 
 // Limits bound an exact computation. Two layers are alive at a time: the
 // one being dealt and the next. Buckets are dense arrays of cells (8 bytes
-// each, see bucket; a row takes the room of four cells) when any two
+// each, see bucket; a row takes the room of two cells) when any two
 // consecutive layers hold at most MaxCells together, and then all layers
 // may hold at most MaxWork cells (the time grows with it); otherwise hash
 // tables of the states reached (about 32 bytes each), at most MaxStates a
@@ -186,11 +186,12 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	if _, err := s.budget(lim, blocks); err != nil {
 		return nil, err
 	}
+	s.maxStates, s.maxWork = lim.MaxStates, lim.MaxWork
 	k := len(s.sizes)
 	start := newLayer(s, 0)
 	start.get(make([]int, k)).add(0, 1) // nothing dealt: every pair (0, 0)
 	cur := start.list()
-	dealt, work := 0, 0
+	dealt := 0
 	st := s.scratch()
 	for bi, b := range blocks {
 		if err := ctx.Err(); err != nil {
@@ -204,11 +205,6 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 			from.p, from.table = nil, nil // free it as soon as it is used
 			if !s.dense && next.reached > lim.MaxStates {
 				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.n)}
-			}
-		}
-		if !s.dense {
-			if work += hashCost * next.reached; lim.MaxWork > 0 && work > lim.MaxWork {
-				return nil, &TooLargeError{fmt.Sprintf("more than %d states in all after %d of %d observations", lim.MaxWork/hashCost, dealt, s.n)}
 			}
 		}
 		cur = next.list()
@@ -265,7 +261,11 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
 	}
 	laid := false
-	if fig.rows <= 2*lim.MaxCells && !fig.fit(lim) {
+	layable := 2 * lim.MaxCells // rows, whose laying out costs a few cells' work each
+	if lim.MaxWork > 0 {
+		layable = min(layable, lim.MaxWork/rowCost)
+	}
+	if fig.rows <= layable && !fig.fit(lim) {
 		sh := s.newShape()
 		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
 	}
@@ -309,6 +309,9 @@ type space struct {
 	// the batch of moves and their deals, four numbers a score (prefix sums,
 	// log-factorials, cuts) and 64 KB for the rest.
 	fixedRoom int
+	maxStates int // of a layer in hash tables (Limits.MaxStates)
+	maxWork   int // Limits.MaxWork
+	work      int // done in hash tables, in cells' worth (see hashCost)
 }
 
 func newSpace(sizes []int, counts []int) (*space, error) {
@@ -328,6 +331,7 @@ func newSpace(sizes []int, counts []int) (*space, error) {
 	if k < 2 {
 		return nil, fmt.Errorf("exact: %d groups; there must be two or more", k)
 	}
+	s.bucketRoom = (256 + 32*k) / 8
 	s.class = make([]int, k)
 	for i, n := range s.sizes {
 		if i > 0 && n == s.sizes[i-1] {
@@ -353,7 +357,6 @@ func (s *space) prepare(blocks []Block) error {
 	}
 	s.countBits = make([]uint, k)
 	s.lo, s.hi = make([]int64, k), make([]int64, k)
-	s.bucketRoom = (256 + 32*k) / 8
 	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
 	l, ok := lcmOf(s.sizes)
 	if !ok {
@@ -485,7 +488,7 @@ func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 
 // figures are the sizes of the layers of a computation, in cells.
 type figures struct {
-	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes four cells: its place in the row table, and in the layer's scratch while it is laid out; a bucket takes bucketRoom)
+	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes two cells, for its place in the row table, and as many again for the layer's scratch that lays out its widest bucket; a bucket takes bucketRoom)
 	layer       int // the cells of the largest layer
 	hashed      int // the largest layer held in hash tables, in states, its buckets counted at hashBucket states each
 	cells, rows int // of all layers
@@ -504,7 +507,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 	var fig figures
 	before := 0 // the room of the layer before
 	for _, t := range s.cuts {
-		inLayer, layerCells, layerBuckets := 0, 0, 0
+		inLayer, layerCells, layerBuckets, widest := 0, 0, 0, 0
 		// every canonical count vector adding up to t: ascending within classes
 		var walk func(i, left int)
 		walk = func(i, left int) {
@@ -514,8 +517,8 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 				}
 				counts[i] = left
 				c, r := size(counts, t)
-				inLayer, layerCells = min(inLayer+c+4*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
-				layerBuckets++
+				inLayer, layerCells = min(inLayer+c+2*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
+				layerBuckets, widest = layerBuckets+1, max(widest, r)
 				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
 				return
 			}
@@ -529,6 +532,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 			}
 		}
 		walk(0, t)
+		inLayer = min(inLayer+2*widest, tooMany) // the layer's scratch for laying out its widest bucket
 		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
 		fig.hashed = max(fig.hashed, min(layerCells+layerBuckets*hashBucket, tooMany))
 		before = inLayer
@@ -1023,6 +1027,13 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 	if !s.dense {
 		k := len(s.sizes)
 		return s.moves(from, b, st, next, func(moves []move) error {
+			if next.reached > s.maxStates {
+				return &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", s.maxStates, dealt, s.n)}
+			}
+			// a hash table's work is its states times their moves: bounded as it goes
+			if s.work += hashCost * len(moves) * from.states(); s.maxWork > 0 && s.work > s.maxWork {
+				return &TooLargeError{fmt.Sprintf("more than %d moves of states after %d of %d observations", s.maxWork/hashCost, dealt, s.n)}
+			}
 			for _, mv := range moves {
 				err := from.each(ctx, total, st.sum, func(p float64) {
 					for i := range k {

@@ -11,10 +11,20 @@ const screenWork = 50_000_000
 // from overflowing float64.
 const saturate = 1e30
 
-// hashCost is what a state in a hash table costs in time against a cell of
-// an array (a probe and a scattered write against a step of a straight
-// loop), for the budget Limits.MaxWork; measured here at 4 to 8.
-const hashCost = 4
+// hashCost is what a move of a state in a hash table costs in time against a
+// cell of an array (a probe and a scattered write against a step of a
+// straight loop), for the budget Limits.MaxWork; measured here at 8 to 12.
+const hashCost = 10
+
+// dealCost is what a deal of a tie block to a bucket costs in time against a
+// cell of an array (working out its weight and its bucket, a look-up in a
+// map), for each group, for the budget Limits.MaxWork; measured here at 8 to
+// 12 a group.
+const dealCost = 10
+
+// rowCost is what laying out a row to count its cells costs in time against
+// a cell of an array, for the budget Limits.MaxWork; measured here at 5 to 8.
+const rowCost = 8
 
 // hashBucket is what a bucket of hash tables costs in memory, in states (a
 // state takes about 48 bytes at the peak): its header, slices and map entry,
@@ -68,12 +78,17 @@ func (s *space) screen(lim Limits) error {
 			merged *= float64(i - s.class[i] + 1)
 		}
 	}
-	var peak, largest, total, before float64
+	var peak, largest, total, before, deals float64
 	for _, t := range s.cuts {
 		layer := v[t] / merged
 		peak, largest, total = max(peak, before+layer), max(largest, layer), total+layer
 		before = layer
+		deals += v[t] // each count vector is reached by a deal of its own, before canonical order merges it
 	}
+	if cost := float64(dealCost * k); lim.MaxWork > 0 && deals*cost > float64(lim.MaxWork) {
+		return &TooLargeError{fmt.Sprintf("at least %.2g deals of tie blocks, more than %.0f", deals, float64(lim.MaxWork)/cost)}
+	}
+	room := float64(1 + s.bucketRoom) // a bucket of arrays: at least a cell, and its own room
 	walk := float64(planBuckets)
 	if lim.MaxWork > 0 {
 		walk = min(walk, float64(lim.MaxWork)/bucketCost)
@@ -81,7 +96,7 @@ func (s *space) screen(lim Limits) error {
 	if total > walk {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in all, more than %.0f", total, walk)}
 	}
-	arrays := peak <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
+	arrays := peak*room <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
 	tables := largest*(1+hashBucket) <= 2*float64(lim.MaxStates) && (lim.MaxWork == 0 || total*hashCost <= float64(lim.MaxWork))
 	if !arrays && !tables {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
