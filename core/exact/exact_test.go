@@ -225,3 +225,22 @@ func FuzzAgainstEnumeration(f *testing.F) {
 		}
 	})
 }
+
+// TestOverflowRefused: where the whole-number statistic T = Σ (L/nᵢ)·sᵢ²
+// could pass 2⁶² — sizes whose least common multiple is that large, or
+// scores that large — the computation is refused as too large, not
+// computed wrongly.
+func TestOverflowRefused(t *testing.T) {
+	primes := []int{2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47, 53}
+	if _, ok := lcmOf(primes); ok { // their product is about 3.3·10¹⁹
+		t.Error("lcmOf of the first 16 primes fits 62 bits")
+	}
+	if l, ok := lcmOf(primes[:15]); !ok || l != 614889782588491410 { // 47#, the primorial
+		t.Errorf("lcmOf of the first 15 primes = %d, %v", l, ok)
+	}
+	huge := []Block{{0, 1}, {1 << 31, 1}, {1 << 32, 1}, {3 << 31, 1}}
+	_, err := Permutation(context.Background(), []int{2, 2}, huge, Limits{MaxCells: 1 << 20, MaxStates: 1 << 20}, nil)
+	if !errors.Is(err, ErrTooLarge) {
+		t.Errorf("scores near 2³²: error %v, want one that says too large", err)
+	}
+}
