@@ -383,6 +383,9 @@ async function analyse() {
   $("cancel").hidden = true;
   $("progress").hidden = true;
   if (body.error) {
+    // results of another text (or of none) must not stay on screen
+    result = null;
+    $("results").hidden = true;
     showProblem(body.error);
     return;
   }

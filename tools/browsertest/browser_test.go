@@ -225,6 +225,21 @@ func markdownText(md string) string {
 	return regexp.MustCompile(`\\(.)`).ReplaceAllString(md, "$1")
 }
 
+// screenshot saves the page as it stands to the temporary folder, for a
+// person to look at.
+func (b *browser) screenshot(t *testing.T, name string) {
+	t.Helper()
+	png, err := chromedp.Run(b.ctx, chromedp.FullScreenshot(100))
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(os.TempDir(), name)
+	if err := os.WriteFile(path, png, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("screenshot for review: %s", path)
+}
+
 // shown formats a figure as the page does (four significant digits).
 func shown(v float64) string {
 	return strconv.FormatFloat(v, 'g', 4, 64)
@@ -303,17 +318,7 @@ func TestPage(t *testing.T) {
 		}
 	})
 
-	t.Run("screenshot", func(t *testing.T) {
-		png, err := chromedp.Run(b.ctx, chromedp.FullScreenshot(100))
-		if err != nil {
-			t.Fatal(err)
-		}
-		path := filepath.Join(os.TempDir(), "midrank-results.png")
-		if err := os.WriteFile(path, png, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		t.Logf("screenshot of the results for review: %s", path)
-	})
+	t.Run("screenshot", func(t *testing.T) { b.screenshot(t, "midrank-results.png") })
 
 	t.Run("a pasted case shows the command line's H", func(t *testing.T) {
 		data, err := os.ReadFile("../../testdata/cases/plantgrowth_long.csv")
@@ -672,6 +677,7 @@ func TestPage(t *testing.T) {
 		if got := b.text(t, "#problem"); !strings.Contains(got, "The statistics module stopped") {
 			t.Errorf("problem %q, want the module's failure", got)
 		}
+		b.screenshot(t, "midrank-module-failed.png")
 		if got, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("data").value`)); got != typed {
 			t.Errorf("after the failure the text is %q, want %q", got, typed)
 		}
@@ -694,6 +700,7 @@ func TestPage(t *testing.T) {
 		if got := b.text(t, "#problem"); !strings.Contains(got, "did not finish") {
 			t.Errorf("problem %q, want the note that the last analysis did not finish", got)
 		}
+		b.screenshot(t, "midrank-stopped-before.png")
 		if err := chromedp.Do(b.ctx, chromedp.Click("#analyse")); err != nil {
 			t.Fatal(err)
 		}
