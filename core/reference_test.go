@@ -41,7 +41,8 @@ func readReference(t *testing.T, name string) []referenceValue {
 }
 
 // TestAgainstReferences compares every figure of the open datasets of R's
-// `datasets` package (airquality, PlantGrowth, InsectSprays, chickwts) and
+// `datasets` package (airquality, PlantGrowth, InsectSprays, chickwts,
+// mtcars, infert) and
 // of Hollander & Wolfe (1973, p. 116) with R's stats package and
 // scipy.stats; the source of each value is in the TSV beside it.
 func TestAgainstReferences(t *testing.T) {
@@ -64,8 +65,8 @@ func TestAgainstReferences(t *testing.T) {
 			t.Errorf("%s %s = %.17g, want %.17g (%s)", ref.dataset, ref.quantity, got, ref.value, ref.source)
 		}
 	}
-	if len(results) != 5 {
-		t.Errorf("checked %d datasets, want 5", len(results))
+	if len(results) != 7 {
+		t.Errorf("checked %d datasets, want 7", len(results))
 	}
 }
 

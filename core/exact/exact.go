@@ -490,7 +490,7 @@ func (s *space) boxSize(counts []int, t int) (cells, rows int) {
 type figures struct {
 	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes two cells, for its place in the row table, and as many again for the layer's scratch that lays out its widest bucket; a bucket takes bucketRoom)
 	layer       int // the cells of the largest layer
-	hashed      int // the largest layer held in hash tables, in states, its buckets counted at hashBucket states each
+	hashed      int // the largest layer held in hash tables: its states at most (see reachable), its buckets counted at hashBucket states each
 	cells, rows int // of all layers
 }
 
@@ -506,8 +506,8 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 	counts := make([]int, k)
 	var fig figures
 	before := 0 // the room of the layer before
-	for _, t := range s.cuts {
-		inLayer, layerCells, layerBuckets, widest := 0, 0, 0, 0
+	for dealt, t := range s.cuts {
+		inLayer, layerCells, layerStates, widest := 0, 0, 0.0, 0
 		// every canonical count vector adding up to t: ascending within classes
 		var walk func(i, left int)
 		walk = func(i, left int) {
@@ -518,7 +518,7 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 				counts[i] = left
 				c, r := size(counts, t)
 				inLayer, layerCells = min(inLayer+c+2*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
-				layerBuckets, widest = layerBuckets+1, max(widest, r)
+				layerStates, widest = layerStates+s.reachable(counts, t, dealt+1)+hashBucket, max(widest, r)
 				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
 				return
 			}
@@ -534,10 +534,38 @@ func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
 		walk(0, t)
 		inLayer = min(inLayer+2*widest, tooMany) // the layer's scratch for laying out its widest bucket
 		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
-		fig.hashed = max(fig.hashed, min(layerCells+layerBuckets*hashBucket, tooMany))
+		fig.hashed = max(fig.hashed, int(min(layerStates, tooMany)))
 		before = inLayer
 	}
 	return fig
+}
+
+// reachable bounds the states of a bucket: the stored groups' sums that its
+// box allows, and for each group no more than the ways to hold its count of
+// scores on the levels dealt so far, C(c + levels − 1, levels − 1). The
+// second bound is what matters for data on a few levels with uneven tie
+// blocks, whose sums are sparse in the box (a 3 × 3 table of 248 values has
+// 670,000 states in boxes of 4·10⁹ cells).
+func (s *space) reachable(counts []int, t, levels int) float64 {
+	k := len(s.sizes)
+	if s.box(counts, t, s.lo, s.hi) == 0 {
+		return 0
+	}
+	states := 1.0
+	for i := range k - 1 {
+		states *= min(float64(s.hi[i]-s.lo[i]+1), compositions(counts[i], levels))
+	}
+	return min(states, tooMany)
+}
+
+// compositions is C(c + levels − 1, levels − 1), the ways to hold c scores on
+// the levels, in float64 (it may be huge).
+func compositions(c, levels int) float64 {
+	w := 1.0
+	for j := 1; j < levels && w < tooMany; j++ {
+		w = w * float64(c+j) / float64(j)
+	}
+	return w
 }
 
 // shape is a dense bucket's layout as layout finds it, and its scratch.
@@ -1387,7 +1415,7 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 	k := len(sorted)
 	worst := 1.0
 	t := 0
-	for _, b := range blocks[:len(blocks)-1] { // layers exist after each block but the last
+	for levels, b := range blocks[:len(blocks)-1] { // layers exist after each block but the last
 		t += b.Count
 		est := 1.0
 		for i := 0; i < k-1; i++ {
@@ -1395,7 +1423,7 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 			for c := max(0, t-(n-sorted[i])); c <= min(sorted[i], t); c++ {
 				lo := prefix[c]
 				hi := prefix[t] - prefix[t-c]
-				pairs += float64(hi-lo) + 1
+				pairs += min(float64(hi-lo)+1, compositions(c, levels+1)) // the sums a count can have (see reachable)
 			}
 			est *= pairs
 		}

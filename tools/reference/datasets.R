@@ -11,6 +11,10 @@ sets <- list(
   plantgrowth = data.frame(group = as.character(PlantGrowth$group), value = PlantGrowth$weight),
   insectsprays = data.frame(group = as.character(InsectSprays$spray), value = InsectSprays$count),
   chickwts = data.frame(group = as.character(chickwts$feed), value = chickwts$weight),
+  # yes/no (transmission manual = 1) by number of cylinders: a 2 × 3 table
+  mtcars_am = data.frame(group = paste0(mtcars$cyl, "cyl"), value = mtcars$am),
+  # a count on three levels (0, 1, 2 or more induced abortions) by education: a 3 × 3 table
+  infert_induced = data.frame(group = as.character(infert$education), value = infert$induced),
   # Hollander & Wolfe (1973), p. 116, as reproduced in the help page of R's kruskal.test.
   hollander_wolfe = data.frame(
     group = rep(c("normal", "oad", "asbestosis"), c(5, 4, 5)),
