@@ -19,7 +19,8 @@ func TestEstimateStates(t *testing.T) {
 	} {
 		largest := 0
 		// hash tables (no cells), so that the layers hold just the states reached
-		lim := Limits{MaxStates: 1 << 24, layer: func(l *layer) { largest = max(largest, l.states()) }}
+		lim := Limits{MaxStates: 1 << 24}
+		watchLayers(t, func(l *layer) { largest = max(largest, l.states()) })
 		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
 			t.Fatal(err)
 		}
@@ -46,7 +47,8 @@ func TestLayoutIsTight(t *testing.T) {
 		{[]int{6, 6, 6, 6}, distinct(24, 5)}, {[]int{5, 5, 6}, distinct(16, 4)},
 	} {
 		cells, states := 0, 0
-		lim := Limits{MaxCells: 1 << 24, layer: func(l *layer) { cells, states = cells+l.cells, states+l.states() }}
+		lim := Limits{MaxCells: 1 << 24}
+		watchLayers(t, func(l *layer) { cells, states = cells+l.cells, states+l.states() })
 		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
 			t.Fatal(err)
 		}

@@ -169,7 +169,8 @@ func TestTooLarge(t *testing.T) {
 	}
 	// beyond the arrays' budget, where hash tables would not fit either: refused before any layer is built
 	built := 0
-	lim := Limits{MaxCells: 1 << 23, MaxStates: 1 << 22, layer: func(*layer) { built++ }}
+	lim := Limits{MaxCells: 1 << 23, MaxStates: 1 << 22}
+	watchLayers(t, func(*layer) { built++ })
 	if _, err := Permutation(context.Background(), []int{10, 10, 10, 10}, blocksOf(scores), lim, nil); !errors.Is(err, ErrTooLarge) || built > 0 {
 		t.Fatalf("err %v after %d layers; want ErrTooLarge before any", err, built)
 	}

@@ -40,7 +40,7 @@ func TestPlanBoundsMemory(t *testing.T) {
 		runtime.ReadMemStats(&m)
 		base := m.HeapAlloc
 		worst := 0.0
-		lim.layer = func(l *layer) {
+		watchLayers(t, func(l *layer) {
 			planned, widest := l.cells+s.fixedRoom, 0
 			for _, b := range l.byKey {
 				rows := len(b.first) - 1
@@ -51,7 +51,7 @@ func TestPlanBoundsMemory(t *testing.T) {
 			runtime.ReadMemStats(&m)
 			used := float64(m.HeapAlloc) - float64(base)
 			worst = max(worst, used/(8*float64(planned)))
-		}
+		})
 		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
 			t.Fatal(err)
 		}

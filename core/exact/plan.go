@@ -1,0 +1,387 @@
+package exact
+
+import (
+	"fmt"
+	"math/bits"
+	"slices"
+
+	"midrank/core/dist"
+)
+
+// budget decides, before any layer is built, whether arrays or hash tables
+// hold the layers, and refuses with a *TooLargeError what lim does not allow;
+// it returns the planned figures.
+func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
+	if err := s.screen(lim); err != nil {
+		return figures{}, err
+	}
+	if err := s.prepare(blocks); err != nil {
+		return figures{}, err
+	}
+	// The boxes bound the arrays. When they do not settle the question, the
+	// rows are laid out to count the cells, which costs about as much as a
+	// few cells a row, so not beyond 2·MaxCells rows in all. Hash tables
+	// hold the states reached, hardly fewer than the cells laid out, in four
+	// cells' room each: they serve where the row tables are what is large,
+	// as with many small groups.
+	fig := s.plan(s.boxSize)
+	if fig.peak >= tooMany {
+		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
+	}
+	laid := false
+	layable := 2 * lim.MaxCells // rows, whose laying out costs a few cells' work each
+	if lim.MaxWork > 0 {
+		layable = min(layable, lim.MaxWork/rowCost)
+	}
+	if fig.rows <= layable && !fig.fit(lim) {
+		sh := s.newShape()
+		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
+	}
+	switch {
+	case fig.fit(lim):
+		s.dense = true
+	case fig.peak <= lim.MaxCells:
+		return fig, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
+	case laid && fig.hashed > 2*lim.MaxStates:
+		return fig, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
+	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
+		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
+	default:
+		if est := EstimateStates(s.sizes, s.blocks); est > 20*float64(lim.MaxStates) {
+			return fig, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
+		}
+	}
+	return fig, nil
+}
+
+// space describes the states: groups sorted by size, and the scores.
+type space struct {
+	n         int
+	sizes     []int // ascending
+	blocks    []Block
+	class     []int     // first group of the size class of each group
+	weight    []int64   // L/nᵢ
+	prefix    []int64   // prefix[t]: the sum of the t smallest scores
+	cuts      []int     // the number of scores dealt after each block
+	countBits []uint    // bits of each group's count, in a bucket's key
+	logFact   []float64 // log a! for a = 0 … n (see logChoose)
+	subsets   []uint    // sets of the groups before group k−2 whose sums bound a row (bit i: group i)
+	dense     bool      // buckets are arrays rather than hash tables
+	lo, hi    []int64   // scratch for boxSize
+	// bucketRoom is a bucket's own room in cells of 8 bytes: its header,
+	// slices of k numbers and its place in the layer's map, about
+	// 256 + 32k bytes (measured by TestPlanBoundsMemory); it matters where
+	// buckets hold few states, as with yes/no data.
+	bucketRoom int
+	// fixedRoom is the room in cells that does not grow with the layers:
+	// the batch of moves and their deals, four numbers a score (prefix sums,
+	// log-factorials, cuts) and 64 KB for the rest.
+	fixedRoom int
+	maxStates int // of a layer in hash tables (Limits.MaxStates)
+	maxWork   int // Limits.MaxWork
+	work      int // done in hash tables, in cells' worth (see hashCost)
+}
+
+func newSpace(sizes []int, counts []int) (*space, error) {
+	s := &space{sizes: slices.Sorted(slices.Values(sizes))}
+	for _, c := range counts {
+		s.n += c
+		s.cuts = append(s.cuts, s.n)
+	}
+	total := 0
+	for _, n := range s.sizes {
+		total += n
+	}
+	if total != s.n {
+		return nil, fmt.Errorf("exact: sizes add to %d but there are %d scores", total, s.n)
+	}
+	k := len(s.sizes)
+	if k < 2 {
+		return nil, fmt.Errorf("exact: %d groups; there must be two or more", k)
+	}
+	s.bucketRoom = (256 + 32*k) / 8
+	s.class = make([]int, k)
+	for i, n := range s.sizes {
+		if i > 0 && n == s.sizes[i-1] {
+			s.class[i] = s.class[i-1]
+		} else {
+			s.class[i] = i
+		}
+	}
+	return s, nil
+}
+
+// prepare takes the scores and works out what the planner and the dealing
+// need, in time and memory linear in N: run only after the screen. It
+// refuses scores whose statistic would not fit in 62 bits.
+func (s *space) prepare(blocks []Block) error {
+	k := len(s.sizes)
+	s.blocks = blocks
+	s.prefix = make([]int64, 1, s.n+1)
+	for _, b := range blocks {
+		for range b.Count {
+			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
+		}
+	}
+	s.countBits = make([]uint, k)
+	s.lo, s.hi = make([]int64, k), make([]int64, k)
+	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
+	l, ok := lcmOf(s.sizes)
+	if !ok {
+		return &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+	}
+	s.weight = make([]int64, k)
+	var maxT float64
+	for i, n := range s.sizes {
+		s.weight[i] = l / int64(n)
+		top := float64(s.prefix[s.n] - s.prefix[s.n-n])
+		maxT += float64(s.weight[i]) * top * top
+		s.countBits[i] = uint(bits.Len(uint(n)))
+	}
+	if maxT >= 1<<62 {
+		return &TooLargeError{"the statistic would overflow 62 bits"}
+	}
+	s.logFact = make([]float64, s.n+1)
+	for a := range s.logFact {
+		s.logFact[a] = dist.LogFactorial(a)
+	}
+	// Every set of the groups that fix a row bounds it, or with many groups
+	// (2^(k−2) sets) each one alone and all of them.
+	if k <= 7 {
+		for set := range uint(1) << (k - 2) {
+			s.subsets = append(s.subsets, set)
+		}
+	} else {
+		s.subsets = append(s.subsets, 0)
+		for i := range k - 2 {
+			s.subsets = append(s.subsets, 1<<i)
+		}
+		s.subsets = append(s.subsets, 1<<(k-2)-1)
+	}
+	return nil
+}
+
+// box gives, for groups with these counts after t scores are dealt, the
+// least and greatest sum of each group: the c smallest and c largest
+// scores dealt, narrowed by the sums of the other groups adding up to the
+// total. It returns the number of combinations of the stored groups' sums
+// in the box, which bounds the cells of its layout.
+func (s *space) box(counts []int, t int, lo, hi []int64) int {
+	k := len(s.sizes)
+	var loSum, hiSum int64
+	for i, c := range counts {
+		lo[i], hi[i] = s.prefix[c], s.top(t, c)
+		loSum += lo[i]
+		hiSum += hi[i]
+	}
+	total := s.prefix[t]
+	for i := range k {
+		// the others hold at most hiSum − hi[i] and at least loSum − lo[i]
+		lo[i], hi[i] = max(lo[i], total-(hiSum-hi[i])), min(hi[i], total-(loSum-lo[i]))
+	}
+	// In a run of L groups of one class with equal counts the sums ascend,
+	// and they add up to R, the total less the other groups' sums. So the
+	// q-th (from 0) is at most (R − q·lo)/(L − q), the q smaller ones being
+	// at least lo, and at least (R − (L−1−q)·hi)/(q + 1), the larger ones
+	// being at most hi.
+	for a := 0; a < k; {
+		b := a
+		for b+1 < k && s.sameRun(counts, b) {
+			b++
+		}
+		if L := int64(b - a + 1); L > 1 {
+			rMax, rMin := total, total
+			for j := range k {
+				if j < a || j > b {
+					rMax -= lo[j]
+					rMin -= hi[j]
+				}
+			}
+			runLo, runHi := lo[a], hi[a]
+			for q := int64(0); q < L; q++ {
+				i := a + int(q)
+				hi[i] = min(hi[i], floorDiv(rMax-q*runLo, L-q))
+				lo[i] = max(lo[i], ceilDiv(rMin-(L-1-q)*runHi, q+1))
+			}
+		}
+		a = b + 1
+	}
+	cells := 1
+	for i := range k - 1 {
+		cells = product(cells, int(max(hi[i]-lo[i]+1, 0)))
+	}
+	return cells
+}
+
+// top is the sum of the c largest of the t smallest scores.
+func (s *space) top(t, c int) int64 { return s.prefix[t] - s.prefix[t-c] }
+
+// sameRun tells whether groups i and i+1 are of one class with equal
+// counts, so that in canonical order sum i ≤ sum i+1.
+func (s *space) sameRun(counts []int, i int) bool {
+	return s.class[i+1] == s.class[i] && counts[i+1] == counts[i]
+}
+
+func floorDiv(a, b int64) int64 {
+	q := a / b
+	if a%b != 0 && (a < 0) != (b < 0) {
+		q--
+	}
+	return q
+}
+
+func ceilDiv(a, b int64) int64 { return -floorDiv(-a, b) }
+
+// tooMany is where cell counts saturate: a cell index must stay below it to
+// serve as a hash key.
+const tooMany = 1 << 62
+
+func product(a, b int) int {
+	if b != 0 && a > tooMany/b {
+		return tooMany
+	}
+	return a * b
+}
+
+// boxSize gives the cells of a bucket's box and its rows.
+func (s *space) boxSize(counts []int, t int) (cells, rows int) {
+	k := len(s.sizes)
+	lo, hi := s.lo, s.hi
+	cells = s.box(counts, t, lo, hi)
+	if cells == 0 {
+		return 0, 0
+	}
+	return cells, cells / int(hi[k-2]-lo[k-2]+1)
+}
+
+// figures are the sizes of the layers of a computation, in cells.
+type figures struct {
+	peak        int // the room two consecutive layers take and the room that the computation takes whatever its layers, fixedRoom (a row takes two cells, for its place in the row table, and as many again for the layer's scratch that lays out its widest bucket; a bucket takes bucketRoom)
+	layer       int // the cells of the largest layer
+	hashed      int // the largest layer held in hash tables: its states at most (see reachable), its buckets counted at hashBucket states each
+	cells, rows int // of all layers
+}
+
+// fit tells whether arrays of these figures keep within lim.
+func (f figures) fit(lim Limits) bool {
+	return f.peak <= lim.MaxCells && (lim.MaxWork == 0 || f.cells <= lim.MaxWork)
+}
+
+// plan adds up size(counts, t), the cells and rows of a bucket, over the
+// buckets of each layer.
+func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
+	k := len(s.sizes)
+	counts := make([]int, k)
+	var fig figures
+	before := 0 // the room of the layer before
+	for dealt, t := range s.cuts {
+		inLayer, layerCells, layerStates, widest := 0, 0, 0.0, 0
+		// every canonical count vector adding up to t: ascending within classes
+		var walk func(i, left int)
+		walk = func(i, left int) {
+			if i == k-1 {
+				if left > s.sizes[i] || (i > s.class[i] && left < counts[i-1]) {
+					return
+				}
+				counts[i] = left
+				c, r := size(counts, t)
+				inLayer, layerCells = min(inLayer+c+2*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
+				layerStates, widest = layerStates+s.reachable(counts, t, dealt+1)+hashBucket, max(widest, r)
+				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
+				return
+			}
+			from := 0
+			if i > s.class[i] {
+				from = counts[i-1]
+			}
+			for c := from; c <= min(s.sizes[i], left); c++ {
+				counts[i] = c
+				walk(i+1, left-c)
+			}
+		}
+		walk(0, t)
+		inLayer = min(inLayer+2*widest, tooMany) // the layer's scratch for laying out its widest bucket
+		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
+		fig.hashed = max(fig.hashed, int(min(layerStates, tooMany)))
+		before = inLayer
+	}
+	return fig
+}
+
+// reachable bounds the states of a bucket: the stored groups' sums that its
+// box allows, and for each group no more than the ways to hold its count of
+// scores on the levels dealt so far, C(c + levels − 1, levels − 1). The
+// second bound is what matters for data on a few levels with uneven tie
+// blocks, whose sums are sparse in the box (a 3 × 3 table of 248 values has
+// 670,000 states in boxes of 4·10⁹ cells).
+func (s *space) reachable(counts []int, t, levels int) float64 {
+	k := len(s.sizes)
+	if s.box(counts, t, s.lo, s.hi) == 0 {
+		return 0
+	}
+	states := 1.0
+	for i := range k - 1 {
+		states *= min(float64(s.hi[i]-s.lo[i]+1), compositions(counts[i], levels))
+	}
+	return min(states, tooMany)
+}
+
+// compositions is C(c + levels − 1, levels − 1), the ways to hold c scores on
+// the levels, in float64 (it may be huge).
+func compositions(c, levels int) float64 {
+	w := 1.0
+	for j := 1; j < levels && w < tooMany; j++ {
+		w = w * float64(c+j) / float64(j)
+	}
+	return w
+}
+
+// EstimateStates bounds the size of the largest layer from the sizes and the
+// scores, without computing it: after t scores are dealt, a stored group can
+// hold c of them with a sum anywhere between the c smallest and the c
+// largest, and groups of one size class are counted once per arrangement.
+// The product over the stored groups is divided by the number of group counts
+// that add up to t, a correction measured against real layers (it stays
+// within a factor of a few of them; see the tests).
+func EstimateStates(sizes []int, blocks []Block) float64 {
+	sorted := slices.Sorted(slices.Values(sizes))
+	var scores []int64
+	for _, b := range blocks {
+		for range b.Count {
+			scores = append(scores, b.Score)
+		}
+	}
+	n := len(scores)
+	prefix := make([]int64, n+1)
+	for i, x := range scores {
+		prefix[i+1] = prefix[i] + x
+	}
+	k := len(sorted)
+	worst := 1.0
+	t := 0
+	for levels, b := range blocks[:len(blocks)-1] { // layers exist after each block but the last
+		t += b.Count
+		est := 1.0
+		for i := 0; i < k-1; i++ {
+			pairs := 0.0
+			for c := max(0, t-(n-sorted[i])); c <= min(sorted[i], t); c++ {
+				lo := prefix[c]
+				hi := prefix[t] - prefix[t-c]
+				pairs += min(float64(hi-lo)+1, compositions(c, levels+1)) // the sums a count can have (see reachable)
+			}
+			est *= pairs
+		}
+		// arrangements within classes, and the constraint on the counts
+		for i, run := 0, 1; i < k-1; i++ {
+			if i > 0 && sorted[i] == sorted[i-1] {
+				run++
+				est /= float64(run)
+			} else {
+				run = 1
+			}
+		}
+		est /= float64(min(t, sorted[k-1]) + 1)
+		worst = max(worst, est)
+	}
+	return worst
+}
