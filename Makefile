@@ -5,7 +5,7 @@ FUZZTIME ?= 10s
 # fuzz-once runs one fuzz test of one package for FUZZTIME
 fuzz-once = $(GO) test $(1) -run '^$$' -fuzz '^$(2)$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
-.PHONY: build serve edge edge-dev edge-deps test test-deps test-go test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
+.PHONY: build serve edge edge-dev edge-deps test check test-deps test-go test-unit test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -36,11 +36,18 @@ test-deps:
 	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs npm; }
 	@$(MAKE) --no-print-directory edge-deps
 
+# check: the fast inner loop (well under a minute): formatting, vet, the core's import rule and the Go
+# tests that need neither a browser nor a build of the site
+check: fmt-check vet check-core test-unit
+
+# test-unit: the Go tests natively, but for the packages that build the module or drive the browser
+FRESH := ./tools/browsertest ./tools/internal/sitebuild
+test-unit:
+	$(GO) test $$($(GO) list ./... | grep -v -e /tools/browsertest -e /tools/internal/sitebuild)
+
 # test-go: the Go tests natively, the browser tests in headless Chromium among them. The packages that
 # build the module in a child process run every time (-count=1): Go's test cache cannot see those inputs.
-FRESH := ./tools/browsertest ./tools/internal/sitebuild
-test-go:
-	$(GO) test $$($(GO) list ./... | grep -v -e /tools/browsertest -e /tools/internal/sitebuild)
+test-go: test-unit
 	$(GO) test -count=1 $(FRESH)
 
 # test-wasm: the core and the module's tests compiled to js/wasm and run under Node

@@ -2,6 +2,7 @@ package montecarlo
 
 import (
 	"context"
+	"runtime"
 	"testing"
 
 	"midrank/core/exact"
@@ -65,12 +66,22 @@ func TestReproducible(t *testing.T) {
 	sizes := []int{7, 8, 9}
 	scores := untied(24)
 	observed := []int64{60, 90, 126}
-	a, _ := PValue(context.Background(), sizes, scores, observed, 50_000, 11, nil)
-	b, _ := PValue(context.Background(), sizes, scores, observed, 50_000, 11, func(int, int) {})
-	c, _ := PValue(context.Background(), sizes, scores, observed, 50_000, 12, nil)
-	if a != b {
-		t.Errorf("same seed: %+v and %+v", a, b)
+	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(0))
+	var first Result
+	for i, workers := range []int{1, 2, 5} { // 50,000 resamples are 13 chunks: every count shares them out differently
+		runtime.GOMAXPROCS(workers)
+		r, err := PValue(context.Background(), sizes, scores, observed, 50_000, 11, func(int, int) {})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if i == 0 {
+			first = r
+		} else if r != first {
+			t.Errorf("same seed with %d workers: %+v, with 1: %+v", workers, r, first)
+		}
 	}
+	a := first
+	c, _ := PValue(context.Background(), sizes, scores, observed, 50_000, 12, nil)
 	if a.Exceed == c.Exceed {
 		t.Logf("seeds 11 and 12 gave the same count %d (possible, unlikely)", a.Exceed)
 	}
