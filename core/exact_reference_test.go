@@ -1,28 +1,21 @@
 package core
 
 import (
-	"bufio"
 	"fmt"
 	"math"
+	"midrank/core/testfiles"
 	"os"
 	"strconv"
 	"strings"
 	"testing"
 )
 
+// readTSV reads a reference table of testdata/reference (see package testfiles).
 func readTSV(t *testing.T, name string) [][]string {
 	t.Helper()
-	f, err := os.Open("../testdata/reference/" + name)
+	rows, err := testfiles.Rows(os.DirFS("../testdata/reference"), name)
 	if err != nil {
 		t.Fatal(err)
-	}
-	defer f.Close()
-	var rows [][]string
-	s := bufio.NewScanner(f)
-	s.Buffer(nil, 1<<20)
-	s.Scan()
-	for s.Scan() {
-		rows = append(rows, strings.Split(s.Text(), "\t"))
 	}
 	return rows
 }

@@ -5,10 +5,14 @@ import (
 	"encoding/json"
 	"flag"
 	"os"
+	"path/filepath"
 	"testing"
 
-	"midrank/tools/casefiles"
+	"midrank/core/testfiles"
 )
+
+// casesDir holds the example cases (see package testfiles).
+const casesDir = "../testdata/cases"
 
 var update = flag.Bool("update", false, "rewrite the expected answers in testdata/cases")
 
@@ -33,29 +37,29 @@ func answer(data, options []byte) []byte {
 // Its figures are checked against R and scipy in TestAgainstReferences; this
 // test keeps every other byte from changing unnoticed.
 func TestGolden(t *testing.T) {
-	cases, err := casefiles.List("../testdata/cases")
+	cases, err := testfiles.Cases(os.DirFS(casesDir))
 	if err != nil {
 		t.Fatal(err)
 	}
 	for _, c := range cases {
-		data, err := os.ReadFile(c.Input)
+		data, err := os.ReadFile(filepath.Join(casesDir, c.Input))
 		if err != nil {
 			t.Fatal(err)
 		}
 		var options []byte
 		if c.Options != "" {
-			if options, err = os.ReadFile(c.Options); err != nil {
+			if options, err = os.ReadFile(filepath.Join(casesDir, c.Options)); err != nil {
 				t.Fatal(err)
 			}
 		}
 		got := answer(data, options)
 		if *update {
-			if err := os.WriteFile(c.Golden, got, 0o644); err != nil {
+			if err := os.WriteFile(filepath.Join(casesDir, c.Golden), got, 0o644); err != nil {
 				t.Fatal(err)
 			}
 			continue
 		}
-		want, err := os.ReadFile(c.Golden)
+		want, err := os.ReadFile(filepath.Join(casesDir, c.Golden))
 		if err != nil {
 			t.Fatalf("%s: %v (go test ./core -update writes it)", c.Name, err)
 		}
@@ -97,15 +101,15 @@ func stdJSON(t *testing.T, v any) []byte {
 // encoding/json gives for Result's json tags (HTML escaping off), for every
 // case, so the tags stay the documentation of the format.
 func TestEncodeMatchesStructTags(t *testing.T) {
-	cases, err := casefiles.List("../testdata/cases")
+	cases, err := testfiles.Cases(os.DirFS(casesDir))
 	if err != nil {
 		t.Fatal(err)
 	}
 	for _, c := range cases {
-		data, _ := os.ReadFile(c.Input)
+		data, _ := os.ReadFile(filepath.Join(casesDir, c.Input))
 		var options []byte
 		if c.Options != "" {
-			options, _ = os.ReadFile(c.Options)
+			options, _ = os.ReadFile(filepath.Join(casesDir, c.Options))
 		}
 		opt, err := DecodeOptions(options)
 		var r *Result

@@ -1,7 +1,6 @@
 package core
 
 import (
-	"bufio"
 	"math"
 	"os"
 	"path/filepath"
@@ -21,16 +20,8 @@ type referenceValue struct {
 // readReference reads a TSV written by tools/reference/generate.sh.
 func readReference(t *testing.T, name string) []referenceValue {
 	t.Helper()
-	f, err := os.Open(filepath.Join("..", "testdata", "reference", name))
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
 	var out []referenceValue
-	s := bufio.NewScanner(f)
-	s.Scan() // header
-	for s.Scan() {
-		c := strings.Split(s.Text(), "\t")
+	for _, c := range readTSV(t, name) {
 		v, err := strconv.ParseFloat(c[2], 64)
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)

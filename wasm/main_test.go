@@ -5,11 +5,12 @@ package main
 import (
 	"midrank/core"
 	"os"
+	"path/filepath"
 	"strings"
 	"syscall/js"
 	"testing"
 
-	"midrank/tools/casefiles"
+	"midrank/core/testfiles"
 )
 
 func module() js.Value {
@@ -24,25 +25,26 @@ func module() js.Value {
 // page's worker does and expects, byte for byte, the answers pinned in
 // testdata/cases, which the command line's --json also prints.
 func TestAnswersMatchGolden(t *testing.T) {
-	cases, err := casefiles.List("../testdata/cases")
+	const dir = "../testdata/cases"
+	cases, err := testfiles.Cases(os.DirFS(dir))
 	if err != nil {
 		t.Fatal(err)
 	}
 	m := module()
 	for _, c := range cases {
-		data, err := os.ReadFile(c.Input)
+		data, err := os.ReadFile(filepath.Join(dir, c.Input))
 		if err != nil {
 			t.Fatal(err)
 		}
 		options := ""
 		if c.Options != "" {
-			b, err := os.ReadFile(c.Options)
+			b, err := os.ReadFile(filepath.Join(dir, c.Options))
 			if err != nil {
 				t.Fatal(err)
 			}
 			options = string(b)
 		}
-		want, err := os.ReadFile(c.Golden)
+		want, err := os.ReadFile(filepath.Join(dir, c.Golden))
 		if err != nil {
 			t.Fatal(err)
 		}

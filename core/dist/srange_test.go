@@ -1,26 +1,19 @@
 package dist
 
 import (
-	"bufio"
 	"math"
+	"midrank/core/testfiles"
 	"os"
 	"strconv"
-	"strings"
 	"testing"
 )
 
+// readRows reads a reference table of testdata/reference (see package testfiles).
 func readRows(t *testing.T, name string) [][]string {
 	t.Helper()
-	f, err := os.Open("../../testdata/reference/" + name)
+	rows, err := testfiles.Rows(os.DirFS("../../testdata/reference"), name)
 	if err != nil {
 		t.Fatal(err)
-	}
-	defer f.Close()
-	var rows [][]string
-	s := bufio.NewScanner(f)
-	s.Scan()
-	for s.Scan() {
-		rows = append(rows, strings.Split(s.Text(), "\t"))
 	}
 	return rows
 }

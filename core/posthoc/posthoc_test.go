@@ -1,13 +1,12 @@
 package posthoc
 
 import (
-	"bufio"
 	"context"
 	"math"
+	"midrank/core/testfiles"
 	"os"
 	"slices"
 	"strconv"
-	"strings"
 	"testing"
 
 	"midrank/core/kruskal"
@@ -31,18 +30,12 @@ func dataset(t *testing.T, name string) (*table.Table, rank.Ranking, float64) {
 	return tab, r, h
 }
 
+// rows reads a reference table of testdata/reference (see package testfiles).
 func rows(t *testing.T, name string) [][]string {
 	t.Helper()
-	f, err := os.Open("../../testdata/reference/" + name)
+	out, err := testfiles.Rows(os.DirFS("../../testdata/reference"), name)
 	if err != nil {
 		t.Fatal(err)
-	}
-	defer f.Close()
-	var out [][]string
-	s := bufio.NewScanner(f)
-	s.Scan()
-	for s.Scan() {
-		out = append(out, strings.Split(s.Text(), "\t"))
 	}
 	return out
 }

@@ -5,11 +5,12 @@ import (
 	"encoding/json"
 	"fmt"
 	"os"
+	"path/filepath"
 	"slices"
 	"strings"
 	"testing"
 
-	"midrank/tools/casefiles"
+	"midrank/core/testfiles"
 )
 
 // flagsOf turns a case's options JSON into flags: the flags carry the
@@ -51,15 +52,20 @@ func flagsOf(t *testing.T, path string) []string {
 // status 0 for an analysis, 1 for data that cannot be analysed and 2 for a
 // setting that cannot be used.
 func TestJSONMatchesGolden(t *testing.T) {
-	cases, err := casefiles.List("../../testdata/cases")
+	const dir = "../../testdata/cases"
+	cases, err := testfiles.Cases(os.DirFS(dir))
 	if err != nil {
 		t.Fatal(err)
 	}
 	for _, c := range cases {
 		var stdout, stderr bytes.Buffer
-		args := append(append([]string{"--json"}, flagsOf(t, c.Options)...), c.Input)
+		options := ""
+		if c.Options != "" {
+			options = filepath.Join(dir, c.Options)
+		}
+		args := append(append([]string{"--json"}, flagsOf(t, options)...), filepath.Join(dir, c.Input))
 		code := run(args, nil, &stdout, &stderr)
-		want, err := os.ReadFile(c.Golden)
+		want, err := os.ReadFile(filepath.Join(dir, c.Golden))
 		if err != nil {
 			t.Fatal(err)
 		}
