@@ -14,10 +14,8 @@ import (
 	"slices"
 	"sync"
 
-	"midrank/core/adjust"
 	"midrank/core/describe"
 	"midrank/core/kruskal"
-	"midrank/core/posthoc"
 	"midrank/core/rank"
 	"midrank/core/report"
 	"midrank/core/table"
@@ -224,13 +222,13 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		Labels: t.Labels, Sizes: sizes, Measure: t.Measure, Left: r.Input.LeftLabels(),
 		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
 		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
-		Unreachable: r.PMethod == "exact" && r.ExactCriticalValue == nil,
+		Unreachable: r.PMethod == string(PValueExact) && r.ExactCriticalValue == nil,
 	}
 	if mc := r.MonteCarlo; mc != nil {
 		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh
 	}
 	if ph := r.PostHoc; ph != nil {
-		facts.PairMethod, facts.AdjustName, facts.PairsTested = posthoc.Names[ph.Method], adjust.Names[ph.Adjust], len(ph.Pairs)
+		facts.PairMethod, facts.AdjustName, facts.PairsTested = ph.Method.Name(), ph.Adjust.Name(), len(ph.Pairs)
 		for _, p := range ph.Pairs {
 			if !p.Significant {
 				continue
@@ -326,7 +324,7 @@ func warnings(r *Result) []string {
 	w := []string{}
 	var small []Group
 	for _, g := range r.Groups {
-		if g.N < report.SmallGroup && r.PMethod == "asymptotic" {
+		if g.N < report.SmallGroup && r.PMethod == string(PValueAsymptotic) {
 			small = append(small, g)
 		}
 	}

@@ -1,6 +1,7 @@
 package core
 
 import (
+	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -190,7 +191,8 @@ func FuzzAnalyze(f *testing.F) {
 	f.Fuzz(func(t *testing.T, data []byte, alpha float64, mode uint8) {
 		// every p-value method and post-hoc procedure, each kept quick:
 		// few resamples, and the exact method only on small samples
-		opt := Options{Alpha: alpha, PValue: "asymptotic", PostHoc: posthocMethods[int(mode)%len(posthocMethods)]}
+		posthocKeys := Keys("posthoc")
+		opt := Options{Alpha: alpha, PValue: "asymptotic", PostHoc: posthocKeys[int(mode)%len(posthocKeys)]}
 		switch {
 		case mode&0x10 != 0:
 			opt.PValue, opt.Resamples = "monte-carlo", 200
@@ -350,5 +352,29 @@ func TestRankedPage(t *testing.T) {
 	}
 	if p := r.Page(ListRanked, 4, 10); len(p.Ranks) != 2 || p.Ranks[0].Value != 3 {
 		t.Errorf("second page %+v", p)
+	}
+}
+
+// TestMenus: every choice that the menus offer is accepted as it is by the
+// option parser, the first is the default, and every label is words.
+func TestMenus(t *testing.T) {
+	defaults := Defaults()
+	firsts := map[string]string{"pvalue": defaults.PValue, "posthoc": defaults.PostHoc, "adjust": defaults.Adjust}
+	for _, m := range Menus {
+		if m.Choices[0].Key != firsts[m.Option] {
+			t.Errorf("%s: first choice %q, default %q", m.Option, m.Choices[0].Key, firsts[m.Option])
+		}
+		for _, c := range m.Choices {
+			opt, err := DecodeOptions([]byte(fmt.Sprintf(`{%q:%q}`, m.Option, c.Key)))
+			if err == nil {
+				_, err = opt.validate()
+			}
+			if err != nil || c.Label == "" {
+				t.Errorf("%s %q (%q): %v", m.Option, c.Key, c.Label, err)
+			}
+		}
+	}
+	if !bytes.Contains(EncodeMenus(), []byte(`{"key":"none","label":"no pairwise comparison"}`)) {
+		t.Errorf("EncodeMenus = %s", EncodeMenus())
 	}
 }

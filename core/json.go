@@ -144,8 +144,8 @@ func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
 		return
 	}
 	w.BeginObject()
-	w.StringMember("method", ph.Method)
-	w.StringMember("adjust", ph.Adjust)
+	w.StringMember("method", string(ph.Method))
+	w.StringMember("adjust", string(ph.Adjust))
 	w.FloatMember("confidence", ph.Confidence)
 	w.Key("pairs")
 	w.BeginArray()

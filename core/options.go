@@ -6,7 +6,6 @@ import (
 	"maps"
 	"slices"
 	"strconv"
-	"strings"
 
 	"midrank/core/adjust"
 	"midrank/core/jsonlite"
@@ -59,8 +58,8 @@ func (o Options) ForLabels(labels []string) Options {
 // page to show: the one place the defaults are kept is here.
 func Defaults() Options {
 	seed := uint64(DefaultSeed)
-	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Alpha: DefaultAlpha, PValue: pvalueMethods[0],
-		Resamples: DefaultResamples, Seed: &seed, PostHoc: posthocMethods[0], Adjust: adjustMethods[0]}
+	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Alpha: DefaultAlpha, PValue: Keys("pvalue")[0],
+		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0]}
 }
 
 // OptionError is a setting that cannot be used.
@@ -73,13 +72,6 @@ type OptionError struct {
 func (e *OptionError) Error() string {
 	return fmt.Sprintf("%s %q: %s", e.Option, e.Value, e.Reason)
 }
-
-// The method names of each setting; the first is the default.
-var (
-	pvalueMethods  = []string{"auto", "asymptotic", "exact", "monte-carlo"}
-	posthocMethods = posthoc.Methods
-	adjustMethods  = adjust.Methods
-)
 
 // DecodeOptions reads options from JSON, refusing unknown keys so that a
 // misspelt setting is not silently ignored. Empty input means the defaults.
@@ -255,17 +247,17 @@ type settings struct {
 	read      table.Options
 	edits     table.Edits
 	alpha     float64
-	pvalue    string
+	pvalue    PValueMethod
 	resamples int
 	seed      uint64
-	posthoc   string
-	adjust    string
+	pairs     bool // a pairwise comparison was asked for, by posthoc
+	posthoc   posthoc.Method
+	adjust    adjust.Method
 }
 
 // validate checks every option and fills in the defaults.
 func (o Options) validate() (settings, error) {
-	s := settings{alpha: o.Alpha, pvalue: o.PValue, posthoc: o.PostHoc, adjust: o.Adjust,
-		edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}}
+	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
 		return s, &OptionError{"layout", o.Layout, "choose auto, wide or long"}
@@ -296,13 +288,14 @@ func (o Options) validate() (settings, error) {
 		return s, &OptionError{"alpha", fmt.Sprint(o.Alpha), "the significance level must lie strictly between 0 and 1, for example 0.05"}
 	}
 	var err error
-	if s.pvalue, err = choose("pvalue", o.PValue, pvalueMethods); err != nil {
+	if s.pvalue, err = choose[PValueMethod]("pvalue", o.PValue); err != nil {
 		return s, err
 	}
-	if s.posthoc, err = choose("posthoc", o.PostHoc, posthocMethods); err != nil {
+	if s.posthoc, err = choose[posthoc.Method]("posthoc", o.PostHoc); err != nil {
 		return s, err
 	}
-	if s.adjust, err = choose("adjust", o.Adjust, adjustMethods); err != nil {
+	s.pairs = s.posthoc != NoPairs
+	if s.adjust, err = choose[adjust.Method]("adjust", o.Adjust); err != nil {
 		return s, err
 	}
 	s.resamples = o.Resamples
@@ -322,13 +315,3 @@ func (o Options) validate() (settings, error) {
 	return s, nil
 }
 
-// choose checks a method name against the known ones; "" is the first.
-func choose(option, value string, known []string) (string, error) {
-	if value == "" {
-		return known[0], nil
-	}
-	if slices.Contains(known, value) {
-		return value, nil
-	}
-	return "", &OptionError{option, value, "choose one of " + strings.Join(known, ", ")}
-}

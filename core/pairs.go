@@ -12,8 +12,8 @@ import (
 
 // PostHoc is the result of the pairwise comparisons.
 type PostHoc struct {
-	Method     string            `json:"method"`
-	Adjust     string            `json:"adjust"`
+	Method     posthoc.Method    `json:"method"`
+	Adjust     adjust.Method     `json:"adjust"`
 	Confidence float64           `json:"confidence"` // of the Hodges–Lehmann intervals, 1 − alpha
 	Pairs      []PairResult      `json:"pairs"`
 	Letters    map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
@@ -45,7 +45,7 @@ const MaxPairGroups = 100
 // comparePairs runs the post-hoc procedure, adjusts the p-values and letters
 // the groups.
 func (r *Result) comparePairs(ctx context.Context, s settings, ranking rank.Ranking) error {
-	r.pairsAsked = s.posthoc != "none"
+	r.pairsAsked = s.pairs
 	if !r.pairsAsked || len(r.Groups) > MaxPairGroups {
 		return nil
 	}

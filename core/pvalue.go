@@ -103,9 +103,9 @@ func (p *permutationProblem) h(t int64, c float64) float64 {
 func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Ranking, progress Progress) error {
 	method := s.pvalue
 	var reasons []string
-	if method == "auto" || method == "exact" {
+	if method == PValueAuto || method == PValueExact {
 		limit := exact.Limits{MaxCells: ExactCells, MaxStates: ExactStates}
-		if method == "auto" {
+		if method == PValueAuto {
 			limit.MaxWork, limit.MaxStates = AutoExactWork, AutoExactStates
 		}
 		// the screen needs only the sizes and the tie blocks: large samples
@@ -116,32 +116,32 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		}
 		switch {
 		case err == nil:
-			r.PMethod = "exact"
+			r.PMethod = string(PValueExact)
 			r.PMethodReason = fmt.Sprintf("Exact: every one of the %s equally likely ways to deal these ranks into groups of %s was accounted for.",
 				dealCount(ranking.Sizes), sizesText(ranking.Sizes))
-			if method == "auto" {
+			if method == PValueAuto {
 				r.PMethodReason = "Chosen automatically. " + r.PMethodReason
 			}
 			return nil
 		case !errors.Is(err, exact.ErrTooLarge):
 			return err
-		case method == "exact":
+		case method == PValueExact:
 			return &OptionError{Option: "pvalue", Value: "exact",
 				Reason: fmt.Sprintf("the exact distribution for groups of %s is beyond the budget of this tool (%v); use monte-carlo, or auto", sizesText(ranking.Sizes), err)}
 		}
 		reasons = append(reasons, "the exact distribution is too large to compute here")
-		method = "asymptotic"
+		method = PValueAsymptotic
 		if smallest(ranking.Sizes) < report.SmallGroup || r.TieCorrection < HeavyTies {
 			if draws := float64(len(ranking.Sorted)) * float64(s.resamples); draws <= AutoMonteCarloDraws {
-				method = "monte-carlo"
+				method = PValueMonteCarlo
 			} else {
 				reasons = append(reasons, fmt.Sprintf("Monte Carlo with %d resamples of %d values would take too long for an automatic choice (ask for monte-carlo to run it)", s.resamples, len(ranking.Sorted)))
 			}
 		}
 	}
 	switch method {
-	case "asymptotic":
-		r.PMethod = "asymptotic"
+	case PValueAsymptotic:
+		r.PMethod = string(PValueAsymptotic)
 		r.PValue = r.PAsymptotic
 		if len(reasons) == 0 {
 			r.PMethodReason = "Chi-square approximation, as requested."
@@ -152,7 +152,7 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and %s; with %d values the approximation, with the tie correction, is usually close.",
 				reasons[0], reasons[1], len(ranking.Sorted))
 		}
-	case "monte-carlo":
+	case PValueMonteCarlo:
 		p := newProblem(ranking)
 		var mcProgress montecarlo.Progress
 		if progress != nil {
@@ -162,7 +162,7 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		if err != nil {
 			return err
 		}
-		r.PMethod = "monte-carlo"
+		r.PMethod = string(PValueMonteCarlo)
 		r.PValue = mc.P
 		r.PMonteCarlo = &mc.P
 		r.MonteCarlo = &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}

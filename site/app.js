@@ -85,6 +85,7 @@ function onWorkerMessage(event) {
     $("version").textContent = m.version;
     defaults = m.defaults;
     limits = m.limits;
+    fillMenus(m.menus);
     document.documentElement.dataset.moduleReadyMs = String(Math.round(m.ms));
     $("analyse").disabled = false;
     if (!started) {
@@ -127,6 +128,16 @@ function onWorkerMessage(event) {
 }
 
 startWorker();
+
+// fillMenus puts the methods the module offers into their menus, once:
+// the module owns their keys and the words shown.
+function fillMenus(menus) {
+  for (const [option, choices] of Object.entries(menus)) {
+    const select = $(option);
+    if (select.options.length) continue;
+    select.append(...choices.map((c) => new Option(c.label, c.key)));
+  }
+}
 
 // restartWorker stops the worker, whatever it is doing, and starts a fresh
 // one; requests waiting for it are answered as cancelled.

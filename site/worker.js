@@ -21,7 +21,7 @@ const ready = new Promise((resolve) => { begin = resolve; }).then(async (module)
   const instance = await WebAssembly.instantiate(module, go.importObject);
   go.run(instance); // main registers globalThis.midrank, then waits for calls
   const m = globalThis.midrank;
-  postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), limits: JSON.parse(m.limits), ms: performance.now() - arrived });
+  postMessage({ kind: "ready", version: m.version, defaults: JSON.parse(m.defaults), limits: JSON.parse(m.limits), menus: JSON.parse(m.menus), ms: performance.now() - arrived });
   return m;
 });
 ready.catch((err) => postMessage({ kind: "failed", message: String(err) }));

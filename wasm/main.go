@@ -11,6 +11,7 @@
 //	globalThis.midrank.version
 //	globalThis.midrank.defaults → the default settings as options JSON
 //	globalThis.midrank.limits → {"text": bytes of the largest text read, "link": characters of the longest link}
+//	globalThis.midrank.menus → {"pvalue"|"posthoc"|"adjust": [{"key", "label"}, …]}, the methods offered, default first
 //
 // where data is the pasted text (a string, or a Uint8Array of UTF-8 bytes,
 // which saves a copy), optionsJSON holds core.Options, and responseJSON is
@@ -61,6 +62,7 @@ func register() {
 		"version":   core.Version,
 		"defaults":  string(core.Defaults().JSON()),
 		"limits":    limits(),
+		"menus":     string(core.EncodeMenus()),
 	}))
 }
 

@@ -8,19 +8,42 @@ import (
 	"slices"
 )
 
-// Methods lists the method names in the order they are offered.
-var Methods = []string{"holm", "bonferroni", "sidak", "hochberg", "bh", "by", "none"}
+// Method is a way of adjusting, named by its request key.
+type Method string
 
-// Names gives each method's name for prose.
-var Names = map[string]string{
-	"holm":       "Holm's step-down method (Holm 1979)",
-	"bonferroni": "the Bonferroni correction",
-	"sidak":      "the Šidák correction (Šidák 1967)",
-	"hochberg":   "Hochberg's step-up method (Hochberg 1988)",
-	"bh":         "the Benjamini–Hochberg false discovery rate (Benjamini & Hochberg 1995)",
-	"by":         "the Benjamini–Yekutieli false discovery rate (Benjamini & Yekutieli 2001)",
-	"none":       "no adjustment",
+// The methods.
+const (
+	Holm       Method = "holm"
+	Bonferroni Method = "bonferroni"
+	Sidak      Method = "sidak"
+	Hochberg   Method = "hochberg"
+	BH         Method = "bh"
+	BY         Method = "by"
+	None       Method = "none"
+)
+
+// Methods lists the methods in the order they are offered.
+var Methods = []Method{Holm, Bonferroni, Sidak, Hochberg, BH, BY, None}
+
+// words are each method's label in a menu and its name in prose.
+var words = map[Method]struct{ label, prose string }{
+	Holm:       {"Holm", "Holm's step-down method (Holm 1979)"},
+	Bonferroni: {"Bonferroni", "the Bonferroni correction"},
+	Sidak:      {"Šidák", "the Šidák correction (Šidák 1967)"},
+	Hochberg:   {"Hochberg", "Hochberg's step-up method (Hochberg 1988)"},
+	BH:         {"Benjamini–Hochberg (false discovery rate)", "the Benjamini–Hochberg false discovery rate (Benjamini & Hochberg 1995)"},
+	BY:         {"Benjamini–Yekutieli (false discovery rate)", "the Benjamini–Yekutieli false discovery rate (Benjamini & Yekutieli 2001)"},
+	None:       {"none", "no adjustment"},
 }
+
+// Known tells whether m is one of Methods.
+func (m Method) Known() bool { _, ok := words[m]; return ok }
+
+// Label is the method's name in a menu.
+func (m Method) Label() string { return words[m].label }
+
+// Name is the method's name in prose.
+func (m Method) Name() string { return words[m].prose }
 
 // Adjust returns the adjusted p-values of p by method. With m the number of
 // p-values and p₍₁₎ ≤ … ≤ p₍m₎ the sorted ones:
@@ -32,7 +55,7 @@ var Names = map[string]string{
 //	bh          min over j ≥ i of min(1, m/j·p₍j₎)
 //	by          min over j ≥ i of min(1, (Σ 1/l)·m/j·p₍j₎)
 //	none        p
-func Adjust(p []float64, method string) ([]float64, error) {
+func Adjust(p []float64, method Method) ([]float64, error) {
 	m := float64(len(p))
 	out := make([]float64, len(p))
 	order := make([]int, len(p)) // ascending p, ties in input order
@@ -49,25 +72,25 @@ func Adjust(p []float64, method string) ([]float64, error) {
 		return 0
 	})
 	switch method {
-	case "none":
+	case None:
 		copy(out, p)
-	case "bonferroni":
+	case Bonferroni:
 		for i, v := range p {
 			out[i] = math.Min(1, m*v)
 		}
-	case "sidak":
+	case Sidak:
 		for i, v := range p {
 			out[i] = math.Min(1, -math.Expm1(m*math.Log1p(-v)))
 		}
-	case "holm":
+	case Holm:
 		run := 0.0
 		for j, i := range order {
 			run = math.Max(run, math.Min(1, (m-float64(j))*p[i]))
 			out[i] = run
 		}
-	case "hochberg", "bh", "by":
+	case Hochberg, BH, BY:
 		factor := 1.0
-		if method == "by" {
+		if method == BY {
 			factor = 0
 			for l := 1; l <= len(p); l++ {
 				factor += 1 / float64(l)
@@ -78,7 +101,7 @@ func Adjust(p []float64, method string) ([]float64, error) {
 			i := order[j]
 			rank := float64(j + 1)
 			var v float64
-			if method == "hochberg" {
+			if method == Hochberg {
 				v = (m - rank + 1) * p[i]
 			} else {
 				v = factor * m / rank * p[i]

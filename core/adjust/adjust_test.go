@@ -26,7 +26,7 @@ func TestAgainstR(t *testing.T) {
 	for s.Scan() {
 		c := strings.Split(s.Text(), "\t")
 		want := parse(c[1])
-		got, err := Adjust(raw, c[0])
+		got, err := Adjust(raw, Method(c[0]))
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -20,8 +20,8 @@ func BenchmarkCompareK10N100k(b *testing.B) {
 	}
 	r := rank.Rank(values, groups, 10)
 	h := kruskal.Compute(r.Sizes, r.RankSums, r.TieSum).H
-	for _, method := range []string{"dunn", "conover", "dscf", "mann-whitney"} {
-		b.Run(method, func(b *testing.B) {
+	for _, method := range Methods {
+		b.Run(string(method), func(b *testing.B) {
 			for b.Loop() {
 				if _, err := Compare(context.Background(), method, r, h, 0.95); err != nil {
 					b.Fatal(err)

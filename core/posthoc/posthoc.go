@@ -22,16 +22,36 @@ import (
 	"midrank/core/rank"
 )
 
-// Methods lists the procedures in the order they are offered.
-var Methods = []string{"dunn", "conover", "dscf", "mann-whitney", "none"}
+// Method is a pairwise procedure, named by its request key.
+type Method string
 
-// Names gives each procedure's name for prose.
-var Names = map[string]string{
-	"dunn":         "Dunn's test (Dunn 1964)",
-	"conover":      "the Conover–Iman test (Conover & Iman 1979)",
-	"dscf":         "the Dwass–Steel–Critchlow–Fligner test (Critchlow & Fligner 1991)",
-	"mann-whitney": "pairwise Wilcoxon–Mann–Whitney tests",
+// The procedures.
+const (
+	Dunn        Method = "dunn"
+	Conover     Method = "conover"
+	DSCF        Method = "dscf"
+	MannWhitney Method = "mann-whitney"
+)
+
+// Methods lists the procedures in the order they are offered.
+var Methods = []Method{Dunn, Conover, DSCF, MannWhitney}
+
+// words are each procedure's label in a menu and its name in prose.
+var words = map[Method]struct{ label, prose string }{
+	Dunn:        {"Dunn", "Dunn's test (Dunn 1964)"},
+	Conover:     {"Conover–Iman", "the Conover–Iman test (Conover & Iman 1979)"},
+	DSCF:        {"Dwass–Steel–Critchlow–Fligner", "the Dwass–Steel–Critchlow–Fligner test (Critchlow & Fligner 1991)"},
+	MannWhitney: {"Mann–Whitney, pair by pair", "pairwise Wilcoxon–Mann–Whitney tests"},
 }
+
+// Known tells whether m is one of Methods.
+func (m Method) Known() bool { _, ok := words[m]; return ok }
+
+// Label is the procedure's name in a menu.
+func (m Method) Label() string { return words[m].label }
+
+// Name is the procedure's name in prose.
+func (m Method) Name() string { return words[m].prose }
 
 // Pair is the comparison of groups A and B (indices, A before B in input
 // order). Statistic is signed, positive when A tends to be higher, except
@@ -46,7 +66,7 @@ type Pair struct {
 
 // Compare runs a procedure on a ranking. h is the tie-corrected H (for
 // Conover–Iman); confidence is the level of the Hodges–Lehmann interval.
-func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64) ([]Pair, error) {
+func Compare(ctx context.Context, method Method, r rank.Ranking, h, confidence float64) ([]Pair, error) {
 	k := len(r.Sizes)
 	groups := tallies(r)
 	var pairs []Pair
@@ -55,7 +75,7 @@ func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence f
 			pairs = append(pairs, Pair{A: a, B: b})
 		}
 	}
-	if _, ok := Names[method]; !ok {
+	if !method.Known() {
 		return nil, fmt.Errorf("posthoc: unknown method %q", method)
 	}
 	// pairs are independent: share them among the cores, each result in
@@ -85,16 +105,16 @@ func Compare(ctx context.Context, method string, r rank.Ranking, h, confidence f
 }
 
 // compare fills in one pair.
-func compare(ctx context.Context, method string, r rank.Ranking, h, confidence float64, groups []tally, p *Pair) error {
+func compare(ctx context.Context, method Method, r rank.Ranking, h, confidence float64, groups []tally, p *Pair) error {
 	a, b := p.A, p.B
 	switch method {
-	case "dunn":
+	case Dunn:
 		p.Statistic, p.P = dunn(r, a, b)
-	case "conover":
+	case Conover:
 		p.Statistic, p.P = conover(r, h, a, b)
-	case "dscf":
+	case DSCF:
 		p.Statistic, p.P = dscf(r, a, b)
-	case "mann-whitney":
+	case MannWhitney:
 		var err error
 		if p.Statistic, p.P, p.Exact, err = mannWhitney(ctx, r, a, b); err != nil {
 			return err

@@ -46,7 +46,7 @@ func num(s string) float64 {
 }
 
 // pairsOf runs a method on a dataset and indexes the pairs by labels.
-func pairsOf(t *testing.T, name, method string) (map[[2]string]Pair, *table.Table) {
+func pairsOf(t *testing.T, name string, method Method) (map[[2]string]Pair, *table.Table) {
 	tab, r, h := dataset(t, name)
 	pairs, err := Compare(context.Background(), method, r, h, 0.95)
 	if err != nil {
@@ -74,7 +74,7 @@ func TestAgainstIndependentImplementation(t *testing.T) {
 		}
 		key := row[0] + "/" + runAs
 		if cache[key] == nil {
-			cache[key], _ = pairsOf(t, row[0], runAs)
+			cache[key], _ = pairsOf(t, row[0], Method(runAs))
 		}
 		p, ok := cache[key][[2]string{row[2], row[3]}]
 		if !ok {
@@ -123,7 +123,7 @@ func TestMannWhitneyAgainstR(t *testing.T) {
 // TestSymmetry: swapping the groups flips the sign of the statistic only.
 func TestSymmetry(t *testing.T) {
 	_, r, h := dataset(t, "chickwts")
-	for _, method := range []string{"dunn", "conover", "dscf"} {
+	for _, method := range []Method{Dunn, Conover, DSCF} {
 		pairs, _ := Compare(context.Background(), method, r, h, 0.95)
 		for _, p := range pairs {
 			swapped := r

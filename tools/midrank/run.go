@@ -13,9 +13,7 @@ import (
 	"strings"
 
 	"midrank/core"
-	"midrank/core/adjust"
 	"midrank/core/link"
-	"midrank/core/posthoc"
 	"midrank/core/sealed"
 	"midrank/core/table"
 )
@@ -71,7 +69,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		opt.Alpha = f
 		return nil
 	})
-	fs.StringVar(&opt.PValue, "pvalue", "auto", "auto (exact when it fits, else chi-square or Monte Carlo), asymptotic, exact or monte-carlo")
+	fs.StringVar(&opt.PValue, "pvalue", core.Keys("pvalue")[0], "how p is found: "+strings.Join(core.Keys("pvalue"), ", ")+" (auto: exact when it fits, else chi-square or Monte Carlo)")
 	fs.Func("resamples", fmt.Sprintf("Monte Carlo resamples, 1 to %d (default %d)", core.MaxResamples, core.DefaultResamples), func(v string) error {
 		n, err := strconv.Atoi(v)
 		if err != nil || n < 1 || n > core.MaxResamples {
@@ -88,8 +86,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		opt.Seed = &n
 		return nil
 	})
-	fs.StringVar(&opt.PostHoc, "posthoc", "dunn", "pairwise comparisons: "+strings.Join(posthoc.Methods, ", "))
-	fs.StringVar(&opt.Adjust, "adjust", "holm", "multiplicity adjustment: "+strings.Join(adjust.Methods, ", "))
+	fs.StringVar(&opt.PostHoc, "posthoc", core.Keys("posthoc")[0], "pairwise comparisons: "+strings.Join(core.Keys("posthoc"), ", "))
+	fs.StringVar(&opt.Adjust, "adjust", core.Keys("adjust")[0], "multiplicity adjustment: "+strings.Join(core.Keys("adjust"), ", "))
 	fs.Func("order", "put the group with this label (as written in the data) next; repeat to set the order of several", func(label string) error {
 		opt.Order = append(opt.Order, label)
 		return nil
