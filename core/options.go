@@ -314,4 +314,3 @@ func (o Options) validate() (settings, error) {
 	}
 	return s, nil
 }
-
