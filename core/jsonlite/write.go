@@ -1,5 +1,5 @@
 // Package jsonlite writes and reads the JSON that Midrank exchanges, without
-// reflection: encoding/json would add about half a megabyte to the
+// reflection: encoding/json would add about 0.4 MB (0.1 MB gzip) to the
 // WebAssembly module, and the shapes here are few and fixed. Output matches
 // encoding/json with HTML escaping off, byte for byte (the tests compare).
 package jsonlite
