@@ -201,6 +201,9 @@ func FuzzAnalyze(f *testing.F) {
 		}
 		r, err := Analyze(data, opt)
 		if err != nil {
+			if b := EncodeError(err); !json.Valid(b) {
+				t.Fatalf("EncodeError gave invalid JSON: %s", b)
+			}
 			return
 		}
 		if b, err := Encode(r); err != nil || !json.Valid(b) {
