@@ -5,7 +5,7 @@ FUZZTIME ?= 10s
 # fuzz-once runs one fuzz test of one package for FUZZTIME
 fuzz-once = $(GO) test $(1) -run '^$$' -fuzz '^$(2)$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
-.PHONY: build serve edge edge-dev edge-deps test check test-deps test-go test-unit test-wasm vet fmt-check check-core fuzz bench bench-wasm reference clean
+.PHONY: build serve edge edge-dev edge-deps test check test-deps test-go test-unit test-wasm test-arm64 vet fmt-check check-core fuzz bench bench-wasm reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -28,11 +28,13 @@ edge-deps:
 	@test -x tools/edge/node_modules/.bin/workerd || (cd tools/edge && npm ci --no-audit --no-fund)
 
 # test: every check that must pass before a change lands
-test: fmt-check vet check-core test-deps test-go test-wasm
+test: fmt-check vet check-core test-deps test-go test-wasm test-arm64
 
-# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js, the edge runtime)
+# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js, qemu-user, the
+# edge runtime)
 test-deps:
 	@command -v chromium >/dev/null 2>&1 || { apt-get update && apt-get install -y chromium; }
+	@command -v qemu-aarch64 >/dev/null 2>&1 || { apt-get update && apt-get install -y --no-install-recommends qemu-user; }
 	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs npm; }
 	@$(MAKE) --no-print-directory edge-deps
 
@@ -53,6 +55,14 @@ test-go: test-unit
 # test-wasm: the core and the module's tests compiled to js/wasm and run under Node
 test-wasm:
 	PATH="$(WASMEXEC):$$PATH" GOOS=js GOARCH=wasm $(GO) test ./core/... ./wasm/...
+
+# test-arm64: the golden cases and the reference figures with the core built for arm64, where Go may fuse a
+# multiply and an add into one instruction, run under Debian's qemu-user: the same bytes on every platform
+ARM64TEST := $(CURDIR)/core.arm64.test
+test-arm64:
+	GOARCH=arm64 $(GO) test -c -o $(ARM64TEST) ./core
+	cd core && qemu-aarch64 $(ARM64TEST) -test.run '^(TestGolden|TestAgainstReferences|TestExactOnOpenDatasets)$$' -test.v \
+	  > $(ARM64TEST).log 2>&1; status=$$?; grep -E '^(--- |    |PASS|FAIL)' $(ARM64TEST).log; rm -f $(ARM64TEST) $(ARM64TEST).log; exit $$status
 
 # vet: go vet, natively and for js/wasm
 vet:

@@ -92,10 +92,10 @@ func newProblem(ranking rank.Ranking) *permutationProblem {
 //	Σ Rᵢ²/nᵢ = (g²/4)·T/L + (g·b/2)·Σx + b²N/4,  H = (12/(N(N+1))·Σ Rᵢ²/nᵢ − 3(N+1))/C.
 func (p *permutationProblem) h(t int64, c float64) float64 {
 	n := float64(len(p.scores))
-	l := float64(exact.Weights(p.sizes)[0]) * float64(p.sizes[0])
+	l := float64(float64(exact.Weights(p.sizes)[0]) * float64(p.sizes[0]))
 	g, b := float64(p.gcd), float64(p.base)
-	ss := g*g/4*float64(t)/l + g*b/2*float64(p.total) + b*b*n/4
-	return (12/(n*(n+1))*ss - 3*(n+1)) / c
+	ss := g*g/4*float64(t)/l + float64(g*b/2*float64(p.total)) + b*b*n/4
+	return (float64(12/(float64(n*(n+1)))*ss) - float64(3*(n+1))) / c
 }
 
 // choosePValue fills in the p-value by the requested method, running the
@@ -132,7 +132,7 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		reasons = append(reasons, "the exact distribution is too large to compute here")
 		method = PValueAsymptotic
 		if smallest(ranking.Sizes) < report.SmallGroup || r.TieCorrection < HeavyTies {
-			if draws := float64(len(ranking.Sorted)) * float64(s.resamples); draws <= AutoMonteCarloDraws {
+			if draws := float64(float64(len(ranking.Sorted)) * float64(s.resamples)); draws <= AutoMonteCarloDraws {
 				method = PValueMonteCarlo
 			} else {
 				reasons = append(reasons, fmt.Sprintf("Monte Carlo with %d resamples of %d values would take too long for an automatic choice (ask for monte-carlo to run it)", s.resamples, len(ranking.Sorted)))

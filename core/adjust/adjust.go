@@ -76,16 +76,16 @@ func Adjust(p []float64, method Method) ([]float64, error) {
 		copy(out, p)
 	case Bonferroni:
 		for i, v := range p {
-			out[i] = math.Min(1, m*v)
+			out[i] = math.Min(1, float64(m*v))
 		}
 	case Sidak:
 		for i, v := range p {
-			out[i] = math.Min(1, -math.Expm1(m*math.Log1p(-v)))
+			out[i] = math.Min(1, -math.Expm1(float64(m*math.Log1p(-v))))
 		}
 	case Holm:
 		run := 0.0
 		for j, i := range order {
-			run = math.Max(run, math.Min(1, (m-float64(j))*p[i]))
+			run = math.Max(run, math.Min(1, float64((m-float64(j))*p[i])))
 			out[i] = run
 		}
 	case Hochberg, BH, BY:
@@ -102,9 +102,9 @@ func Adjust(p []float64, method Method) ([]float64, error) {
 			rank := float64(j + 1)
 			var v float64
 			if method == Hochberg {
-				v = (m - rank + 1) * p[i]
+				v = float64((m - rank + 1) * p[i])
 			} else {
-				v = factor * m / rank * p[i]
+				v = float64(factor * m / rank * p[i])
 			}
 			run = math.Min(run, math.Min(1, v))
 			out[i] = run

@@ -55,7 +55,7 @@ func Quantile(sorted []float64, p float64) float64 {
 // quantileAt is Quantile over n values given by at; the ranks it reads
 // increase from call to call within SummariseAt, as OrderStatistics needs.
 func quantileAt(n int, p float64, at func(int) float64) float64 {
-	h := float64(n-1) * p
+	h := float64(float64(n-1) * p)
 	lo := int(h)
 	if lo >= n-1 {
 		return at(n - 1)
@@ -65,5 +65,5 @@ func quantileAt(n int, p float64, at func(int) float64) float64 {
 		return at(lo)
 	}
 	x := at(lo)
-	return x + frac*(at(lo+1)-x)
+	return x + float64(frac*(at(lo+1)-x))
 }

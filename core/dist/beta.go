@@ -21,7 +21,7 @@ func (d Beta) CDF(x float64) float64 {
 		return 1
 	}
 	a, b := d.A, d.B
-	front := exp(lgamma(a+b) - lgamma(a) - lgamma(b) + a*log(x) + b*math.Log1p(-x))
+	front := exp(lgamma(a+b) - lgamma(a) - lgamma(b) + float64(a*log(x)) + float64(b*math.Log1p(-x)))
 	if x < (a+1)/(a+b+2) {
 		return front * betaFraction(a, b, x) / a
 	}
@@ -56,11 +56,11 @@ func betaFraction(a, b, x float64) float64 {
 	h := d
 	for m := 1; m < maxIter; m++ {
 		fm := float64(m)
-		m2 := 2 * fm
+		m2 := float64(2 * fm)
 		var even, odd float64
-		c, d, even = lentz(fm*(b-fm)*x/((qam+m2)*(a+m2)), 1, c, d)
-		c, d, odd = lentz(-(a+fm)*(qab+fm)*x/((a+m2)*(qap+m2)), 1, c, d)
-		h *= even * odd
+		c, d, even = lentz(fm*(b-fm)*x/(float64((qam+m2)*(a+m2))), 1, c, d)
+		c, d, odd = lentz(-(a+fm)*(qab+fm)*x/(float64((a+m2)*(qap+m2))), 1, c, d)
+		h = float64(h * (float64(even * odd)))
 		if math.Abs(odd-1) < epsilon {
 			break
 		}

@@ -25,5 +25,5 @@ func (c ChiSquared) Survival(x float64) float64 {
 // UpperQuantile is the x with P(X ≥ x) = p, for 0 < p < 1: the critical value
 // of a level-p test.
 func (c ChiSquared) UpperQuantile(p float64) float64 {
-	return 2 * upperGammaInverse(c.K/2, p)
+	return float64(2 * upperGammaInverse(c.K/2, p))
 }

@@ -20,8 +20,11 @@ import "math"
 // the standard library's portable algorithms (src/math/exp.go, log.go),
 // used everywhere in this package; they need only +, −, ×, ÷ and exact bit
 // operations (Frexp, Ldexp), which IEEE 754 makes identical on every
-// platform. (Go fuses multiply-add only where the target allows it; the
-// amd64 default GOAMD64=v1 and wasm do not.) math.Log1p, math.Expm1 and
+// platform. (Go fuses a multiply and an add into one instruction where the
+// target has one, as arm64 does, unless the product is converted
+// explicitly: hence float64(x*y) wherever a product feeds a sum, in this
+// package and the rest of the core; make test-arm64 checks the result.)
+// math.Log1p, math.Expm1 and
 // math.Sqrt are safe to use as they are: the first two are portable Go on
 // both targets and call nothing else, and a square root is correctly rounded.
 
@@ -50,12 +53,12 @@ func exp(x float64) float64 {
 	var k int
 	switch {
 	case x < 0:
-		k = int(log2e*x - 0.5)
+		k = int(float64(log2e*x) - 0.5)
 	case x > 0:
-		k = int(log2e*x + 0.5)
+		k = int(float64(log2e*x) + 0.5)
 	}
-	hi := x - float64(k)*ln2Hi
-	lo := float64(k) * ln2Lo
+	hi := x - float64(float64(k)*ln2Hi)
+	lo := float64(float64(k) * ln2Lo)
 	return expmulti(hi, lo, k)
 }
 
@@ -69,9 +72,9 @@ func expmulti(hi, lo float64, k int) float64 {
 		p5 = 4.13813679705723846039e-08  /* 0x3E663769; 0x72BEA4D0 */
 	)
 	r := hi - lo
-	t := r * r
-	c := r - t*(p1+t*(p2+t*(p3+t*(p4+t*p5))))
-	y := 1 - ((lo - (r*c)/(2-c)) - hi)
+	t := float64(r * r)
+	c := r - float64(t*(p1+float64(t*(p2+float64(t*(p3+float64(t*(p4+float64(t*p5)))))))))
+	y := 1 - ((lo - (float64(r*c))/(2-c)) - hi)
 	return math.Ldexp(y, k)
 }
 
@@ -100,18 +103,18 @@ func log(x float64) float64 {
 	// reduce
 	f1, ki := math.Frexp(x)
 	if f1 < math.Sqrt2/2 {
-		f1 *= 2
+		f1 = float64(f1 * (2))
 		ki--
 	}
 	f := f1 - 1
 	k := float64(ki)
 	// compute
 	s := f / (2 + f)
-	s2 := s * s
-	s4 := s2 * s2
-	t1 := s2 * (l1 + s4*(l3+s4*(l5+s4*l7)))
-	t2 := s4 * (l2 + s4*(l4+s4*l6))
+	s2 := float64(s * s)
+	s4 := float64(s2 * s2)
+	t1 := float64(s2 * (l1 + float64(s4*(l3+float64(s4*(l5+float64(s4*l7)))))))
+	t2 := float64(s4 * (l2 + float64(s4*(l4+float64(s4*l6)))))
 	R := t1 + t2
-	hfsq := 0.5 * f * f
-	return k*ln2Hi - ((hfsq - (s*(hfsq+R) + k*ln2Lo)) - f)
+	hfsq := float64(0.5 * f * f)
+	return float64(k*ln2Hi) - ((hfsq - (float64(s*(hfsq+R)) + float64(k*ln2Lo))) - f)
 }

@@ -100,14 +100,14 @@ func erfc(x float64) float64 {
 		if x < Tiny { // |x| < 2**-56
 			temp = x
 		} else {
-			z := x * x
-			r := pp0 + z*(pp1+z*(pp2+z*(pp3+z*pp4)))
-			s := 1 + z*(qq1+z*(qq2+z*(qq3+z*(qq4+z*qq5))))
+			z := float64(x * x)
+			r := pp0 + float64(z*(pp1+float64(z*(pp2+float64(z*(pp3+float64(z*pp4)))))))
+			s := 1 + float64(z*(qq1+float64(z*(qq2+float64(z*(qq3+float64(z*(qq4+float64(z*qq5)))))))))
 			y := r / s
 			if x < 0.25 { // |x| < 1/4
-				temp = x + x*y
+				temp = x + float64(x*y)
 			} else {
-				temp = 0.5 + (x*y + (x - 0.5))
+				temp = 0.5 + (float64(x*y) + (x - 0.5))
 			}
 		}
 		if sign {
@@ -117,8 +117,8 @@ func erfc(x float64) float64 {
 	}
 	if x < 1.25 { // 0.84375 <= |x| < 1.25
 		s := x - 1
-		P := pa0 + s*(pa1+s*(pa2+s*(pa3+s*(pa4+s*(pa5+s*pa6)))))
-		Q := 1 + s*(qa1+s*(qa2+s*(qa3+s*(qa4+s*(qa5+s*qa6)))))
+		P := pa0 + float64(s*(pa1+float64(s*(pa2+float64(s*(pa3+float64(s*(pa4+float64(s*(pa5+float64(s*pa6)))))))))))
+		Q := 1 + float64(s*(qa1+float64(s*(qa2+float64(s*(qa3+float64(s*(qa4+float64(s*(qa5+float64(s*qa6)))))))))))
 		if sign {
 			return 1 + erx + P/Q
 		}
@@ -126,20 +126,20 @@ func erfc(x float64) float64 {
 
 	}
 	if x < 28 { // |x| < 28
-		s := 1 / (x * x)
+		s := 1 / (float64(x * x))
 		var R, S float64
 		if x < 1/0.35 { // |x| < 1 / 0.35 ~ 2.857143
-			R = ra0 + s*(ra1+s*(ra2+s*(ra3+s*(ra4+s*(ra5+s*(ra6+s*ra7))))))
-			S = 1 + s*(sa1+s*(sa2+s*(sa3+s*(sa4+s*(sa5+s*(sa6+s*(sa7+s*sa8)))))))
+			R = ra0 + float64(s*(ra1+float64(s*(ra2+float64(s*(ra3+float64(s*(ra4+float64(s*(ra5+float64(s*(ra6+float64(s*ra7)))))))))))))
+			S = 1 + float64(s*(sa1+float64(s*(sa2+float64(s*(sa3+float64(s*(sa4+float64(s*(sa5+float64(s*(sa6+float64(s*(sa7+float64(s*sa8)))))))))))))))
 		} else { // |x| >= 1 / 0.35 ~ 2.857143
 			if sign && x > 6 {
 				return 2 // x < -6
 			}
-			R = rb0 + s*(rb1+s*(rb2+s*(rb3+s*(rb4+s*(rb5+s*rb6)))))
-			S = 1 + s*(sb1+s*(sb2+s*(sb3+s*(sb4+s*(sb5+s*(sb6+s*sb7))))))
+			R = rb0 + float64(s*(rb1+float64(s*(rb2+float64(s*(rb3+float64(s*(rb4+float64(s*(rb5+float64(s*rb6)))))))))))
+			S = 1 + float64(s*(sb1+float64(s*(sb2+float64(s*(sb3+float64(s*(sb4+float64(s*(sb5+float64(s*(sb6+float64(s*sb7)))))))))))))
 		}
 		z := math.Float64frombits(math.Float64bits(x) & 0xffffffff00000000) // pseudo-single (20-bit) precision x
-		r := exp(-z*z-0.5625) * exp((z-x)*(z+x)+R/S)
+		r := float64(exp(float64(-z*z)-0.5625) * exp(float64((z-x)*(z+x))+R/S))
 		if sign {
 			return 2 - r/x
 		}

@@ -22,14 +22,14 @@ func lgamma(a float64) float64 {
 	if a < 15 {
 		prod := 1.0
 		for ; a < 15; a++ {
-			prod *= a
+			prod = float64(prod * (a))
 		}
 		shift = log(prod)
 	}
 	inv := 1 / a
-	inv2 := inv * inv
-	series := inv * (1.0/12 + inv2*(-1.0/360+inv2*(1.0/1260+inv2*(-1.0/1680+inv2*(1.0/1188+inv2*(-691.0/360360))))))
-	return (a-0.5)*log(a) - a + halfLog2Pi + series - shift
+	inv2 := float64(inv * inv)
+	series := float64(inv * (1.0/12 + float64(inv2*(-1.0/360+float64(inv2*(1.0/1260+float64(inv2*(-1.0/1680+float64(inv2*(1.0/1188+float64(inv2*(-691.0/360360))))))))))))
+	return float64((a-0.5)*log(a)) - a + halfLog2Pi + series - shift
 }
 
 // upperGamma is the regularised upper incomplete gamma function
@@ -45,18 +45,18 @@ func upperGamma(a, x float64) float64 {
 	if x <= 0 {
 		return 1
 	}
-	prefactor := exp(-x + a*log(x) - lgamma(a))
+	prefactor := exp(-x + float64(a*log(x)) - lgamma(a))
 	if x < a+1 {
 		term := 1 / a
 		sum := term
 		for n := 1; n < maxIter; n++ {
-			term *= x / (a + float64(n))
+			term = float64(term * (x / (a + float64(n))))
 			sum += term
-			if term < sum*epsilon {
+			if term < float64(sum*epsilon) {
 				break
 			}
 		}
-		return 1 - prefactor*sum
+		return 1 - float64(prefactor*sum)
 	}
 	b := x + 1 - a
 	c := 1 / tiny
@@ -65,13 +65,13 @@ func upperGamma(a, x float64) float64 {
 	for i := 1; i < maxIter; i++ {
 		b += 2
 		var delta float64
-		c, d, delta = lentz(-float64(i)*(float64(i)-a), b, c, d)
-		h *= delta
+		c, d, delta = lentz(float64(-float64(i)*(float64(i)-a)), b, c, d)
+		h = float64(h * (delta))
 		if math.Abs(delta-1) < epsilon {
 			break
 		}
 	}
-	return prefactor * h
+	return float64(prefactor * h)
 }
 
 // lentz takes one step of the modified Lentz evaluation of a continued
@@ -79,7 +79,7 @@ func upperGamma(a, x float64) float64 {
 // term aₙ/bₙ and the running c and d, it returns the new c and d and the
 // factor c·d by which the value so far is multiplied.
 func lentz(an, bn, c, d float64) (float64, float64, float64) {
-	d = bn + an*d
+	d = bn + float64(an*d)
 	if math.Abs(d) < tiny {
 		d = tiny
 	}
@@ -88,22 +88,22 @@ func lentz(an, bn, c, d float64) (float64, float64, float64) {
 		c = tiny
 	}
 	d = 1 / d
-	return c, d, c * d
+	return c, d, float64(c * d)
 }
 
 // gammaDensity is the density of the Gamma(a, 1) law at x > 0,
 // x^(a−1) e^(−x)/Γ(a).
 func gammaDensity(a, x float64) float64 {
-	return exp(-x + (a-1)*log(x) - lgamma(a))
+	return exp(-x + float64((a-1)*log(x)) - lgamma(a))
 }
 
 // upperGammaInverse solves Q(a, x) = q for x, 0 < q < 1, by Newton's method
 // on ln Q (whose derivative is −density/Q), kept inside a bracket that
 // bisection narrows whenever a Newton step would leave it.
 func upperGammaInverse(a, q float64) float64 {
-	lo, hi := 0.0, math.Max(1, 2*a)
+	lo, hi := 0.0, math.Max(1, float64(2*a))
 	for upperGamma(a, hi) > q {
-		lo, hi = hi, 2*hi
+		lo, hi = hi, float64(2*hi)
 	}
 	target := log(q)
 	x := (lo + hi) / 2
@@ -118,7 +118,7 @@ func upperGammaInverse(a, q float64) float64 {
 		if !(next > lo && next < hi) {
 			next = (lo + hi) / 2
 		}
-		if math.Abs(next-x) <= 4*epsilon*x || hi-lo <= 4*epsilon*hi {
+		if math.Abs(next-x) <= float64(4*epsilon*x) || hi-lo <= float64(4*epsilon*hi) {
 			return next
 		}
 		x = next

@@ -37,15 +37,15 @@ func (d StudentizedRange) Survival(q float64) float64 {
 	}
 	nu := d.DF
 	// log of the normalising constant of g: ν^(ν/2) / (Γ(ν/2) 2^(ν/2−1))
-	logC := nu/2*log(nu) - lgamma(nu/2) - (nu/2-1)*log(2)
+	logC := float64(nu/2*log(nu)) - lgamma(nu/2) - float64((nu/2-1)*log(2))
 	// s lives around 1 with spread about 1/√(2ν); the tail for large q comes
 	// from small s, so the rule starts at 0 and reaches far above the peak.
-	hi := 1 + 12/math.Sqrt(2*nu)
+	hi := 1 + 12/math.Sqrt(float64(2*nu))
 	g := func(s float64) float64 {
 		if s <= 0 {
 			return 0
 		}
-		return exp(logC+(nu-1)*log(s)-nu*s*s/2) * rangeSurvivalInf(d.K, q*s)
+		return float64(exp(logC+float64((nu-1)*log(s))-nu*s*s/2) * rangeSurvivalInf(d.K, float64(q*s)))
 	}
 	return min(1, gaussLegendre(g, 0, hi, 24))
 }
@@ -67,8 +67,8 @@ func rangeSurvivalInf(k, q float64) float64 {
 			logA = log(a)
 		}
 		b := NormalUpper(q - z) // Φ(z − q)
-		bracket := -exp(m*logA) * math.Expm1(m*math.Log1p(-b/a))
-		return k * exp(-z*z/2-halfLog2Pi) * bracket
+		bracket := float64(-exp(float64(m*logA)) * math.Expm1(float64(m*math.Log1p(-b/a))))
+		return float64(k * exp(-z*z/2-halfLog2Pi) * bracket)
 	}
 	// the integrand lives between about −8 and q + 8; panels of width 1
 	panels := int(math.Ceil(q + 16))
@@ -81,13 +81,13 @@ func gaussLegendre(f func(float64) float64, a, b float64, panels int) float64 {
 	h := (b - a) / float64(panels)
 	sum := 0.0
 	for p := range panels {
-		mid := a + (float64(p)+0.5)*h
+		mid := a + float64((float64(p)+0.5)*h)
 		half := h / 2
 		part := 0.0
 		for i, x := range glNodes {
-			part += glWeights[i] * (f(mid-half*x) + f(mid+half*x))
+			part += float64(glWeights[i] * (f(mid-float64(half*x)) + f(mid+float64(half*x))))
 		}
-		sum += part * half
+		sum += float64(part * half)
 	}
 	return sum
 }

@@ -155,7 +155,7 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 						st.s2[i] = st.sum[i] + int64(mv.d[i])*b.Score
 					}
 					s.arrange(st.c2, st.s2)
-					mv.to.add(mv.to.index(st.s2), p*mv.w)
+					mv.to.add(mv.to.index(st.s2), float64(p*mv.w))
 				})
 				if err != nil {
 					return err

@@ -74,7 +74,7 @@ func (d *Distribution) Upper(t int64) float64 {
 func (d *Distribution) Critical(alpha float64) (t int64, attained float64, ok bool) {
 	tail := 0.0
 	for j := len(d.Prob) - 1; j >= 0; j-- {
-		if tail+d.Prob[j] > alpha*(1+1e-12) {
+		if tail+d.Prob[j] > float64(alpha*(1+1e-12)) {
 			break
 		}
 		tail += d.Prob[j]

@@ -47,7 +47,7 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
 		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
 	default:
-		if est := EstimateStates(s.sizes, s.blocks); est > 20*float64(lim.MaxStates) {
+		if est := EstimateStates(s.sizes, s.blocks); est > float64(20*float64(lim.MaxStates)) {
 			return fig, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
 		}
 	}
@@ -135,7 +135,7 @@ func (s *space) prepare(blocks []Block) error {
 	for i, n := range s.sizes {
 		s.weight[i] = l / int64(n)
 		top := float64(s.prefix[s.n] - s.prefix[s.n-n])
-		maxT += float64(s.weight[i]) * top * top
+		maxT += float64(float64(s.weight[i]) * top * top)
 		s.countBits[i] = uint(bits.Len(uint(n)))
 	}
 	if maxT >= 1<<62 {
@@ -321,7 +321,7 @@ func (s *space) reachable(counts []int, t, levels int) float64 {
 	}
 	states := 1.0
 	for i := range k - 1 {
-		states *= min(float64(s.hi[i]-s.lo[i]+1), compositions(counts[i], levels))
+		states = float64(states * (min(float64(s.hi[i]-s.lo[i]+1), compositions(counts[i], levels))))
 	}
 	return min(states, tooMany)
 }
@@ -369,7 +369,7 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 				hi := prefix[t] - prefix[t-c]
 				pairs += min(float64(hi-lo)+1, compositions(c, levels+1)) // the sums a count can have (see reachable)
 			}
-			est *= pairs
+			est = float64(est * (pairs))
 		}
 		// arrangements within classes, and the constraint on the counts
 		for i, run := 0, 1; i < k-1; i++ {

@@ -75,7 +75,7 @@ func (s *space) screen(lim Limits) error {
 		}
 		v, next = next, v
 		if i > 0 && s.class[i] != i {
-			merged *= float64(i - s.class[i] + 1)
+			merged = float64(merged * (float64(i - s.class[i] + 1)))
 		}
 	}
 	var peak, largest, total, before, deals float64
@@ -85,7 +85,7 @@ func (s *space) screen(lim Limits) error {
 		before = layer
 		deals += v[t] // each count vector is reached by a deal of its own, before canonical order merges it
 	}
-	if cost := float64(dealCost * k); lim.MaxWork > 0 && deals*cost > float64(lim.MaxWork) {
+	if cost := float64(dealCost * k); lim.MaxWork > 0 && float64(deals*cost) > float64(lim.MaxWork) {
 		return &TooLargeError{fmt.Sprintf("at least %.2g deals of tie blocks, more than %.0f", deals, float64(lim.MaxWork)/cost)}
 	}
 	room := float64(1 + s.bucketRoom) // a bucket of arrays: at least a cell, and its own room
@@ -96,8 +96,8 @@ func (s *space) screen(lim Limits) error {
 	if total > walk {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in all, more than %.0f", total, walk)}
 	}
-	arrays := peak*room <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
-	tables := largest*(1+hashBucket) <= 2*float64(lim.MaxStates) && (lim.MaxWork == 0 || total*hashCost <= float64(lim.MaxWork))
+	arrays := float64(peak*room) <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
+	tables := float64(largest*(1+hashBucket)) <= float64(2*float64(lim.MaxStates)) && (lim.MaxWork == 0 || float64(total*hashCost) <= float64(lim.MaxWork))
 	if !arrays && !tables {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
 	}

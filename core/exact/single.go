@@ -152,7 +152,7 @@ func (s *space) receive(st *scratch, score int64, cells []float64, from, rest in
 			case r <= q: // j is the last group
 				v, dv = sums[q+1], slope[q+1]
 			}
-			addAlong(rc.p, rc.off, row, dRow, v, dv, cells[x:x+end], float64(m)*rc.w)
+			addAlong(rc.p, rc.off, row, dRow, v, dv, cells[x:x+end], float64(float64(m)*rc.w))
 		}
 	}
 }
@@ -183,13 +183,13 @@ func addAlong(dst []float64, off []int, row, dRow int, v, dv int64, cells []floa
 			// once the stretch's cells all lie in dst
 			to := dst[at : at+len(cells)]
 			for i, p := range cells {
-				to[i] += p * w
+				to[i] += float64(p * w)
 			}
 			return
 		}
 		for _, p := range cells {
 			if p != 0 {
-				dst[at] += p * w
+				dst[at] += float64(p * w)
 			}
 			at += step
 		}
@@ -197,7 +197,7 @@ func addAlong(dst []float64, off []int, row, dRow int, v, dv int64, cells []floa
 	}
 	for _, p := range cells {
 		if p != 0 {
-			dst[off[row]+int(v)] += p * w
+			dst[off[row]+int(v)] += float64(p * w)
 		}
 		row, v = row+dRow, v+dv
 	}

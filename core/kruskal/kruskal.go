@@ -44,11 +44,11 @@ func Compute(sizes []int, rankSums []float64, tieSum float64) Test {
 	var ss float64
 	for i, s := range sizes {
 		d := rankSums[i]/float64(s) - centre
-		ss += float64(s) * d * d
+		ss += float64(float64(s) * d * d)
 	}
 	t := Test{N: n, K: len(sizes), DF: len(sizes) - 1}
-	t.HUncorrected = 12 / (fn * (fn + 1)) * ss
-	t.TieCorrection = 1 - tieSum/(fn*fn*fn-fn)
+	t.HUncorrected = float64(12 / (float64(fn * (fn + 1))) * ss)
+	t.TieCorrection = 1 - tieSum/(float64(fn*fn*fn)-fn)
 	t.H = t.HUncorrected / t.TieCorrection
 	// the upper tail itself, never 1 − CDF, so tiny p keep their digits
 	t.P = dist.ChiSquared{K: float64(t.DF)}.Survival(t.H)

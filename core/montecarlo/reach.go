@@ -42,7 +42,7 @@ func newReach(sizes []int, observedSums []int64, total int64) (*reach, error) {
 		return nil, fmt.Errorf("montecarlo: scores add up to %d, beyond the %d that the comparison holds exactly", total, int64(maxExactSum))
 	}
 	k := len(sizes)
-	r := &reach{inv: make([]float64, k), factor: make([]*big.Int, k), band: 4 * float64(k+3) * 0x1p-53}
+	r := &reach{inv: make([]float64, k), factor: make([]*big.Int, k), band: float64(4 * float64(k+3) * 0x1p-53)}
 	l := big.NewInt(1)
 	var g big.Int
 	for i, n := range sizes {
@@ -63,7 +63,7 @@ func (r *reach) approx(sums []int64) float64 {
 	x := 0.0
 	for i, s := range sums {
 		f := float64(s)
-		x += f * f * r.inv[i]
+		x += float64(f * f * r.inv[i])
 	}
 	return x
 }
@@ -84,7 +84,7 @@ func (r *reach) exactValue(sums []int64, v *big.Int) *big.Int {
 // observed X.
 func (r *reach) reaches(sums []int64) bool {
 	x := r.approx(sums)
-	margin := r.band * math.Max(x, r.observed)
+	margin := float64(r.band * math.Max(x, r.observed))
 	switch {
 	case x-r.observed > margin:
 		return true

@@ -81,14 +81,14 @@ func effects(a, b tally, confidence float64) Effect {
 			j++
 		}
 		w := float64(a.w[i])
-		greater += w * float64(b.n-b.above[j])
+		greater += float64(w * float64(b.n-b.above[j]))
 		if j < len(b.v) && b.v[j] == x {
-			equal += w * float64(b.w[j])
+			equal += float64(w * float64(b.w[j]))
 		}
 	}
-	m := float64(a.n) * float64(b.n)
+	m := float64(float64(a.n) * float64(b.n))
 	e := Effect{ProbSuperiority: (greater + equal/2) / m}
-	e.CliffsDelta = 2*e.ProbSuperiority - 1
+	e.CliffsDelta = float64(2*e.ProbSuperiority) - 1
 	total := a.n * b.n
 	if total%2 == 1 {
 		e.Shift = kthDifference(a, b, total/2+1)
@@ -97,7 +97,7 @@ func effects(a, b tally, confidence float64) Effect {
 		e.Shift = (below + nextDifference(a, b, below, total/2)) / 2
 	}
 	z := dist.NormalQuantileUpper((1 - confidence) / 2)
-	c := int(math.Floor(m/2 - z*math.Sqrt(m*float64(a.n+b.n+1)/12)))
+	c := int(math.Floor(m/2 - float64(z*math.Sqrt(m*float64(a.n+b.n+1)/12))))
 	c = min(max(c, 1), total)
 	e.ShiftLow = kthDifference(a, b, c)
 	e.ShiftHigh = kthDifference(a, b, total+1-c)
@@ -129,7 +129,7 @@ func kthDifference(a, b tally, k int) float64 {
 		// differences are spread smoothly) with a bisection (sure progress)
 		mid := lo + (hi-lo)/2
 		if step%2 == 0 {
-			mid = lo + (hi-lo)*(float64(k-cLo)/float64(cHi-cLo))
+			mid = lo + float64((hi-lo)*(float64(k-cLo)/float64(cHi-cLo)))
 		}
 		if !(mid > lo && mid < hi) {
 			mid = lo + (hi-lo)/2

@@ -133,7 +133,7 @@ func compare(ctx context.Context, method Method, r rank.Ranking, h, confidence f
 func dunn(r rank.Ranking, a, b int) (float64, float64) {
 	n := float64(len(r.Sorted))
 	na, nb := float64(r.Sizes[a]), float64(r.Sizes[b])
-	v := (n*(n+1)/12 - r.TieSum/(12*(n-1))) * (1/na + 1/nb)
+	v := float64((n*(n+1)/12 - r.TieSum/(float64(12*(n-1)))) * (1/na + 1/nb))
 	z := (r.RankSums[a]/na - r.RankSums[b]/nb) / math.Sqrt(v)
 	return z, dist.NormalTwoSided(z)
 }
@@ -154,7 +154,7 @@ func conover(r rank.Ranking, h float64, a, b int) (float64, float64) {
 	k := float64(len(r.Sizes))
 	na, nb := float64(r.Sizes[a]), float64(r.Sizes[b])
 	s2 := (sumSquaredRanks(r) - n*(n+1)*(n+1)/4) / (n - 1)
-	v := s2 * (n - 1 - h) / (n - k) * (1/na + 1/nb)
+	v := float64(s2 * (n - 1 - h) / (n - k) * (1/na + 1/nb))
 	d := r.RankSums[a]/na - r.RankSums[b]/nb
 	if !(v > 0) || n <= k {
 		if d == 0 {
@@ -171,7 +171,7 @@ func sumSquaredRanks(r rank.Ranking) float64 {
 	sum := 0.0
 	for i, j := range r.Blocks() {
 		mid := rank.Midrank(i, j)
-		sum += float64(j-i) * mid * mid
+		sum += float64(float64(j-i) * mid * mid)
 	}
 	return sum
 }
@@ -192,9 +192,9 @@ func pairRanking(r rank.Ranking, a, b int) (w float64, na, nb int, tieSum float6
 			}
 		}
 		if t := inA + inB; t > 0 {
-			w += float64(inA) * rank.Midrank(pos, pos+t)
+			w += float64(float64(inA) * rank.Midrank(pos, pos+t))
 			ft := float64(t)
-			tieSum += ft*ft*ft - ft
+			tieSum += float64(ft*ft*ft) - ft
 			pos += t
 			na += inA
 			nb += inB
@@ -218,7 +218,7 @@ func dscf(r rank.Ranking, a, b int) (float64, float64) {
 	w, na, nb, ties := pairRanking(r, a, b)
 	n := float64(na + nb)
 	fa, fb := float64(na), float64(nb)
-	v := fa * fb / 12 * (n + 1 - ties/(n*(n-1)))
+	v := float64(fa * fb / 12 * (n + 1 - ties/(float64(n*(n-1)))))
 	if !(v > 0) {
 		return 0, 1
 	}
@@ -259,7 +259,7 @@ func mannWhitney(ctx context.Context, r rank.Ranking, a, b int) (u, p float64, i
 		sb := int64((na+nb)*(na+nb-1)/2) - sa
 		return u, d.Upper(exact.Statistic([]int{na, nb}, []int64{sa, sb})), true, nil
 	}
-	sigma := math.Sqrt(fa * fb / 12 * (n + 1 - ties/(n*(n-1))))
+	sigma := math.Sqrt(float64(fa * fb / 12 * (n + 1 - ties/(float64(n*(n-1))))))
 	d := u - fa*fb/2
 	if sigma == 0 {
 		return u, 1, false, nil

@@ -53,7 +53,7 @@ func Rank(values []float64, groups []int32, k int) Ranking {
 		if t := j - i; t > 1 {
 			r.Ties = append(r.Ties, Tie{Value: r.Sorted[i], Count: t})
 			ft := float64(t)
-			r.TieSum += ft*ft*ft - ft
+			r.TieSum += float64(ft*ft*ft) - ft
 		}
 	}
 	return r

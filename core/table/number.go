@@ -99,7 +99,7 @@ func parseCell(s []byte, comma bool) (v float64, kind cellKind, usedComma bool) 
 	f := float64(mant)
 	switch {
 	case e > 0:
-		f *= pow10[e]
+		f = float64(f * (pow10[e]))
 	case e < 0:
 		f /= pow10[-e]
 	}

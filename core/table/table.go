@@ -116,7 +116,7 @@ func estimateLines(data []byte) int {
 		return bytes.Count(data, []byte{'\n'}) + 1
 	}
 	n := bytes.Count(data[:sample], []byte{'\n'}) + 1
-	return int(float64(n)*float64(len(data))/sample*1.05) + 16
+	return int(float64(float64(n)*float64(len(data))/sample*1.05)) + 16
 }
 
 func (t *Table) reserve(n int) {
