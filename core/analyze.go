@@ -348,7 +348,7 @@ func warnings(r *Result) []string {
 	if r.PValue == 0 {
 		w = append(w, "The p-value is below the smallest positive number a computer can hold (about 1e-308), so it is reported as 0; the true value is positive but vanishingly small.")
 	}
-	if share := 1 - r.TieCorrection; share > 0.1 {
+	if r.TieCorrection < HeavyTies {
 		w = append(w, fmt.Sprintf("Ties are heavy (tie correction %s): many values are shared, as on rating scales; the correction is applied.", report.Number(r.TieCorrection)))
 	}
 	return w

@@ -29,8 +29,10 @@ const (
 	// under a second in the module. Beyond it the samples are large, and
 	// chi-square is chosen.
 	AutoMonteCarloDraws = 50_000_000
-	// HeavyTies is the tie correction below which the automatic choice does
-	// not trust the chi-square approximation even for groups of 5 or more.
+	// HeavyTies is the tie correction below which ties are heavy: the
+	// automatic choice does not trust the chi-square approximation then,
+	// even for groups of 5 or more, and the answer warns of them. 0.95 is
+	// this project's own line (a correction of 5% in H), not an outside value.
 	HeavyTies = 0.95
 )
 
