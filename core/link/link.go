@@ -23,9 +23,9 @@ const Prefix = "#r1."
 
 // Limits of decoding. A browser keeps addresses of at most about 2 MB
 // (Chromium's limit), so a longer link could not have arrived whole; and a
-// link carries a table for a colleague, not a data warehouse: 16 MB of
-// request unpack in about 50 ms natively, a fraction of a second in the
-// page, so that a DEFLATE bomb (up to 1032:1) is refused at once.
+// link carries a table for a colleague, not a data warehouse: a DEFLATE bomb
+// (up to 1032:1) is refused once 16 MB are unpacked, 0.03 to 0.3 s on this
+// project's machine, natively and in the module.
 const (
 	MaxLink = 2 << 20  // characters of a fragment
 	MaxJSON = 16 << 20 // bytes of the request it expands to
