@@ -203,16 +203,20 @@ function showHeldAsText() {
 // on this computer only, so that a reload loses nothing.
 const KEPT = "midrank.workspace.v1";
 
-// RUNNING is set while an analysis runs: found on a reload, it means that
-// the page stopped during the last analysis (out of memory, a closed tab),
-// so the kept text is not analysed again by itself.
+// RUNNING is set while an analysis runs: found on a load, it means that the
+// page died during the last analysis (out of memory, a crashed tab), so the
+// kept text is not analysed again by itself.
 const RUNNING = "midrank.running.v1";
+// a reload or a closed tab is not a stop: only a page that dies keeps the flag
+addEventListener("pagehide", () => remember(RUNNING, null));
+
+const keptText = $("kept-text").textContent; // what the note says while keeping works
 
 function keep() {
-  if (!remember(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }))) {
-    $("kept-note").textContent = "This browser's storage is full or switched off, so what you type here is not kept: a reload would lose it. Save your text as a file if you need it later.";
-    $("kept-note").classList.add("warning");
-  }
+  const kept = remember(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits, undoable: undoable.slice(-UNDO_KEPT) }));
+  $("kept-text").textContent = kept ? keptText
+    : "This browser's storage is full or switched off, so what you type here is not kept: a reload would lose it. Save your text as a file if you need it later.";
+  $("kept-note").classList.toggle("warning", !kept);
 }
 
 // remember sets (or, with null, removes) an item of this browser's storage;
@@ -374,9 +378,21 @@ addEventListener("hashchange", () => {
   if (started && LINK_FRAGMENT.test(location.hash)) followLink();
 });
 
+// setStale marks the results on screen as not from the text and settings
+// now on the page (or clears the mark): greyed out, with a note, and nothing
+// in them can be copied, downloaded or linked until a new analysis answers.
+function setStale(stale) {
+  const results = $("results");
+  stale = stale && !results.hidden;
+  results.classList.toggle("stale", stale);
+  $("stale-note").hidden = !stale;
+  for (const el of results.children) if (el.id !== "stale-note") el.inert = stale;
+}
+
 async function analyse() {
   const began = performance.now();
   const options = formOptions();
+  setStale(true);
   keep();
   $("status").textContent = "Analysing…";
   $("link-box").hidden = true;
@@ -396,6 +412,7 @@ async function analyse() {
   if (body.error) {
     // results of another text (or of none) must not stay on screen
     result = null;
+    setStale(false);
     $("results").hidden = true;
     showProblem(body.error);
     return;
@@ -404,6 +421,7 @@ async function analyse() {
   result = body;
   const answered = performance.now();
   render();
+  setStale(false);
   // how long the last analysis took, for the browser tests' notes
   document.documentElement.dataset.analysisMs = Math.round(answered - began) + "+" + Math.round(performance.now() - answered);
   $("status").textContent = "Done: " + result.n + " values in " + result.k + " groups.";
@@ -842,17 +860,20 @@ $("held-clear").addEventListener("click", () => { setText(""); keep(); $("data")
 // Small inputs are analysed again as you type, once typing pauses.
 const LIVE_LIMIT = 20000; // characters
 let typingTimer = 0;
-$("data").addEventListener("input", () => {
+
+// reanalyseSoon marks the results out of date and, for texts small enough to
+// analyse as one types, analyses again after a pause (not with Monte Carlo
+// chosen, whose long runs wait for Analyse).
+function reanalyseSoon(pause) {
+  setStale(true);
   clearTimeout(typingTimer);
   if (dataText().length <= LIVE_LIMIT && $("pvalue").value !== "monte-carlo") {
-    typingTimer = setTimeout(analyse, 400);
+    typingTimer = setTimeout(analyse, pause);
   }
-});
-for (const f of fields) $(f).addEventListener("change", keep);
-// a new way of reading the text shows its preview (and results) at once
-for (const f of ["layout", "separator", "decimal"]) {
-  $(f).addEventListener("change", () => { if (dataText().length <= LIVE_LIMIT) analyse(); });
 }
+$("data").addEventListener("input", () => reanalyseSoon(400));
+// a changed setting counts at once; a new way of reading the text also shows its preview
+for (const f of fields) $(f).addEventListener("change", () => { keep(); reanalyseSoon(0); });
 $("forget").addEventListener("click", () => {
   localStorage.removeItem(KEPT);
   $("status").textContent = "Nothing is kept in this browser any more; the text on the page stays until you leave it.";

@@ -460,7 +460,12 @@ func TestPage(t *testing.T) {
 	t.Run("a share link reopens the analysis", func(t *testing.T) {
 		data := "Team A,Team B,Team C\n4,5,2\n3,5,1\n4,4,2\n5,5,3\n"
 		b.analyse(t, data)
-		if err := chromedp.Do(b.ctx, chromedp.SetValue("#alpha", "0.1"), chromedp.Click("#make-link")); err != nil {
+		// a changed setting is analysed again before a link can be made
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`{ const a = document.getElementById("alpha"); a.value = "0.1"; a.dispatchEvent(new Event("change")); } true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && !document.getElementById("results").classList.contains("stale")`)
+		if err := chromedp.Do(b.ctx, chromedp.Click("#make-link")); err != nil {
 			t.Fatal(err)
 		}
 		b.waitFor(t, `document.getElementById("link-text").value.includes("#r1.")`)
@@ -690,7 +695,9 @@ func TestPage(t *testing.T) {
 	t.Run("after a page that stopped mid-analysis, the kept text waits for Analyse", func(t *testing.T) {
 		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
 		b.analyse(t, typed)
-		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`localStorage.setItem("midrank.running.v1", "1"); true`)); err != nil {
+		// as if the page died during an analysis: the flag outlives the unload
+		// (this listener runs after the page's own, which clears it)
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`addEventListener("pagehide", () => localStorage.setItem("midrank.running.v1", "1")); true`)); err != nil {
 			t.Fatal(err)
 		}
 		if err := chromedp.Do(b.ctx, chromedp.Reload()); err != nil {
@@ -716,6 +723,36 @@ func TestPage(t *testing.T) {
 			t.Errorf("kept note %q, status %q", got, b.text(t, "#status"))
 		}
 		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`Storage.prototype.setItem = realSet; true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, "A,B,C\n1,2,3\n4,5,6\n7,8,10\n")
+		if got := b.text(t, "#kept-note"); !strings.Contains(got, "is kept in this browser") {
+			t.Errorf("with storage working again the note says %q", got)
+		}
+	})
+
+	t.Run("results of a changed text are marked until the new analysis answers", func(t *testing.T) {
+		b.analyse(t, "North,South,East\n3,8,2\n5,6,1\n4,9,3\n")
+		// Monte Carlo is not rerun as one types, so the change stays unanalysed
+		change := `{ const p = document.getElementById("pvalue"); p.value = "monte-carlo"; p.dispatchEvent(new Event("change"));
+			const d = document.getElementById("data"); d.value = "North,South,East\n1,8,2\n5,6,1\n4,9,3\n"; d.dispatchEvent(new Event("input")); } true`
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](change)); err != nil {
+			t.Fatal(err)
+		}
+		stale := `document.getElementById("results").classList.contains("stale") && !document.getElementById("stale-note").hidden &&
+			document.getElementById("save-html").closest("[inert]") !== null && document.getElementById("copy-decision").closest("[inert]") !== null`
+		if ok, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](stale)); err != nil || !ok {
+			t.Errorf("after a change the results are not marked out of date (%v)", err)
+		}
+		b.screenshot(t, "midrank-stale.png")
+		if err := chromedp.Do(b.ctx, chromedp.Click("#analyse")); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && !document.getElementById("results").classList.contains("stale")`)
+		if ok, _ := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.querySelector("#results [inert]") === null`)); !ok {
+			t.Error("the new results are still inert")
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`{ const p = document.getElementById("pvalue"); p.value = "auto"; p.dispatchEvent(new Event("change")); } true`)); err != nil {
 			t.Fatal(err)
 		}
 	})
