@@ -5,9 +5,11 @@
 package browsertest
 
 import (
+	"bytes"
 	"context"
 	"crypto/rand"
 	"fmt"
+	"github.com/chromedp/cdproto/page"
 	"net/http/httptest"
 	"os"
 	"os/exec"
@@ -319,6 +321,25 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("screenshot", func(t *testing.T) { b.screenshot(t, "midrank-results.png") })
+
+	t.Run("prints the results on several A4 pages", func(t *testing.T) {
+		printPDF := func(ctx context.Context, target *chromedp.Target) ([]byte, error) {
+			res, err := cdp.Call(ctx, target, page.PrintToPDF, page.PrintToPDFParams{PaperWidth: 8.27, PaperHeight: 11.69}) // A4, in inches
+			return res.Data, err
+		}
+		pdf, err := chromedp.Run(b.ctx, printPDF)
+		if err != nil {
+			t.Fatal(err)
+		}
+		path := filepath.Join(os.TempDir(), "midrank-results.pdf")
+		if err := os.WriteFile(path, pdf, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		if pages := bytes.Count(pdf, []byte("/Type /Page\n")) + bytes.Count(pdf, []byte("/Type /Page ")) + bytes.Count(pdf, []byte("/Type /Page>")); pages < 2 {
+			t.Errorf("the printed results have %d pages (%s)", pages, path)
+		}
+		t.Logf("printed results for review: %s", path)
+	})
 
 	t.Run("a pasted case shows the command line's H", func(t *testing.T) {
 		data, err := os.ReadFile("../../testdata/cases/plantgrowth_long.csv")
