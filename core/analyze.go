@@ -189,8 +189,14 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	test := kruskal.Compute(sizes, ranking.RankSums, ranking.TieSum)
 	r.H, r.HUncorrected, r.TieCorrection, r.DF = test.H, test.HUncorrected, test.TieCorrection, test.DF
 	r.PAsymptotic = test.P
-	if err := r.choosePValue(ctx, s, ranking, progress); err != nil {
+	pv, err := pvalueOf(ctx, s, ranking, test.P, test.TieCorrection, progress)
+	if err != nil {
 		return nil, err
+	}
+	r.PMethod, r.PValue, r.PMethodReason = string(pv.method), pv.p, pv.reason
+	r.PExact, r.ExactCriticalValue, r.ExactAttainedAlpha, r.MonteCarlo = pv.exact, pv.critical, pv.attained, pv.monteCarlo
+	if pv.monteCarlo != nil {
+		r.PMonteCarlo = &pv.p
 	}
 	r.CriticalValue = kruskal.CriticalValue(s.alpha, test.DF)
 	r.Significant = report.Significant(r.PValue, s.alpha)

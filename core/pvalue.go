@@ -3,8 +3,6 @@ package core
 import (
 	"context"
 	"errors"
-	"fmt"
-	"strings"
 
 	"midrank/core/exact"
 	"midrank/core/montecarlo"
@@ -100,11 +98,12 @@ func (p *permutationProblem) h(t int64, c float64) float64 {
 	return (float64(12/(float64(n*(n+1)))*ss) - float64(3*(n+1))) / c
 }
 
-// choosePValue fills in the p-value by the requested method, running the
-// exact or Monte Carlo computation where needed.
-func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Ranking, progress Progress) error {
+// pvalueOf finds the p-value by the requested method, running the exact or
+// Monte Carlo computation where needed; c is the tie correction.
+func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic, c float64, progress Progress) (pvalue, error) {
+	choice := report.Choice{Method: string(s.pvalue), Automatic: s.pvalue == PValueAuto, Sizes: ranking.Sizes,
+		Resamples: s.resamples, Seed: s.seed}
 	method := s.pvalue
-	var reasons []string
 	if method == PValueAuto || method == PValueExact {
 		limit := exact.Limits{MaxCells: ExactCells, MaxStates: ExactStates}
 		if method == PValueAuto {
@@ -113,90 +112,78 @@ func (r *Result) choosePValue(ctx context.Context, s settings, ranking rank.Rank
 		// the screen needs only the sizes and the tie blocks: large samples
 		// are refused before their scores are worked out
 		err := exact.Screen(ranking.Sizes, blockCounts(ranking), limit)
+		var pv pvalue
 		if err == nil {
-			err = r.exactPValue(ctx, newProblem(ranking), s.alpha, limit, progress)
+			pv, err = exactPValue(ctx, newProblem(ranking), s.alpha, c, limit, progress)
 		}
 		switch {
 		case err == nil:
-			r.PMethod = string(PValueExact)
-			r.PMethodReason = fmt.Sprintf("Exact: every one of the %s equally likely ways to deal these ranks into groups of %s was accounted for.",
-				dealCount(ranking.Sizes), sizesText(ranking.Sizes))
-			if method == PValueAuto {
-				r.PMethodReason = "Chosen automatically. " + r.PMethodReason
-			}
-			return nil
+			choice.Method = string(PValueExact)
+			pv.method, pv.reason = PValueExact, report.MethodReason(choice)
+			return pv, nil
 		case !errors.Is(err, exact.ErrTooLarge):
-			return err
+			return pvalue{}, err
 		case method == PValueExact:
-			return &OptionError{Option: "pvalue", Value: "exact",
-				Reason: fmt.Sprintf("the exact distribution for groups of %s is beyond the budget of this tool (%v); use monte-carlo, or auto", sizesText(ranking.Sizes), err)}
+			return pvalue{}, &OptionError{Option: "pvalue", Value: string(PValueExact), Reason: report.ExactRefused(ranking.Sizes, err)}
 		}
-		reasons = append(reasons, "the exact distribution is too large to compute here")
+		choice.ExactTooLarge = true
 		method = PValueAsymptotic
-		if smallest(ranking.Sizes) < report.SmallGroup || r.TieCorrection < HeavyTies {
+		if smallest(ranking.Sizes) < report.SmallGroup || c < HeavyTies {
 			if draws := float64(float64(len(ranking.Sorted)) * float64(s.resamples)); draws <= AutoMonteCarloDraws {
 				method = PValueMonteCarlo
 			} else {
-				reasons = append(reasons, fmt.Sprintf("Monte Carlo with %d resamples of %d values would take too long for an automatic choice (ask for monte-carlo to run it)", s.resamples, len(ranking.Sorted)))
+				choice.MonteCarloTooLong = true
 			}
 		}
 	}
-	switch method {
-	case PValueAsymptotic:
-		r.PMethod = string(PValueAsymptotic)
-		r.PValue = r.PAsymptotic
-		if len(reasons) == 0 {
-			r.PMethodReason = "Chi-square approximation, as requested."
-		} else if len(reasons) == 1 {
-			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and every group has at least %d values with few ties, where the approximation is good.",
-				reasons[0], report.SmallGroup)
-		} else {
-			r.PMethodReason = fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and %s; with %d values the approximation, with the tie correction, is usually close.",
-				reasons[0], reasons[1], len(ranking.Sorted))
-		}
-	case PValueMonteCarlo:
-		p := newProblem(ranking)
-		var mcProgress montecarlo.Progress
-		if progress != nil {
-			mcProgress = func(done, total int) { progress("monte-carlo", done, total) }
-		}
-		mc, err := montecarlo.PValue(ctx, p.sizes, p.scores, p.sums, s.resamples, s.seed, mcProgress)
-		if err != nil {
-			return err
-		}
-		r.PMethod = string(PValueMonteCarlo)
-		r.PValue = mc.P
-		r.PMonteCarlo = &mc.P
-		r.MonteCarlo = &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}
-		if len(reasons) == 0 {
-			r.PMethodReason = fmt.Sprintf("Monte Carlo, as requested: %d random deals of the ranks into the groups (seed %d).", mc.Resamples, mc.Seed)
-		} else {
-			r.PMethodReason = fmt.Sprintf("Monte Carlo, chosen automatically: %s, and small groups or heavy ties make the chi-square approximation unreliable; %d random deals (seed %d) estimate p.",
-				reasons[0], mc.Resamples, mc.Seed)
-		}
+	choice.Method = string(method)
+	if method == PValueAsymptotic {
+		return pvalue{method: method, p: pAsymptotic, reason: report.MethodReason(choice)}, nil
 	}
-	return nil
+	p := newProblem(ranking)
+	var mcProgress montecarlo.Progress
+	if progress != nil {
+		mcProgress = func(done, total int) { progress("monte-carlo", done, total) }
+	}
+	mc, err := montecarlo.PValue(ctx, p.sizes, p.scores, p.sums, s.resamples, s.seed, mcProgress)
+	if err != nil {
+		return pvalue{}, err
+	}
+	choice.Resamples, choice.Seed = mc.Resamples, mc.Seed
+	return pvalue{method: method, p: mc.P, reason: report.MethodReason(choice),
+		monteCarlo: &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}}, nil
 }
 
-// exactPValue computes the exact p-value and critical value.
-func (r *Result) exactPValue(ctx context.Context, p *permutationProblem, alpha float64, limit exact.Limits, progress Progress) error {
+// pvalue is what pvalueOf finds.
+type pvalue struct {
+	method     PValueMethod
+	p          float64
+	reason     string
+	exact      *float64 // the exact p-value, when computed
+	critical   *float64 // exact_critical_value and exact_attained_alpha
+	attained   *float64
+	monteCarlo *MonteCarlo
+}
+
+// exactPValue computes the exact p-value and critical value; c is the tie
+// correction.
+func exactPValue(ctx context.Context, p *permutationProblem, alpha, c float64, limit exact.Limits, progress Progress) (pvalue, error) {
 	var exProgress exact.Progress
 	if progress != nil {
 		exProgress = func(done, total int) { progress("exact", done, total) }
 	}
 	d, err := exact.Permutation(ctx, p.sizes, p.blocks, limit, exProgress)
 	if err != nil {
-		return err
+		return pvalue{}, err
 	}
 	// the exact method has checked that T of every deal fits in 62 bits
 	pe := d.Upper(exact.Statistic(p.sizes, p.sums))
-	r.PExact = &pe
-	r.PValue = pe
+	pv := pvalue{p: pe, exact: &pe}
 	if t, attained, ok := d.Critical(alpha); ok {
-		h := p.h(t, r.TieCorrection)
-		r.ExactCriticalValue, r.ExactAttainedAlpha = &h, &attained
+		h := p.h(t, c)
+		pv.critical, pv.attained = &h, &attained
 	}
-	return nil
+	return pv, nil
 }
 
 // blockCounts lists the sizes of the tie blocks, in ascending order of value.
@@ -214,42 +201,4 @@ func smallest(sizes []int) int {
 		m = min(m, s)
 	}
 	return m
-}
-
-// dealCount is N!/∏nᵢ! in words-friendly digits ("34,650" or "5.6e+12").
-func dealCount(sizes []int) string {
-	count, n := 1.0, 0
-	for _, s := range sizes {
-		for i := 1; i <= s; i++ {
-			n++
-			count = count * float64(n) / float64(i)
-		}
-	}
-	if count < 1e9 {
-		return thousands(int64(count + 0.5))
-	}
-	return fmt.Sprintf("%.2g", count)
-}
-
-func thousands(v int64) string {
-	s := fmt.Sprint(v)
-	var b strings.Builder
-	for i, c := range s {
-		if i > 0 && (len(s)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	return b.String()
-}
-
-func sizesText(sizes []int) string {
-	parts := make([]string, len(sizes))
-	for i, s := range sizes {
-		parts[i] = fmt.Sprint(s)
-	}
-	if len(parts) == 1 {
-		return parts[0]
-	}
-	return strings.Join(parts[:len(parts)-1], ", ") + " and " + parts[len(parts)-1]
 }
