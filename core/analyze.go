@@ -207,9 +207,10 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		r.EtaSquared, r.EtaSquaredSize = &eta, &size
 	}
 	r.QuantileMethod = describe.Method
-	if err := r.comparePairs(ctx, s, ranking); err != nil {
+	if r.PostHoc, err = comparePairs(ctx, s, ranking, r.Groups, r.H); err != nil {
 		return nil, err
 	}
+	r.pairsAsked = s.pairs
 
 	r.TiesTotal = len(ranking.Ties)
 	r.RanksComplete = r.N <= ListLimit

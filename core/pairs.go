@@ -42,16 +42,16 @@ type PairResult struct {
 // took 14 s and 160 MB of JSON).
 const MaxPairGroups = 100
 
-// comparePairs runs the post-hoc procedure, adjusts the p-values and letters
-// the groups.
-func (r *Result) comparePairs(ctx context.Context, s settings, ranking rank.Ranking) error {
-	r.pairsAsked = s.pairs
-	if !r.pairsAsked || len(r.Groups) > MaxPairGroups {
-		return nil
+// comparePairs runs the post-hoc procedure on groups with the tie-corrected
+// h, adjusts the p-values and letters the groups; nil when no pairs were
+// asked for or there are more than MaxPairGroups groups.
+func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups []Group, h float64) (*PostHoc, error) {
+	if !s.pairs || len(groups) > MaxPairGroups {
+		return nil, nil
 	}
-	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, r.H, 1-s.alpha)
+	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, h, 1-s.alpha)
 	if err != nil {
-		return err
+		return nil, err
 	}
 	raw := make([]float64, len(pairs))
 	for i, p := range pairs {
@@ -59,24 +59,23 @@ func (r *Result) comparePairs(ctx context.Context, s settings, ranking rank.Rank
 	}
 	adjusted, err := adjust.Adjust(raw, s.adjust)
 	if err != nil {
-		return err
+		return nil, err
 	}
 	ph := &PostHoc{Method: s.posthoc, Adjust: s.adjust, Confidence: 1 - s.alpha, Letters: map[string]string{}}
-	k := len(r.Groups)
+	k := len(groups)
 	differ := make([]bool, k*k)
 	for i, p := range pairs {
 		sig := report.Significant(adjusted[i], s.alpha)
 		differ[p.A*k+p.B], differ[p.B*k+p.A] = sig, sig
 		ph.Pairs = append(ph.Pairs, PairResult{
-			A: r.Groups[p.A].Label, B: r.Groups[p.B].Label,
+			A: groups[p.A].Label, B: groups[p.B].Label,
 			Statistic: p.Statistic, P: p.P, PAdjusted: adjusted[i], Significant: sig, Exact: p.Exact,
 			ProbSuperiority: p.ProbSuperiority, CliffsDelta: p.CliffsDelta,
 			Shift: p.Shift, ShiftLow: p.ShiftLow, ShiftHigh: p.ShiftHigh,
 		})
 	}
 	for g, l := range letters.Display(k, func(a, b int) bool { return differ[a*k+b] }) {
-		ph.Letters[r.Groups[g].Label] = l
+		ph.Letters[groups[g].Label] = l
 	}
-	r.PostHoc = ph
-	return nil
+	return ph, nil
 }
