@@ -858,17 +858,17 @@ $("held-edit").addEventListener("click", () => { showHeldAsText(); $("data").foc
 $("held-clear").addEventListener("click", () => { setText(""); keep(); $("data").focus(); });
 
 // Small inputs are analysed again as you type, once typing pauses.
-const LIVE_LIMIT = 20000; // characters
+const LIVE_LIMIT = 20000; // characters: larger texts wait for a longer pause in typing
 let typingTimer = 0;
 
-// reanalyseSoon marks the results out of date and, for texts small enough to
-// analyse as one types, analyses again after a pause (not with Monte Carlo
-// chosen, whose long runs wait for Analyse).
+// reanalyseSoon marks the results out of date and analyses again after a
+// pause, a longer one for texts too large to analyse at every keystroke (not
+// with Monte Carlo chosen, whose long runs wait for Analyse).
 function reanalyseSoon(pause) {
   setStale(true);
   clearTimeout(typingTimer);
-  if (dataText().length <= LIVE_LIMIT && $("pvalue").value !== "monte-carlo") {
-    typingTimer = setTimeout(analyse, pause);
+  if ($("pvalue").value !== "monte-carlo") {
+    typingTimer = setTimeout(analyse, dataText().length <= LIVE_LIMIT ? pause : Math.max(pause, 1500));
   }
 }
 $("data").addEventListener("input", () => reanalyseSoon(400));

@@ -778,6 +778,16 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a medium-sized text is analysed after a pause in typing", func(t *testing.T) {
+		// 40,000 characters: above the size analysed at every keystroke, below the size held out of the box
+		fill := `{ const rows = ["site,minutes"]; for (let i = 0; rows.join("\n").length < 40000; i++) rows.push("S" + (i % 3) + "," + (i % 17));
+			const d = document.getElementById("data"); d.value = rows.join("\n") + "\n"; d.dispatchEvent(new Event("input")); } true`
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](fill)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && !document.getElementById("results").classList.contains("stale") && document.getElementById("decision").textContent.includes("S0, S1 and S2")`)
+	})
+
 	t.Run("a link put into the address of an open tab is opened", func(t *testing.T) {
 		data := "Team A,Team B,Team C\n4,5,2\n3,5,1\n4,4,2\n5,5,3\n"
 		fragment, err := core.ShareLink([]byte(data), core.Options{})
