@@ -4,11 +4,11 @@ import (
 	"fmt"
 	"io"
 	"slices"
-	"strconv"
 	"strings"
 	"text/tabwriter"
 
 	"midrank/core"
+	"midrank/core/tables"
 )
 
 // tiesShown is how many tied values the report lists without --ranks.
@@ -40,36 +40,9 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	fmt.Fprintln(w, wrap(r.Decision, 78, "  "))
 	fmt.Fprintln(w)
 
-	fmt.Fprintln(w, "Figures")
-	t := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	row := func(name, value string) { fmt.Fprintf(t, "  %s\t%s\n", name, value) }
-	row("H, corrected for ties", num(r.H))
-	row("H before the correction", num(r.HUncorrected))
-	row("tie correction C", num(r.TieCorrection))
-	row("degrees of freedom", strconv.Itoa(r.DF))
-	row("p ("+r.PMethod+")", num(r.PValue))
-	row(fmt.Sprintf("H needed at alpha %s", num(r.Alpha)), num(r.CriticalValue))
-	row("significant at alpha", yesNo(r.Significant))
-	row("epsilon squared, H/(N-1)", fmt.Sprintf("%s (%s)", num(r.EpsilonSquared), r.EpsilonSquaredSize))
-	if r.EtaSquared != nil {
-		row("eta squared, (H-k+1)/(N-k)", fmt.Sprintf("%s (%s)", num(*r.EtaSquared), *r.EtaSquaredSize))
-	} else {
-		row("eta squared, (H-k+1)/(N-k)", "undefined (N = k)")
+	for _, t := range tables.Of(r) {
+		writeTable(w, t)
 	}
-	t.Flush()
-	fmt.Fprintln(w)
-
-	fmt.Fprintln(w, "Groups (quartiles: "+r.QuantileMethod+")")
-	t = tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(t, "  group\tvalues\tmissing\trank sum\tmean rank\tlowest\tlower quartile\tmedian\tupper quartile\thighest\t")
-	for _, g := range r.Groups {
-		fmt.Fprintf(t, "  %s\t%d\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t\n", g.Label, g.N, g.Missing,
-			num(g.RankSum), num(g.MeanRank), num(g.Min), num(g.Q1), num(g.Median), num(g.Q3), num(g.Max))
-	}
-	t.Flush()
-	fmt.Fprintln(w)
-
-	writePairs(w, r)
 	writeTies(w, r, showRanks)
 	if showRanks {
 		writeRanks(w, r)
@@ -82,28 +55,37 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	}
 }
 
-func writePairs(w io.Writer, r *core.Result) {
-	ph := r.PostHoc
-	if ph == nil {
+// writeTable prints a table of results as the core defines it: the test's
+// figures one to a line, other tables as columns with a heading line; the
+// letters of the groups, when there are pairs, follow the groups.
+func writeTable(w io.Writer, t tables.Table) {
+	fmt.Fprintln(w, t.Title)
+	if t.Note != "" {
+		fmt.Fprintln(w, wrap(t.Note, 78, "  "))
+	}
+	if t.Name == "figures" {
+		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+		for i, c := range t.Columns {
+			fmt.Fprintf(tw, "  %s\t%s\n", c.Heading, t.Rows[0][i].Text)
+		}
+		tw.Flush()
+		fmt.Fprintln(w)
 		return
 	}
-	fmt.Fprintf(w, "Pairs of groups (%s, p adjusted by %s; shift: Hodges–Lehmann, %s%% interval)\n", ph.Method, ph.Adjust, num(100*ph.Confidence))
-	t := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
-	fmt.Fprintln(t, "  first\tsecond\tstatistic\tp\tadjusted p\tdiffer\tP(first > second)\tshift\tinterval\t")
-	for _, p := range ph.Pairs {
-		differ := ""
-		if p.Significant {
-			differ = "yes"
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	fmt.Fprint(tw, " ")
+	for _, c := range t.Columns {
+		fmt.Fprintf(tw, " %s\t", c.Heading)
+	}
+	fmt.Fprintln(tw)
+	for _, row := range t.Rows {
+		fmt.Fprint(tw, " ")
+		for _, cell := range row {
+			fmt.Fprintf(tw, " %s\t", cell.Text)
 		}
-		fmt.Fprintf(t, "  %s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s to %s\t\n", p.A, p.B, num(p.Statistic), num(p.P), num(p.PAdjusted), differ,
-			strconv.FormatFloat(p.ProbSuperiority, 'f', 3, 64), num(p.Shift), num(p.ShiftLow), num(p.ShiftHigh))
+		fmt.Fprintln(tw)
 	}
-	t.Flush()
-	fmt.Fprint(w, "  Letters (groups sharing a letter are not told apart):")
-	for _, g := range r.Groups {
-		fmt.Fprintf(w, " %s %s;", g.Label, ph.Letters[g.Label])
-	}
-	fmt.Fprintln(w)
+	tw.Flush()
 	fmt.Fprintln(w)
 }
 
@@ -125,7 +107,7 @@ func writeTies(w io.Writer, r *core.Result, all bool) {
 	t := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(t, "  value\tshared by\t")
 	for _, tie := range r.Page(core.ListTies, 0, show).Ties {
-		fmt.Fprintf(t, "  %s\t%d\t\n", num(tie.Value), tie.Count)
+		fmt.Fprintf(t, "  %s\t%d\t\n", tables.AsRead.Format(tie.Value), tie.Count)
 	}
 	t.Flush()
 	if show < r.TiesTotal {
@@ -141,26 +123,11 @@ func writeRanks(w io.Writer, r *core.Result) {
 	const page = 4096
 	for off := 0; off < r.N; off += page {
 		for _, v := range r.Page(core.ListRanks, off, page).Ranks {
-			fmt.Fprintf(t, "  %d\t%s\t%s\t%s\t%d\t\n", v.Line, v.Group, num(v.Value), num(v.Rank), v.Shared)
+			fmt.Fprintf(t, "  %d\t%s\t%s\t%s\t%d\t\n", v.Line, v.Group, tables.AsRead.Format(v.Value), tables.AsRead.Format(v.Rank), v.Shared)
 		}
 	}
 	t.Flush()
 	fmt.Fprintln(w)
-}
-
-// num prints a figure with up to 6 significant digits.
-func num(v float64) string {
-	if v != 0 && (v < 1e-4 && v > -1e-4) {
-		return strconv.FormatFloat(v, 'e', 4, 64)
-	}
-	return strconv.FormatFloat(v, 'g', 6, 64)
-}
-
-func yesNo(b bool) string {
-	if b {
-		return "yes"
-	}
-	return "no"
 }
 
 // wrap breaks text into lines of at most width characters, indented. It

@@ -1,0 +1,84 @@
+package tables
+
+import (
+	"fmt"
+
+	"midrank/core/jsonlite"
+)
+
+// unitNames are the keys of Unit in JSON, in the order of the constants.
+var unitNames = [...]string{"", "measure"}
+
+// Encode writes tables as the JSON the page renders from:
+//
+//	{"figures": table, "groups": table, "pairs": table}
+//
+// (a table missing from tables is left out), where a table is
+//
+//	{"title", "note", "columns": [{"key", "heading", "unit", "show"}, …],
+//	 "values": [[…], …], "text": [[…], …]}
+//
+// with one array of values (full precision, for files) and one of the
+// values as shown (for people) per row. A value that is not finite is an
+// error: it has no place in a table.
+func Encode(tables []Table) ([]byte, error) {
+	var w jsonlite.Writer
+	w.BeginObject()
+	for _, t := range tables {
+		w.Key(t.Name)
+		w.BeginObject()
+		w.StringMember("title", t.Title)
+		w.StringMember("note", t.Note)
+		w.Key("columns")
+		w.BeginArray()
+		for _, c := range t.Columns {
+			w.BeginObject()
+			w.StringMember("key", c.Key)
+			w.StringMember("heading", c.Heading)
+			w.StringMember("unit", unitNames[c.Unit])
+			w.StringMember("show", c.Show.String())
+			w.EndObject()
+		}
+		w.EndArray()
+		w.Key("values")
+		w.BeginArray()
+		for _, row := range t.Rows {
+			w.BeginArray()
+			for _, c := range row {
+				writeValue(&w, c.Value)
+			}
+			w.EndArray()
+		}
+		w.EndArray()
+		w.Key("text")
+		w.BeginArray()
+		for _, row := range t.Rows {
+			w.BeginArray()
+			for _, c := range row {
+				w.String(c.Text)
+			}
+			w.EndArray()
+		}
+		w.EndArray()
+		w.EndObject()
+	}
+	w.EndObject()
+	return w.Bytes(), w.Err()
+}
+
+func writeValue(w *jsonlite.Writer, v any) {
+	switch v := v.(type) {
+	case nil:
+		w.Null()
+	case string:
+		w.String(v)
+	case bool:
+		w.Bool(v)
+	case int:
+		w.Int(int64(v))
+	case float64:
+		w.Float(v)
+	default:
+		panic(fmt.Sprintf("tables: a value of type %T", v))
+	}
+}

@@ -1,0 +1,94 @@
+package tables
+
+import (
+	"math"
+	"strconv"
+	"strings"
+)
+
+// Show is how a column's values are shown to people. It is the one display
+// policy of the project: the page, the HTML and Markdown reports and the
+// command line's text all show the text it gives; CSV and JSON keep the
+// values at full precision.
+type Show int
+
+const (
+	// Text is shown as it is: labels, words, letters.
+	Text Show = iota
+	// Count is a whole number: values, missing values, degrees of freedom.
+	Count
+	// Figure has 4 significant digits, in powers of ten below 0.0001 and from
+	// a million up (a statistic, a median, a rank).
+	Figure
+	// PValue has 3 significant digits, in powers of ten below 0.0001, so that
+	// a tiny p keeps its size instead of reading as 0.
+	PValue
+	// Share is a proportion or a probability from −1 to 1, with 3 decimals.
+	Share
+	// Flag is a yes or a no.
+	Flag
+	// AsRead is a value with every digit it was read with (the shortest
+	// decimal that reads back as the same number): the values and ranks
+	// an auditor checks one by one.
+	AsRead
+)
+
+// showNames are the keys of Show in JSON, in the order of the constants.
+var showNames = [...]string{"text", "count", "figure", "p", "share", "flag", "as-read"}
+
+// String is the key of s in JSON.
+func (s Show) String() string { return showNames[s] }
+
+// Format shows v, a float64, int, string, bool or nil (an undefined
+// figure, shown as "undefined").
+func (s Show) Format(v any) string {
+	switch v := v.(type) {
+	case nil:
+		return "undefined"
+	case string:
+		return v
+	case bool:
+		if v {
+			return "yes"
+		}
+		return "no"
+	case int:
+		return strconv.Itoa(v)
+	case float64:
+		return s.number(v)
+	}
+	panic("tables: cannot show a value of this type")
+}
+
+func (s Show) number(v float64) string {
+	switch s {
+	case Count:
+		return strconv.FormatFloat(math.Round(v), 'f', 0, 64)
+	case Share:
+		return strconv.FormatFloat(v, 'f', 3, 64)
+	case PValue:
+		return significant(v, 3, math.Inf(1))
+	case AsRead:
+		return strconv.FormatFloat(v, 'g', -1, 64)
+	}
+	return significant(v, 4, 1e6)
+}
+
+// significant shows v with the given significant digits, in powers of ten
+// (1.235e-5) below 0.0001 and from large up; trailing zeros are dropped.
+func significant(v float64, digits int, large float64) string {
+	if a := math.Abs(v); a != 0 && (a < 1e-4 || a >= large) {
+		s := strconv.FormatFloat(v, 'e', digits-1, 64)
+		mantissa, exp, _ := strings.Cut(s, "e")
+		if strings.Contains(mantissa, ".") {
+			mantissa = strings.TrimRight(strings.TrimRight(mantissa, "0"), ".")
+		}
+		sign := exp[:1]
+		if sign == "+" {
+			sign = ""
+		}
+		return mantissa + "e" + sign + strings.TrimLeft(exp[1:], "0")
+	}
+	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', digits-1, 64), 64)
+	return strconv.FormatFloat(rounded, 'f', -1, 64)
+}

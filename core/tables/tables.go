@@ -1,0 +1,209 @@
+// Package tables defines each table of results once: its columns (key,
+// heading, unit, how the values are shown) and how a column's value is read
+// from an analysis. Every renderer walks these definitions: the page and its
+// CSV, HTML and Markdown downloads (through the JSON of Encode, which the
+// WebAssembly module hands the page) and the command line's text. Adding a
+// column is one line here.
+//
+// Reading order: show.go (the display policy), this file (the tables),
+// encode.go (their JSON).
+package tables
+
+import (
+	"fmt"
+	"strings"
+
+	"midrank/core"
+	"midrank/core/adjust"
+)
+
+// Unit says what a column's numbers are measured in.
+type Unit int
+
+const (
+	// NoUnit: counts, statistics, probabilities, ranks (their heading says so).
+	NoUnit Unit = iota
+	// MeasureUnit: the measure's own unit, e.g. a median or a shift; the
+	// heading names the measure when the data does.
+	MeasureUnit
+)
+
+// Column is one column of a table as people and files see it.
+type Column struct {
+	Key     string // the CSV header and JSON name, lower case with underscores
+	Heading string // the words shown above the column
+	Unit    Unit
+	Show    Show
+}
+
+// Table is a table of results: its columns and, per row, one value a column
+// (float64, int, string, bool or nil for undefined) and the value as shown.
+type Table struct {
+	Name    string // "figures", "groups" or "pairs"
+	Title   string
+	Note    string // what the reader needs to read the table, "" when nothing
+	Columns []Column
+	Rows    [][]Cell
+}
+
+// Cell is one value of a table with the text that shows it.
+type Cell struct {
+	Value any
+	Text  string
+}
+
+// column is a column with the way its value is read from one row's source.
+type column[T any] struct {
+	Column
+	value func(T) any
+}
+
+// words is a value whose key goes to files and whose words go to people
+// (p_method "exact", shown as "exact permutation").
+type words struct{ key, text string }
+
+// groupRow is one group with its letters from the pairwise comparisons.
+type groupRow struct {
+	core.Group
+	letters string
+}
+
+// figureColumns are the test's figures: a table of one row, which the page
+// and the reports show as a list of figures.
+var figureColumns = []column[*core.Result]{
+	{Column{"h", "H, corrected for ties", NoUnit, Figure}, func(r *core.Result) any { return r.H }},
+	{Column{"df", "Degrees of freedom", NoUnit, Count}, func(r *core.Result) any { return r.DF }},
+	{Column{"p_value", "p-value", NoUnit, PValue}, func(r *core.Result) any { return r.PValue }},
+	{Column{"p_method", "How p was found", NoUnit, Text}, func(r *core.Result) any { return words{r.PMethod, methodWords[r.PMethod]} }},
+	{Column{"alpha", "Chosen level (alpha)", NoUnit, Figure}, func(r *core.Result) any { return r.Alpha }},
+	{Column{"significant", "Significant at that level", NoUnit, Flag}, func(r *core.Result) any { return r.Significant }},
+	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, Figure}, func(r *core.Result) any { return r.CriticalValue }},
+	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, Figure}, exactCritical},
+	{Column{"epsilon_squared", "Effect size ε²", NoUnit, Figure}, func(r *core.Result) any { return r.EpsilonSquared }},
+	{Column{"epsilon_squared_size", "ε² in words", NoUnit, Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
+	{Column{"eta_squared", "Effect size η²(H)", NoUnit, Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
+	{Column{"eta_squared_size", "η²(H) in words", NoUnit, Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
+	{Column{"tie_correction", "Tie correction C", NoUnit, Figure}, func(r *core.Result) any { return r.TieCorrection }},
+	{Column{"h_uncorrected", "H before the correction", NoUnit, Figure}, func(r *core.Result) any { return r.HUncorrected }},
+}
+
+// groupColumns are the groups table's columns.
+var groupColumns = []column[groupRow]{
+	{Column{"group", "Group", NoUnit, Text}, func(g groupRow) any { return g.Label }},
+	{Column{"values", "Values", NoUnit, Count}, func(g groupRow) any { return g.N }},
+	{Column{"missing", "Missing", NoUnit, Count}, func(g groupRow) any { return g.Missing }},
+	{Column{"median", "Median", MeasureUnit, Figure}, func(g groupRow) any { return g.Median }},
+	{Column{"lower_quartile", "Lower quartile", MeasureUnit, Figure}, func(g groupRow) any { return g.Q1 }},
+	{Column{"upper_quartile", "Upper quartile", MeasureUnit, Figure}, func(g groupRow) any { return g.Q3 }},
+	{Column{"lowest", "Lowest", MeasureUnit, Figure}, func(g groupRow) any { return g.Min }},
+	{Column{"highest", "Highest", MeasureUnit, Figure}, func(g groupRow) any { return g.Max }},
+	{Column{"mean_rank", "Mean rank", NoUnit, Figure}, func(g groupRow) any { return g.MeanRank }},
+	{Column{"rank_sum", "Rank sum", NoUnit, Figure}, func(g groupRow) any { return g.RankSum }},
+	{Column{"letters", "Letters", NoUnit, Text}, func(g groupRow) any { return g.letters }},
+}
+
+// pairColumns are the pairs table's columns.
+var pairColumns = []column[core.PairResult]{
+	{Column{"first", "First", NoUnit, Text}, func(p core.PairResult) any { return p.A }},
+	{Column{"second", "Second", NoUnit, Text}, func(p core.PairResult) any { return p.B }},
+	{Column{"statistic", "Statistic", NoUnit, Figure}, func(p core.PairResult) any { return p.Statistic }},
+	{Column{"p", "p", NoUnit, PValue}, func(p core.PairResult) any { return p.P }},
+	{Column{"p_adjusted", "Adjusted p", NoUnit, PValue}, func(p core.PairResult) any { return p.PAdjusted }},
+	{Column{"significant", "Differ", NoUnit, Flag}, func(p core.PairResult) any { return p.Significant }},
+	{Column{"probability_of_superiority", "P(first > second)", NoUnit, Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
+	{Column{"cliffs_delta", "Cliff's δ", NoUnit, Share}, func(p core.PairResult) any { return p.CliffsDelta }},
+	{Column{"hodges_lehmann", "Shift", MeasureUnit, Figure}, func(p core.PairResult) any { return p.Shift }},
+	{Column{"hodges_lehmann_low", "Interval from", MeasureUnit, Figure}, func(p core.PairResult) any { return p.ShiftLow }},
+	{Column{"hodges_lehmann_high", "Interval to", MeasureUnit, Figure}, func(p core.PairResult) any { return p.ShiftHigh }},
+}
+
+// methodWords name the ways of finding p for people.
+var methodWords = map[string]string{"asymptotic": "chi-square approximation", "exact": "exact permutation", "monte-carlo": "Monte Carlo"}
+
+// exactCritical is the exact critical value, or why there is none.
+func exactCritical(r *core.Result) any {
+	switch {
+	case r.PMethod != "exact":
+		return words{"", "not computed"}
+	case r.ExactCriticalValue == nil:
+		return words{"", "none reachable"}
+	}
+	return *r.ExactCriticalValue
+}
+
+func optional[T any](v *T) any {
+	if v == nil {
+		return nil
+	}
+	return *v
+}
+
+// Of gives the tables of an analysis in the order a report shows them: the
+// test's figures, the groups and, when pairs were compared, the pairs.
+func Of(r *core.Result) []Table {
+	out := []Table{Figures(r), Groups(r)}
+	if r.PostHoc != nil {
+		out = append(out, Pairs(r))
+	}
+	return out
+}
+
+// Figures is the table of the test's figures, one row.
+func Figures(r *core.Result) Table {
+	return build("figures", "Test figures", "", r.Input.Measure, figureColumns, []*core.Result{r})
+}
+
+// Groups is the table of the groups.
+func Groups(r *core.Result) Table {
+	rows := make([]groupRow, len(r.Groups))
+	for i, g := range r.Groups {
+		rows[i].Group = g
+		if r.PostHoc != nil {
+			rows[i].letters = r.PostHoc.Letters[g.Label]
+		}
+	}
+	return build("groups", "Groups", "Quartiles: "+r.QuantileMethod+".", r.Input.Measure, groupColumns, rows)
+}
+
+// Pairs is the table of the pairwise comparisons; call it only when pairs
+// were compared.
+func Pairs(r *core.Result) Table {
+	ph := r.PostHoc
+	adjusted := "adjusted by " + ph.Adjust.Name() + " for the whole family of comparisons"
+	if ph.Adjust == adjust.None {
+		adjusted = "not adjusted for the number of comparisons"
+	}
+	note := fmt.Sprintf("Compared by %s; p two-sided, %s. Shift: the Hodges–Lehmann estimate of how much higher the first group lies, with its %s%% interval.",
+		ph.Method.Name(), adjusted, Figure.Format(100*ph.Confidence))
+	return build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
+}
+
+func build[T any](name, title, note, measure string, columns []column[T], rows []T) Table {
+	t := Table{Name: name, Title: title, Note: note, Columns: make([]Column, len(columns)), Rows: make([][]Cell, len(rows))}
+	var inMeasure []string
+	for i, c := range columns {
+		t.Columns[i] = c.Column
+		if c.Unit == MeasureUnit {
+			inMeasure = append(inMeasure, strings.ToLower(c.Heading))
+		}
+	}
+	if len(inMeasure) > 0 && measure != "" {
+		t.Note = strings.TrimSpace(t.Note + " In the units of \u201c" + measure + "\u201d: " + strings.Join(inMeasure, ", ") + ".")
+	}
+	for i, row := range rows {
+		cells := make([]Cell, len(columns))
+		for j, c := range columns {
+			v := c.value(row)
+			if w, ok := v.(words); ok {
+				cells[j] = Cell{Value: w.key, Text: w.text}
+				if w.key == "" {
+					cells[j].Value = nil
+				}
+				continue
+			}
+			cells[j] = Cell{Value: v, Text: c.Show.Format(v)}
+		}
+		t.Rows[i] = cells
+	}
+	return t
+}

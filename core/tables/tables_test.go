@@ -1,0 +1,148 @@
+package tables
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"slices"
+	"strings"
+	"testing"
+
+	"midrank/core"
+)
+
+func TestShow(t *testing.T) {
+	for _, c := range []struct {
+		show Show
+		v    any
+		want string
+	}{
+		{Figure, 7.9882287494437, "7.988"}, // PlantGrowth's H (R: kruskal.test, 7.9882)
+		{Figure, 5.154999999999999, "5.155"},
+		{Figure, 0.0, "0"},
+		{Figure, -2.5, "-2.5"},
+		{Figure, 123456.0, "123500"},
+		{Figure, 1234567.0, "1.235e6"},
+		{Figure, 0.00001234, "1.234e-5"},
+		{Figure, 0.0001, "0.0001"},
+		{PValue, 0.014592168144353301, "0.0146"},
+		{PValue, 5.9234e-5, "5.92e-5"},
+		{PValue, 1e-300, "1e-300"},
+		{PValue, 1.0, "1"},
+		{Share, 0.5, "0.500"},
+		{Share, -0.0626, "-0.063"},
+		{Count, 30, "30"},
+		{Count, 12.0, "12"},
+		{Flag, true, "yes"},
+		{Flag, false, "no"},
+		{Text, "ctrl", "ctrl"},
+		{AsRead, 52300.25, "52300.25"},
+		{AsRead, 4.5, "4.5"},
+		{Figure, nil, "undefined"},
+	} {
+		if got := c.show.Format(c.v); got != c.want {
+			t.Errorf("%v.Format(%v) = %q, want %q", c.show, c.v, got, c.want)
+		}
+	}
+}
+
+// plantGrowth analyses R's PlantGrowth (datasets package) as the golden
+// case writes it.
+func plantGrowth(t *testing.T, options core.Options) *core.Result {
+	t.Helper()
+	data, err := os.ReadFile("../../testdata/cases/plantgrowth_long.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := core.Analyze(data, options)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
+func TestTablesAreWhole(t *testing.T) {
+	r := plantGrowth(t, core.Options{})
+	all := Of(r)
+	if names := []string{all[0].Name, all[1].Name, all[2].Name}; !slices.Equal(names, []string{"figures", "groups", "pairs"}) {
+		t.Fatalf("tables %v", names)
+	}
+	for _, tab := range all {
+		keys := map[string]bool{}
+		for _, c := range tab.Columns {
+			if keys[c.Key] || c.Heading == "" || c.Key != strings.ToLower(c.Key) {
+				t.Errorf("%s: column %+v repeated, unnamed or not lower case", tab.Name, c)
+			}
+			keys[c.Key] = true
+		}
+		for i, row := range tab.Rows {
+			if len(row) != len(tab.Columns) {
+				t.Errorf("%s row %d has %d cells for %d columns", tab.Name, i, len(row), len(tab.Columns))
+			}
+		}
+	}
+	groups := all[1]
+	if got := groups.Rows[0][3]; got.Value != 5.154999999999999 || got.Text != "5.155" {
+		t.Errorf("ctrl's median cell = %+v", got)
+	}
+	if got := groups.Note; !strings.Contains(got, "In the units of \u201cvalue\u201d: median, lower quartile,") {
+		t.Errorf("groups note %q does not name the measure's units", got)
+	}
+	figures := all[0]
+	if got := figures.Rows[0][3]; got.Value != "exact" && got.Value != "asymptotic" && got.Value != "monte-carlo" {
+		t.Errorf("p_method cell %+v", got)
+	}
+}
+
+func TestEncodeIsValidJSON(t *testing.T) {
+	r := plantGrowth(t, core.Options{PostHoc: "none"})
+	b, err := Encode(Of(r))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got map[string]struct {
+		Title   string
+		Columns []struct{ Key, Heading, Unit, Show string }
+		Values  [][]any
+		Text    [][]string
+	}
+	if err := json.Unmarshal(b, &got); err != nil {
+		t.Fatalf("%v\n%s", err, b)
+	}
+	if _, ok := got["pairs"]; ok {
+		t.Error("pairs encoded although none were compared")
+	}
+	g := got["groups"]
+	if len(g.Values) != 3 || len(g.Text) != 3 || g.Columns[3].Unit != "measure" || g.Columns[3].Show != "figure" {
+		t.Errorf("groups encoded as %+v", g)
+	}
+	if g.Values[0][3] != r.Groups[0].Median {
+		t.Errorf("the values lose precision: %v", g.Values[0][3])
+	}
+}
+
+func TestEncodeRefusesNonFinite(t *testing.T) {
+	tab := Table{Name: "groups", Columns: []Column{{Key: "x", Heading: "X", Show: Figure}}, Rows: [][]Cell{{{Value: math.NaN(), Text: "NaN"}}}}
+	if _, err := Encode([]Table{tab}); err == nil {
+		t.Error("Encode wrote NaN without an error")
+	}
+}
+
+// TestAColumnIsAddedInOnePlace adds a column to the definition and finds it
+// in the table and its JSON, which every renderer walks.
+func TestAColumnIsAddedInOnePlace(t *testing.T) {
+	saved := groupColumns
+	t.Cleanup(func() { groupColumns = saved })
+	groupColumns = append(slices.Clip(groupColumns), column[groupRow]{Column{"spread", "Spread", MeasureUnit, Figure},
+		func(g groupRow) any { return g.Q3 - g.Q1 }})
+	r := plantGrowth(t, core.Options{})
+	g := Groups(r)
+	last := g.Columns[len(g.Columns)-1]
+	if last.Key != "spread" || g.Rows[0][len(g.Columns)-1].Value != r.Groups[0].Q3-r.Groups[0].Q1 {
+		t.Errorf("added column missing: %+v", last)
+	}
+	b, _ := Encode([]Table{g})
+	if !strings.Contains(string(b), `"heading":"Spread"`) || !strings.Contains(g.Note, "highest, spread.") {
+		t.Errorf("added column not in the JSON: %s", b)
+	}
+}
