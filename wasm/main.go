@@ -6,6 +6,7 @@
 //	globalThis.midrank.preview(data, optionsJSON) → previewJSON
 //	globalThis.midrank.workspace(data, optionsJSON, onPreview[, onProgress]) → responseJSON
 //	globalThis.midrank.page(list, offset, count) → pageJSON
+//	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
 //	globalThis.midrank.version
@@ -19,7 +20,9 @@
 // given, is called as onProgress(stage, done, total) while an exact or Monte
 // Carlo p-value is computed, at most once per percent. page serves the
 // per-value ranking in text order ("ranks") or by rank ("ranked") or the tie table ("ties") of the last analysis
-// in pieces, for inputs too large to list in one response. preview gives
+// in pieces, for inputs too large to list in one response. tables gives the
+// last analysis's tables of results as core/tables defines and shows them,
+// which the page renders from (and nothing when the last call failed). preview gives
 // core.Preview: the text as a grid, how it was read, its groups as written
 // and every cell that could not be read. workspace is what the page uses:
 // one reading of the text serves onPreview(previewJSON), called first, and
@@ -41,6 +44,7 @@ import (
 	"midrank/core/jsonlite"
 	"midrank/core/link"
 	"midrank/core/table"
+	"midrank/core/tables"
 )
 
 func main() {
@@ -57,6 +61,7 @@ func register() {
 		"preview":   guarded(preview),
 		"workspace": guarded(workspace),
 		"page":      guarded(page),
+		"tables":    guarded(resultTables),
 		"link":      guarded(shareLink),
 		"openLink":  guarded(openLink),
 		"version":   core.Version,
@@ -125,9 +130,11 @@ func workspace(args []js.Value) (string, error) {
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
 }
 
-// answer is the JSON of an analysis, kept for page.
+// answer is the JSON of an analysis, kept for page and tables; a failure
+// forgets the previous analysis, which is not of the data just given.
 func answer(r *core.Result, err error) (string, error) {
 	if err != nil {
+		last = nil
 		return "", err
 	}
 	b, err := core.Encode(r)
@@ -167,6 +174,14 @@ func page(args []js.Value) (string, error) {
 		return "", err
 	}
 	b, err := core.EncodePage(last.Page(list, offset, count))
+	return string(b), err
+}
+
+func resultTables([]js.Value) (string, error) {
+	if last == nil {
+		return "", errors.New("tables: there is no analysis of the data last given")
+	}
+	b, err := tables.Encode(tables.Of(last))
 	return string(b), err
 }
 

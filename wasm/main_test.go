@@ -175,3 +175,19 @@ func TestBadArguments(t *testing.T) {
 		t.Errorf("page after the bad calls = %.200s", again)
 	}
 }
+
+// TestTablesFollowTheLastAnalysis: tables gives the tables of the last
+// analysis, and none once an analysis has failed, so that the page can never
+// show the tables of other data than it gave.
+func TestTablesFollowTheLastAnalysis(t *testing.T) {
+	m := module()
+	m.Call("analyze", "A,B,C\n1,4,7\n2,5,8\n3,6,9\n", "")
+	got := m.Call("tables").String()
+	if !strings.Contains(got, `"groups":{"title":"Groups"`) || !strings.Contains(got, `"text":[["A","3","0","2",`) {
+		t.Errorf("tables = %.300s", got)
+	}
+	m.Call("analyze", "A,B\n1,x\n", "")
+	if got := m.Call("tables").String(); !strings.Contains(got, `"error"`) {
+		t.Errorf("tables after a failed analysis = %.300s, want an error", got)
+	}
+}
