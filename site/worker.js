@@ -4,7 +4,9 @@
 // data, options, edits} (answered by the module's workspace),
 // {id, kind: "page", list, offset, count},
 // {id, kind: "link", data, options, edits} and {id, kind: "open-link",
-// fragment}; replies: {id, json}. For "analyze" the preview of the text comes
+// fragment}; replies: {id, json}, and for an analysis that answered
+// {id, json, tables} with the module's tables of results of that very
+// analysis. For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
 // total} during long computations. When the module itself fails, the reply
 // is {id, kind: "failed", message}. Served, it loads wasm_exec.js; in the
@@ -43,7 +45,7 @@ onmessage = async (event) => {
     begin(q.module);
     return;
   }
-  let json;
+  let json, tables;
   try {
     const m = await ready;
     switch (q.kind) {
@@ -60,6 +62,7 @@ onmessage = async (event) => {
         json = m.workspace(new TextEncoder().encode(q.data), request(q),
           (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
           (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+        if (!json.startsWith('{"error"')) tables = m.tables();
     }
   } catch (err) {
     // the module stopped (out of memory, a fault in it): the page is told,
@@ -67,5 +70,5 @@ onmessage = async (event) => {
     postMessage({ id: q.id, kind: "failed", message: String(err && err.message || err) });
     return;
   }
-  postMessage({ id: q.id, kind: q.kind, json });
+  postMessage({ id: q.id, kind: q.kind, json, tables });
 };

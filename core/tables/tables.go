@@ -75,6 +75,7 @@ var figureColumns = []column[*core.Result]{
 	{Column{"df", "Degrees of freedom", NoUnit, Count}, func(r *core.Result) any { return r.DF }},
 	{Column{"p_value", "p-value", NoUnit, PValue}, func(r *core.Result) any { return r.PValue }},
 	{Column{"p_method", "How p was found", NoUnit, Text}, func(r *core.Result) any { return words{r.PMethod, methodWords[r.PMethod]} }},
+	{Column{"p_interval", "99% interval for p", NoUnit, PValue}, pInterval},
 	{Column{"alpha", "Chosen level (alpha)", NoUnit, Figure}, func(r *core.Result) any { return r.Alpha }},
 	{Column{"significant", "Significant at that level", NoUnit, Flag}, func(r *core.Result) any { return r.Significant }},
 	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, Figure}, func(r *core.Result) any { return r.CriticalValue }},
@@ -129,6 +130,14 @@ func exactCritical(r *core.Result) any {
 		return words{"", "none reachable"}
 	}
 	return *r.ExactCriticalValue
+}
+
+// pInterval is the Monte Carlo estimate's 99% interval, or why there is none.
+func pInterval(r *core.Result) any {
+	if mc := r.MonteCarlo; mc != nil {
+		return words{"", PValue.Format(mc.CILow) + " to " + PValue.Format(mc.CIHigh)}
+	}
+	return words{"", "not estimated (only Monte Carlo estimates p)"}
 }
 
 func optional[T any](v *T) any {

@@ -10,6 +10,7 @@ import (
 	"crypto/rand"
 	"fmt"
 	"github.com/chromedp/cdproto/page"
+	"html"
 	"net/http/httptest"
 	"os"
 	"os/exec"
@@ -31,6 +32,7 @@ import (
 
 	"midrank/core"
 	"midrank/core/sealed"
+	"midrank/core/tables"
 	"midrank/tools/internal/sitebuild"
 	"midrank/tools/internal/static"
 )
@@ -242,9 +244,9 @@ func (b *browser) screenshot(t *testing.T, name string) {
 	t.Logf("screenshot for review: %s", path)
 }
 
-// shown formats a figure as the page does (four significant digits).
+// shown formats a figure by the core's display policy, which the page shows.
 func shown(v float64) string {
-	return strconv.FormatFloat(v, 'g', 4, 64)
+	return tables.Figure.Format(v)
 }
 
 // smokeTest is what every way of hosting the page must pass: the demo
@@ -286,20 +288,55 @@ func TestPage(t *testing.T) {
 
 	t.Run("pairs and letters match the core", func(t *testing.T) {
 		ph := want.PostHoc
-		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#pair-rows tr").length`))
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#pairs-table tbody tr").length`))
 		if err != nil {
 			t.Fatal(err)
 		}
 		if rows != len(ph.Pairs) {
 			t.Errorf("%d pair rows, want %d", rows, len(ph.Pairs))
 		}
-		letters, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#group-rows tr")].map(r => r.lastElementChild.textContent)`))
+		letters, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#groups-table tbody tr")].map(r => r.lastElementChild.textContent)`))
 		if err != nil {
 			t.Fatal(err)
 		}
 		for i, g := range want.Groups {
 			if letters[i] != ph.Letters[g.Label] {
 				t.Errorf("group %s shows letters %q, want %q", g.Label, letters[i], ph.Letters[g.Label])
+			}
+		}
+	})
+
+	t.Run("every column of the core's tables is in the page, the CSV files and both reports", func(t *testing.T) {
+		// the tables as the core defines them: a column added there must
+		// show in each rendering, with each row's cells as the core shows them
+		report, md := b.saved(t, "save-html"), markdownText(b.saved(t, "save-markdown"))
+		csvs := map[string]string{"groups": b.saved(t, "save-groups"), "pairs": b.saved(t, "save-pairs")}
+		for _, tab := range tables.Of(want) {
+			page, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](map[string]string{
+				"figures": `[...document.querySelectorAll("#figures dt")].map((d) => d.textContent)`,
+				"groups":  `[...document.querySelectorAll("#groups-table th")].map((th) => th.textContent)`,
+				"pairs":   `[...document.querySelectorAll("#pairs-table th")].map((th) => th.textContent)`}[tab.Name]))
+			if err != nil {
+				t.Fatal(err)
+			}
+			for i, c := range tab.Columns {
+				if !slices.ContainsFunc(page, func(h string) bool { return strings.HasPrefix(h, c.Heading) }) {
+					t.Errorf("%s: column %q is not on the page (%q)", tab.Name, c.Heading, page)
+				}
+				if h := html.EscapeString(c.Heading); !strings.Contains(report, "<th>"+h+"</th>") && !strings.Contains(report, "<td>"+h+"</td>") {
+					t.Errorf("%s: column %q is not in the HTML report", tab.Name, c.Heading)
+				}
+				if !strings.Contains(md, "| "+c.Heading+" |") {
+					t.Errorf("%s: column %q is not in the Markdown report", tab.Name, c.Heading)
+				}
+				if csv, ok := csvs[tab.Name]; ok && !strings.Contains(strings.SplitN(csv, "\r\n", 2)[0], c.Key) {
+					t.Errorf("%s: column %q is not in the CSV file's header %q", tab.Name, c.Key, strings.SplitN(csv, "\r\n", 2)[0])
+				}
+				if row := tab.Rows[0]; tab.Name != "figures" && !strings.Contains(md, "| "+row[0].Text+" |") {
+					t.Errorf("%s: the first row (%s) is not in the Markdown report", tab.Name, row[0].Text)
+				} else if tab.Name == "figures" && !strings.Contains(md, "| "+c.Heading+" | "+row[i].Text+" |") {
+					t.Errorf("figures: %q is not shown as %q in the Markdown report", c.Heading, row[i].Text)
+				}
 			}
 		}
 	})
@@ -406,7 +443,7 @@ func TestPage(t *testing.T) {
 		}
 		groups := func() []string {
 			t.Helper()
-			labels, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#group-rows tr")].map((tr) => tr.cells[0].textContent)`))
+			labels, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#groups-table tbody tr")].map((tr) => tr.cells[0].textContent)`))
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -473,7 +510,7 @@ func TestPage(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if got := b.text(t, "#group-rows td"); got != label || images != 0 {
+		if got := b.text(t, "#groups-table tbody td"); got != label || images != 0 {
 			t.Errorf("label cell %q with %d images, want the label as text and no image", got, images)
 		}
 	})
@@ -691,11 +728,14 @@ func TestPage(t *testing.T) {
 	t.Run("a failing module is reported, restarted, and the text kept", func(t *testing.T) {
 		typed := "North,South,East\n3,8,2\n5,6,1\n4,9,3\n"
 		b.analyse(t, typed)
-		// a BigInt in the options that reach this worker makes its
+		// a BigInt in the options of the next analysis makes the worker's
 		// JSON.stringify throw, as a fault inside the module would; the
-		// worker started after the failure is a fresh one, without it
-		inject := `const post = worker.postMessage.bind(worker);
-			worker.postMessage = (m) => post(m.kind === "analyze" ? { ...m, options: { ...m.options, alpha: 1n } } : m); true`
+		// patch undoes itself, so the analyses after it are as usual
+		inject := `const post = Worker.prototype.postMessage;
+			Worker.prototype.postMessage = function (m) {
+				if (m && m.kind === "analyze") { Worker.prototype.postMessage = post; m = { ...m, options: { ...m.options, alpha: 1n } }; }
+				return post.call(this, m);
+			}; true`
 		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](inject)); err != nil {
 			t.Fatal(err)
 		}

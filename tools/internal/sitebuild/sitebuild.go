@@ -1,6 +1,8 @@
 // Package sitebuild writes the static site: the statistics module compiled
-// to WebAssembly, Go's wasm_exec.js copied untouched, and the page, its
-// script, worker and style minified (github.com/tdewolff/minify/v2). Every
+// to WebAssembly, Go's wasm_exec.js copied untouched, the page's script
+// bundled from its ES modules (site/app.js and site/js/, by esbuild's Go
+// API, github.com/evanw/esbuild/pkg/api, at build time only), and the page,
+// its script, worker and style minified (github.com/tdewolff/minify/v2). Every
 // asset but the page is named by its content hash, scripts and styles carry
 // Subresource Integrity, and each file gets gzip and brotli copies for
 // content negotiation. The same step writes midrank-offline.html, one file
@@ -92,6 +94,9 @@ func Build(root, out string, log io.Writer) (*Result, error) {
 	add("demo.tsv", demo)
 	for _, name := range []string{"worker.js", "app.js", "style.css"} {
 		src, err := read(name)
+		if name == "app.js" {
+			src, err = bundle(root, name)
+		}
 		if err != nil {
 			return nil, err
 		}

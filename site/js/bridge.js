@@ -1,0 +1,127 @@
+// The bridge to the worker that runs the statistics module. It knows no
+// element of the page: it starts the worker, sends requests, lets the
+// latest analysis win (a new one stops a running one), cancels by
+// terminating the worker, and answers every request with its id.
+
+// failedBody is the reply when the module stopped or its answer cannot be read.
+function failedBody(why) {
+  return { failed: why, error: { message: "The statistics module stopped: " + why + ". Your text and settings are kept, and the module was started again; "
+    + "for data this large, try the chi-square or Monte Carlo p-value, or fewer values." } };
+}
+
+function parse(text) {
+  if (typeof text !== "string") return text;
+  try {
+    return JSON.parse(text);
+  } catch (err) {
+    return { failed: "its answer could not be read (" + err.message + ")" };
+  }
+}
+
+// createBridge starts the worker. source: {script} (served: the worker's
+// file name) or {inline} (the single-file build: the worker's source text,
+// with moduleBytes). on: {ready(info), startFailed(message), preview(json),
+// progress(stage, done, total)}, called for the latest analysis only.
+export function createBridge(source, moduleBytes, on) {
+  let worker = null;
+  let nextId = 1;
+  let latest = 0; // the id of the latest analysis: replies and progress of older ones are dropped
+  let running = false; // an analysis is running in the worker
+  const pending = new Map();
+
+  // The module is compiled once, here, and handed to every worker started,
+  // so that a Cancel (which starts a fresh worker) costs no second compilation.
+  const compiled = moduleBytes
+    ? WebAssembly.compile(moduleBytes)
+    : WebAssembly.compileStreaming(fetch(source.module))
+      .catch(async () => WebAssembly.compile(await (await fetch(source.module)).arrayBuffer()));
+
+  function start() {
+    const w = source.inline
+      ? new Worker(URL.createObjectURL(new Blob([source.inline], { type: "text/javascript" })))
+      : new Worker(source.script);
+    w.onmessage = receive;
+    w.onerror = (e) => { e.preventDefault(); if (w === worker) failed(e.message || "the worker stopped"); };
+    compiled.then((module) => w.postMessage({ kind: "module", module }),
+      (err) => on.startFailed("The statistics module could not be loaded: " + err));
+    worker = w;
+  }
+
+  // failed answers every waiting request with the failure and starts a
+  // fresh worker.
+  function failed(message) {
+    const waiting = [...pending.values()];
+    pending.clear();
+    worker.terminate();
+    running = false;
+    start();
+    for (const resolve of waiting) resolve({ failed: message });
+  }
+
+  function receive(event) {
+    const m = event.data;
+    switch (m.kind) {
+      case "ready":
+        on.ready(m);
+        return;
+      case "failed":
+        if (m.id === undefined) on.startFailed("The statistics module could not start: " + m.message);
+        else failed(m.message);
+        return;
+      case "blocked":
+        console.error("Content Security Policy blocked a load in the worker: " + m.what);
+        return;
+      case "preview":
+        if (m.id === latest) on.preview(JSON.parse(m.json));
+        return;
+      case "progress":
+        if (m.id === latest) on.progress(m.stage, m.done, m.total);
+        return;
+    }
+    const resolve = pending.get(m.id);
+    pending.delete(m.id);
+    if (resolve) resolve(m);
+  }
+
+  // ask sends a request; the reply is {id, body, tables}: body is the
+  // module's JSON, {cancelled: true}, or {failed, error} when the module
+  // stopped or answered something that is not JSON; tables, with an
+  // analysis, are the tables of results.
+  function ask(message) {
+    const id = nextId++;
+    return new Promise((resolve) => {
+      pending.set(id, resolve);
+      worker.postMessage({ id, ...message });
+    }).then((reply) => {
+      let body = reply.failed ? reply : parse(reply.json);
+      if (body.failed) body = failedBody(body.failed);
+      return { id, body, tables: reply.tables ? parse(reply.tables) : null };
+    });
+  }
+
+  // restart stops the worker, whatever it is doing, and starts a fresh one;
+  // requests waiting for it are answered as cancelled.
+  function restart() {
+    worker.terminate();
+    for (const resolve of pending.values()) resolve({ json: { cancelled: true } });
+    pending.clear();
+    latest = nextId++; // any reply still on its way is stale
+    running = false;
+    start();
+  }
+
+  // analyse asks for an analysis that replaces any running one; the reply
+  // is null when a later analysis (or a cancel) has taken its place.
+  async function analyse(message) {
+    if (running) restart();
+    running = true;
+    latest = nextId; // the id ask is about to use
+    const reply = await ask({ kind: "analyze", ...message });
+    if (reply.id !== latest) return null;
+    running = false;
+    return reply.body.cancelled ? null : reply;
+  }
+
+  start();
+  return { ask, analyse, cancel: restart };
+}

@@ -1,0 +1,86 @@
+// The text to analyse: the box, a large text held in the tab instead of
+// the box, files opened or dropped, and pastes.
+import { $, showProblem } from "./dom.js";
+import { state } from "./state.js";
+
+// A large text (pasted, opened or dropped) is held here instead of in the
+// text box: laying out a box of 100,000 lines costs the browser seconds. The
+// preview shows it as cells, and it can be put in the box on request.
+export const HOLD_LIMIT = 256 * 1024; // characters
+let heldText = null;
+
+export function dataText() {
+  return heldText ?? $("data").value;
+}
+
+export function setText(text) {
+  const hold = text.length > HOLD_LIMIT;
+  heldText = hold ? text : null;
+  $("data").value = hold ? "" : text;
+  $("data").hidden = hold;
+  $("held").hidden = !hold;
+  if (hold) {
+    let lines = 1;
+    for (let i = text.indexOf("\n"); i >= 0 && i < text.length - 1; i = text.indexOf("\n", i + 1)) lines++;
+    $("held-note").textContent = "The text (" + lines.toLocaleString() + " lines, " + (text.length / 1e6).toFixed(1)
+      + " million characters) is held in this tab rather than shown in the box, which would be slow. Its first lines are shown as cells below.";
+  }
+}
+
+function showHeldAsText() {
+  const text = heldText;
+  heldText = null;
+  $("held").hidden = true;
+  $("data").hidden = false;
+  $("data").value = text;
+}
+
+// selectLine selects a line of the text box, so a marked cell is found at once.
+export function selectLine(line) {
+  if (heldText !== null) showHeldAsText();
+  const text = dataText();
+  let start = 0;
+  for (let l = 1; l < line && start >= 0; l++) start = text.indexOf("\n", start) + 1 || -1;
+  if (start < 0) return;
+  const end = text.indexOf("\n", start);
+  const box = $("data");
+  box.focus();
+  box.setSelectionRange(start, end < 0 ? text.length : end);
+}
+
+// wireInput connects the box, the file chooser and drops; newText(text) is
+// called with a text that replaces the box's (a file, a large paste).
+export function wireInput(newText) {
+  // a large paste is held rather than laid out in the box (it replaces the box's text)
+  $("data").addEventListener("paste", (e) => {
+    const text = e.clipboardData?.getData("text/plain") ?? "";
+    if (text.length <= HOLD_LIMIT) return;
+    e.preventDefault();
+    newText(text);
+  });
+  $("held-edit").addEventListener("click", () => { showHeldAsText(); $("data").focus(); });
+  $("held-clear").addEventListener("click", () => { setText(""); $("data").dispatchEvent(new Event("input")); $("data").focus(); });
+
+  // Files are read with the File API in this tab; nothing is sent anywhere.
+  function readFile(file) {
+    if (file.size > state.limits.text) {
+      showProblem({ message: "The file " + file.name + " is " + (file.size / 1048576).toFixed(1) + " MB; the most that is read is "
+        + (state.limits.text / 1048576) + " MB. Save only the group and value columns, or a part of the rows." });
+      return;
+    }
+    const reader = new FileReader();
+    reader.onload = () => newText(reader.result);
+    reader.onerror = () => showProblem({ message: "The file " + file.name + " could not be read: " + reader.error });
+    reader.readAsText(file);
+  }
+  $("file").addEventListener("change", () => { if ($("file").files[0]) readFile($("file").files[0]); });
+  for (const target of [$("data"), $("held")]) {
+    target.addEventListener("dragover", (e) => { e.preventDefault(); target.classList.add("dropping"); });
+    target.addEventListener("dragleave", () => target.classList.remove("dropping"));
+    target.addEventListener("drop", (e) => {
+      e.preventDefault();
+      target.classList.remove("dropping");
+      if (e.dataTransfer.files[0]) readFile(e.dataTransfer.files[0]);
+    });
+  }
+}

@@ -1,0 +1,57 @@
+// The preview shows how the text was read: the first lines as cells, and
+// every unreadable cell marked and listed with the core's message.
+import { $ } from "./dom.js";
+import { selectLine } from "./input.js";
+
+const separatorNames = { tab: "tab-separated", semicolon: "semicolon-separated", comma: "comma-separated" };
+const layoutNames = { wide: "one column per group", long: "group, value per row" };
+
+export function renderPreview(state, changed) {
+  if (!changed.has("preview") || !state.preview) return;
+  const p = state.preview;
+  const input = p.input;
+  $("read-as").textContent = !input.layout ? "it could not be read"
+    : layoutNames[input.layout] + ", " + separatorNames[input.separator] + ", decimal " + input.decimal_mark
+      + (p.groups.length ? ", " + p.groups.length + " groups" : "")
+      + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
+  const marks = new Map(); // "line:column" → message
+  for (const q of p.problems) if (q.line && q.column) marks.set(q.line + ":" + q.column, q.message);
+  const width = Math.max(1, ...p.rows.map((r) => r.cells.length));
+  const headed = input.layout === "wide" || input.header;
+  $("preview-rows").replaceChildren(...p.rows.map((r, i) => {
+    const tr = document.createElement("tr");
+    if (i === 0 && headed) tr.className = "head";
+    const th = document.createElement("th");
+    th.scope = "row";
+    th.textContent = String(r.line);
+    tr.append(th);
+    for (let c = 0; c < width; c++) {
+      const td = document.createElement("td");
+      td.textContent = r.cells[c] ?? "";
+      const message = marks.get(r.line + ":" + (c + 1));
+      if (message) {
+        td.className = "bad";
+        td.title = message;
+        td.setAttribute("aria-label", (r.cells[c] ?? "") + " — " + message);
+      }
+      tr.append(td);
+    }
+    return tr;
+  }));
+  const problems = p.problems.length ? p.problems : p.message ? [{ message: p.message }] : [];
+  $("problem-list").replaceChildren(...problems.map((q) => {
+    const li = document.createElement("li");
+    if (q.line) {
+      const b = document.createElement("button");
+      b.type = "button";
+      b.className = "quiet";
+      b.textContent = q.message;
+      b.title = "Select line " + q.line + " in the text";
+      b.addEventListener("click", () => selectLine(q.line));
+      li.append(b);
+    } else {
+      li.textContent = q.message;
+    }
+    return li;
+  }));
+}

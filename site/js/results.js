@@ -1,0 +1,91 @@
+// The results: the decision, the test's figures, the groups, the pairs
+// and the notes, from the module's answer and its tables of results.
+import { $ } from "./dom.js";
+import { figureList, pageTable } from "./tableview.js";
+import { update } from "./state.js";
+
+// setStale marks the results on screen as not from the text and settings
+// now on the page (or clears the mark): greyed out, with a note, and nothing
+// in them can be copied, downloaded or linked until a new analysis answers.
+export function setStale(stale) {
+  const results = $("results");
+  stale = stale && !results.hidden;
+  results.classList.toggle("stale", stale);
+  $("stale-note").hidden = !stale;
+  for (const el of results.children) if (el.id !== "stale-note") el.inert = stale;
+}
+
+export function renderResults(state, changed) {
+  if (!changed.has("result") && !changed.has("pairsSorted")) return;
+  const r = state.result;
+  $("results").hidden = !r;
+  if (!r) return;
+  const t = state.tables;
+  if (changed.has("result")) {
+    $("decision").textContent = r.decision;
+    figureList($("figures"), t.figures);
+    $("method-reason").textContent = r.p_method_reason;
+    pageTable($("groups-table"), t.groups);
+    const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
+    $("notes").replaceChildren(...notes);
+    $("notes-box").hidden = notes.length === 0;
+  }
+  renderPairs(state);
+}
+
+function renderPairs(state) {
+  const r = state.result, pairs = state.tables.pairs;
+  $("pairs-box").hidden = !pairs;
+  if (!pairs) return;
+  $("pairs-hint").textContent = r.significant
+    ? "Groups that share a letter in the table above could not be told apart at the chosen level."
+    : "The overall test is not significant: these pairwise results are shown for completeness and should not be read as findings.";
+  const at = (key) => pairs.columns.findIndex((c) => c.key === key);
+  const adjusted = at("p_adjusted"), differ = at("significant");
+  const order = [...pairs.values.keys()];
+  if (state.pairsSorted) order.sort((x, y) => pairs.values[x][adjusted] - pairs.values[y][adjusted]);
+  pageTable($("pairs-table"), pairs, {
+    order,
+    rowClass: (values) => values[differ] ? "tied" : "",
+    heading: (th, c) => {
+      if (c.key !== "p_adjusted") return;
+      const b = document.createElement("button");
+      b.type = "button";
+      b.className = "quiet sort";
+      b.textContent = c.heading + " ⇅";
+      b.setAttribute("aria-label", c.heading + ", press to sort");
+      b.addEventListener("click", () => update({ pairsSorted: !state.pairsSorted }));
+      th.replaceChildren(b);
+    },
+  });
+  renderMatrix(r, pairs, adjusted, differ);
+}
+
+// renderMatrix shows the adjusted p of every pair at a glance.
+function renderMatrix(r, pairs, adjusted, differ) {
+  const labels = r.groups.map((g) => g.label);
+  const head = document.createElement("tr");
+  for (const text of [""].concat(labels)) {
+    const th = document.createElement("th");
+    th.scope = "col";
+    th.textContent = text;
+    head.append(th);
+  }
+  $("matrix-head").replaceChildren(head);
+  const cell = new Map(pairs.values.map((v, i) => [v[0] + "\u0000" + v[1], i]));
+  $("matrix-rows").replaceChildren(...labels.map((a) => {
+    const tr = document.createElement("tr");
+    const th = document.createElement("th");
+    th.scope = "row";
+    th.textContent = a;
+    tr.append(th);
+    for (const b of labels) {
+      const td = document.createElement("td");
+      const i = cell.get(a + "\u0000" + b) ?? cell.get(b + "\u0000" + a);
+      td.textContent = i === undefined ? "–" : pairs.text[i][adjusted];
+      if (i !== undefined && pairs.values[i][differ]) td.className = "differ";
+      tr.append(td);
+    }
+    return tr;
+  }));
+}

@@ -1,0 +1,29 @@
+// The page's state in one object, changed only through update, which then
+// lets every view that asked for it render from the new state.
+
+export const state = {
+  defaults: {}, // the module's default settings, by request key
+  limits: {}, // the module's bounds: text (bytes of a text read), link (characters of a link)
+  menus: {}, // the methods the module offers, by setting
+  result: null, // the last analysis (the module's JSON), null when none is shown
+  tables: null, // its tables of results as the core shows them
+  preview: null, // how the text was read, with its groups as written
+  edits: { order: [], exclude: [], rename: {} }, // group edits beside the text
+  undoable: [], // earlier edits, newest last
+  pairsSorted: false, // the pairs sorted by adjusted p
+};
+
+const views = [];
+
+// onUpdate registers a view: render(state, changed) is called after every
+// update with the names of the parts changed.
+export function onUpdate(render) {
+  views.push(render);
+}
+
+// update changes parts of the state and renders the views.
+export function update(changes) {
+  Object.assign(state, changes);
+  const changed = new Set(Object.keys(changes));
+  for (const render of views) render(state, changed);
+}
