@@ -4,7 +4,7 @@ package report
 
 import (
 	"fmt"
-	"math"
+	"midrank/core/display"
 	"strconv"
 	"strings"
 )
@@ -181,17 +181,9 @@ func listLabels(labels []string) string {
 	return strings.Join(labels[:len(labels)-1], ", ") + " and " + labels[len(labels)-1]
 }
 
-// Number formats a figure for prose: four significant digits, one decimal
-// from 1000 up, and an exponent only below 0.0001.
-func Number(v float64) string {
-	switch a := math.Abs(v); {
-	case a != 0 && a < 1e-4:
-		return strconv.FormatFloat(v, 'e', 3, 64)
-	case a >= 1000:
-		return strconv.FormatFloat(v, 'f', 1, 64)
-	}
-	return strconv.FormatFloat(v, 'g', 4, 64)
-}
+// Number shows a figure in prose as everywhere else (display.Figure: four
+// significant digits, powers of ten below 0.0001 and from a million up).
+func Number(v float64) string { return display.Figure.Format(v) }
 
 // PValue formats a p-value for prose: three significant digits, and
 // "p < 0.001" below a thousandth (the full value stays in the figures).

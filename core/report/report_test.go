@@ -49,10 +49,10 @@ func TestDecision(t *testing.T) {
 	}
 }
 
-// TestNumber: the formats the doc comment of Number promises (four
-// significant digits, one decimal from 1000, an exponent below 0.0001).
+// TestNumber: prose shows figures as the tables do (four significant
+// digits, an exponent below 0.0001 and from a million up).
 func TestNumber(t *testing.T) {
-	for v, want := range map[float64]string{0: "0", 7.98823: "7.988", 0.05: "0.05", 12345.678: "12345.7", 3.2e-7: "3.200e-07"} {
+	for v, want := range map[float64]string{0: "0", 7.98823: "7.988", 0.05: "0.05", 12345.678: "12350", 3.2e-7: "3.2e-7", 2.5e6: "2.5e6"} {
 		if got := Number(v); got != want {
 			t.Errorf("Number(%v) = %q, want %q", v, got, want)
 		}

@@ -15,6 +15,7 @@ import (
 
 	"midrank/core"
 	"midrank/core/adjust"
+	"midrank/core/display"
 )
 
 // Unit says what a column's numbers are measured in.
@@ -33,7 +34,7 @@ type Column struct {
 	Key     string // the CSV header and JSON name, lower case with underscores
 	Heading string // the words shown above the column
 	Unit    Unit
-	Show    Show
+	Show    display.Show
 }
 
 // Table is a table of results: its columns and, per row, one value a column
@@ -71,51 +72,51 @@ type groupRow struct {
 // figureColumns are the test's figures: a table of one row, which the page
 // and the reports show as a list of figures.
 var figureColumns = []column[*core.Result]{
-	{Column{"h", "H, corrected for ties", NoUnit, Figure}, func(r *core.Result) any { return r.H }},
-	{Column{"df", "Degrees of freedom", NoUnit, Count}, func(r *core.Result) any { return r.DF }},
-	{Column{"p_value", "p-value", NoUnit, PValue}, func(r *core.Result) any { return r.PValue }},
-	{Column{"p_method", "How p was found", NoUnit, Text}, func(r *core.Result) any { return words{r.PMethod, methodWords[r.PMethod]} }},
-	{Column{"p_interval", "99% interval for p", NoUnit, PValue}, pInterval},
-	{Column{"alpha", "Chosen level (alpha)", NoUnit, Figure}, func(r *core.Result) any { return r.Alpha }},
-	{Column{"significant", "Significant at that level", NoUnit, Flag}, func(r *core.Result) any { return r.Significant }},
-	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, Figure}, func(r *core.Result) any { return r.CriticalValue }},
-	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, Figure}, exactCritical},
-	{Column{"epsilon_squared", "Effect size ε²", NoUnit, Figure}, func(r *core.Result) any { return r.EpsilonSquared }},
-	{Column{"epsilon_squared_size", "ε² in words", NoUnit, Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
-	{Column{"eta_squared", "Effect size η²(H)", NoUnit, Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
-	{Column{"eta_squared_size", "η²(H) in words", NoUnit, Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
-	{Column{"tie_correction", "Tie correction C", NoUnit, Figure}, func(r *core.Result) any { return r.TieCorrection }},
-	{Column{"h_uncorrected", "H before the correction", NoUnit, Figure}, func(r *core.Result) any { return r.HUncorrected }},
+	{Column{"h", "H, corrected for ties", NoUnit, display.Figure}, func(r *core.Result) any { return r.H }},
+	{Column{"df", "Degrees of freedom", NoUnit, display.Count}, func(r *core.Result) any { return r.DF }},
+	{Column{"p_value", "p-value", NoUnit, display.PValue}, func(r *core.Result) any { return r.PValue }},
+	{Column{"p_method", "How p was found", NoUnit, display.Text}, func(r *core.Result) any { return words{r.PMethod, methodWords[r.PMethod]} }},
+	{Column{"p_interval", "99% interval for p", NoUnit, display.PValue}, pInterval},
+	{Column{"alpha", "Chosen level (alpha)", NoUnit, display.Figure}, func(r *core.Result) any { return r.Alpha }},
+	{Column{"significant", "Significant at that level", NoUnit, display.Flag}, func(r *core.Result) any { return r.Significant }},
+	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, display.Figure}, func(r *core.Result) any { return r.CriticalValue }},
+	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, display.Figure}, exactCritical},
+	{Column{"epsilon_squared", "Effect size ε²", NoUnit, display.Figure}, func(r *core.Result) any { return r.EpsilonSquared }},
+	{Column{"epsilon_squared_size", "ε² in words", NoUnit, display.Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
+	{Column{"eta_squared", "Effect size η²(H)", NoUnit, display.Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
+	{Column{"eta_squared_size", "η²(H) in words", NoUnit, display.Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
+	{Column{"tie_correction", "Tie correction C", NoUnit, display.Figure}, func(r *core.Result) any { return r.TieCorrection }},
+	{Column{"h_uncorrected", "H before the correction", NoUnit, display.Figure}, func(r *core.Result) any { return r.HUncorrected }},
 }
 
 // groupColumns are the groups table's columns.
 var groupColumns = []column[groupRow]{
-	{Column{"group", "Group", NoUnit, Text}, func(g groupRow) any { return g.Label }},
-	{Column{"values", "Values", NoUnit, Count}, func(g groupRow) any { return g.N }},
-	{Column{"missing", "Missing", NoUnit, Count}, func(g groupRow) any { return g.Missing }},
-	{Column{"median", "Median", MeasureUnit, Figure}, func(g groupRow) any { return g.Median }},
-	{Column{"lower_quartile", "Lower quartile", MeasureUnit, Figure}, func(g groupRow) any { return g.Q1 }},
-	{Column{"upper_quartile", "Upper quartile", MeasureUnit, Figure}, func(g groupRow) any { return g.Q3 }},
-	{Column{"lowest", "Lowest", MeasureUnit, Figure}, func(g groupRow) any { return g.Min }},
-	{Column{"highest", "Highest", MeasureUnit, Figure}, func(g groupRow) any { return g.Max }},
-	{Column{"mean_rank", "Mean rank", NoUnit, Figure}, func(g groupRow) any { return g.MeanRank }},
-	{Column{"rank_sum", "Rank sum", NoUnit, Figure}, func(g groupRow) any { return g.RankSum }},
-	{Column{"letters", "Letters", NoUnit, Text}, func(g groupRow) any { return g.letters }},
+	{Column{"group", "Group", NoUnit, display.Text}, func(g groupRow) any { return g.Label }},
+	{Column{"values", "Values", NoUnit, display.Count}, func(g groupRow) any { return g.N }},
+	{Column{"missing", "Missing", NoUnit, display.Count}, func(g groupRow) any { return g.Missing }},
+	{Column{"median", "Median", MeasureUnit, display.Figure}, func(g groupRow) any { return g.Median }},
+	{Column{"lower_quartile", "Lower quartile", MeasureUnit, display.Figure}, func(g groupRow) any { return g.Q1 }},
+	{Column{"upper_quartile", "Upper quartile", MeasureUnit, display.Figure}, func(g groupRow) any { return g.Q3 }},
+	{Column{"lowest", "Lowest", MeasureUnit, display.Figure}, func(g groupRow) any { return g.Min }},
+	{Column{"highest", "Highest", MeasureUnit, display.Figure}, func(g groupRow) any { return g.Max }},
+	{Column{"mean_rank", "Mean rank", NoUnit, display.Figure}, func(g groupRow) any { return g.MeanRank }},
+	{Column{"rank_sum", "Rank sum", NoUnit, display.Figure}, func(g groupRow) any { return g.RankSum }},
+	{Column{"letters", "Letters", NoUnit, display.Text}, func(g groupRow) any { return g.letters }},
 }
 
 // pairColumns are the pairs table's columns.
 var pairColumns = []column[core.PairResult]{
-	{Column{"first", "First", NoUnit, Text}, func(p core.PairResult) any { return p.A }},
-	{Column{"second", "Second", NoUnit, Text}, func(p core.PairResult) any { return p.B }},
-	{Column{"statistic", "Statistic", NoUnit, Figure}, func(p core.PairResult) any { return p.Statistic }},
-	{Column{"p", "p", NoUnit, PValue}, func(p core.PairResult) any { return p.P }},
-	{Column{"p_adjusted", "Adjusted p", NoUnit, PValue}, func(p core.PairResult) any { return p.PAdjusted }},
-	{Column{"significant", "Differ", NoUnit, Flag}, func(p core.PairResult) any { return p.Significant }},
-	{Column{"probability_of_superiority", "P(first > second)", NoUnit, Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
-	{Column{"cliffs_delta", "Cliff's δ", NoUnit, Share}, func(p core.PairResult) any { return p.CliffsDelta }},
-	{Column{"hodges_lehmann", "Shift", MeasureUnit, Figure}, func(p core.PairResult) any { return p.Shift }},
-	{Column{"hodges_lehmann_low", "Interval from", MeasureUnit, Figure}, func(p core.PairResult) any { return p.ShiftLow }},
-	{Column{"hodges_lehmann_high", "Interval to", MeasureUnit, Figure}, func(p core.PairResult) any { return p.ShiftHigh }},
+	{Column{"first", "First", NoUnit, display.Text}, func(p core.PairResult) any { return p.A }},
+	{Column{"second", "Second", NoUnit, display.Text}, func(p core.PairResult) any { return p.B }},
+	{Column{"statistic", "Statistic", NoUnit, display.Figure}, func(p core.PairResult) any { return p.Statistic }},
+	{Column{"p", "p", NoUnit, display.PValue}, func(p core.PairResult) any { return p.P }},
+	{Column{"p_adjusted", "Adjusted p", NoUnit, display.PValue}, func(p core.PairResult) any { return p.PAdjusted }},
+	{Column{"significant", "Differ", NoUnit, display.Flag}, func(p core.PairResult) any { return p.Significant }},
+	{Column{"probability_of_superiority", "P(first > second)", NoUnit, display.Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
+	{Column{"cliffs_delta", "Cliff's δ", NoUnit, display.Share}, func(p core.PairResult) any { return p.CliffsDelta }},
+	{Column{"hodges_lehmann", "Shift", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.Shift }},
+	{Column{"hodges_lehmann_low", "Interval from", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.ShiftLow }},
+	{Column{"hodges_lehmann_high", "Interval to", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.ShiftHigh }},
 }
 
 // methodWords name the ways of finding p for people.
@@ -135,7 +136,7 @@ func exactCritical(r *core.Result) any {
 // pInterval is the Monte Carlo estimate's 99% interval, or why there is none.
 func pInterval(r *core.Result) any {
 	if mc := r.MonteCarlo; mc != nil {
-		return words{"", PValue.Format(mc.CILow) + " to " + PValue.Format(mc.CIHigh)}
+		return words{"", display.PValue.Format(mc.CILow) + " to " + display.PValue.Format(mc.CIHigh)}
 	}
 	return words{"", "not estimated (only Monte Carlo estimates p)"}
 }
@@ -183,7 +184,7 @@ func Pairs(r *core.Result) Table {
 		adjusted = "not adjusted for the number of comparisons"
 	}
 	note := fmt.Sprintf("Compared by %s; p two-sided, %s. Shift: the Hodges–Lehmann estimate of how much higher the first group lies, with its %s%% interval.",
-		ph.Method.Name(), adjusted, Figure.Format(100*ph.Confidence))
+		ph.Method.Name(), adjusted, display.Figure.Format(100*ph.Confidence))
 	return build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
 }
 

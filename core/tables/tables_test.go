@@ -9,42 +9,8 @@ import (
 	"testing"
 
 	"midrank/core"
+	"midrank/core/display"
 )
-
-func TestShow(t *testing.T) {
-	for _, c := range []struct {
-		show Show
-		v    any
-		want string
-	}{
-		{Figure, 7.9882287494437, "7.988"}, // PlantGrowth's H (R: kruskal.test, 7.9882)
-		{Figure, 5.154999999999999, "5.155"},
-		{Figure, 0.0, "0"},
-		{Figure, -2.5, "-2.5"},
-		{Figure, 123456.0, "123500"},
-		{Figure, 1234567.0, "1.235e6"},
-		{Figure, 0.00001234, "1.234e-5"},
-		{Figure, 0.0001, "0.0001"},
-		{PValue, 0.014592168144353301, "0.0146"},
-		{PValue, 5.9234e-5, "5.92e-5"},
-		{PValue, 1e-300, "1e-300"},
-		{PValue, 1.0, "1"},
-		{Share, 0.5, "0.500"},
-		{Share, -0.0626, "-0.063"},
-		{Count, 30, "30"},
-		{Count, 12.0, "12"},
-		{Flag, true, "yes"},
-		{Flag, false, "no"},
-		{Text, "ctrl", "ctrl"},
-		{AsRead, 52300.25, "52300.25"},
-		{AsRead, 4.5, "4.5"},
-		{Figure, nil, "undefined"},
-	} {
-		if got := c.show.Format(c.v); got != c.want {
-			t.Errorf("%v.Format(%v) = %q, want %q", c.show, c.v, got, c.want)
-		}
-	}
-}
 
 // plantGrowth analyses R's PlantGrowth (datasets package) as the golden
 // case writes it.
@@ -122,7 +88,7 @@ func TestEncodeIsValidJSON(t *testing.T) {
 }
 
 func TestEncodeRefusesNonFinite(t *testing.T) {
-	tab := Table{Name: "groups", Columns: []Column{{Key: "x", Heading: "X", Show: Figure}}, Rows: [][]Cell{{{Value: math.NaN(), Text: "NaN"}}}}
+	tab := Table{Name: "groups", Columns: []Column{{Key: "x", Heading: "X", Show: display.Figure}}, Rows: [][]Cell{{{Value: math.NaN(), Text: "NaN"}}}}
 	if _, err := Encode([]Table{tab}); err == nil {
 		t.Error("Encode wrote NaN without an error")
 	}
@@ -133,7 +99,7 @@ func TestEncodeRefusesNonFinite(t *testing.T) {
 func TestAColumnIsAddedInOnePlace(t *testing.T) {
 	saved := groupColumns
 	t.Cleanup(func() { groupColumns = saved })
-	groupColumns = append(slices.Clip(groupColumns), column[groupRow]{Column{"spread", "Spread", MeasureUnit, Figure},
+	groupColumns = append(slices.Clip(groupColumns), column[groupRow]{Column{"spread", "Spread", MeasureUnit, display.Figure},
 		func(g groupRow) any { return g.Q3 - g.Q1 }})
 	r := plantGrowth(t, core.Options{})
 	g := Groups(r)

@@ -31,6 +31,7 @@ import (
 	"github.com/chromedp/chromedp"
 
 	"midrank/core"
+	"midrank/core/display"
 	"midrank/core/sealed"
 	"midrank/core/tables"
 	"midrank/tools/internal/sitebuild"
@@ -246,7 +247,7 @@ func (b *browser) screenshot(t *testing.T, name string) {
 
 // shown formats a figure by the core's display policy, which the page shows.
 func shown(v float64) string {
-	return tables.Figure.Format(v)
+	return display.Figure.Format(v)
 }
 
 // smokeTest is what every way of hosting the page must pass: the demo

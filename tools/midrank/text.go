@@ -8,6 +8,7 @@ import (
 	"text/tabwriter"
 
 	"midrank/core"
+	"midrank/core/display"
 	"midrank/core/tables"
 )
 
@@ -107,7 +108,7 @@ func writeTies(w io.Writer, r *core.Result, all bool) {
 	t := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
 	fmt.Fprintln(t, "  value\tshared by\t")
 	for _, tie := range r.Page(core.ListTies, 0, show).Ties {
-		fmt.Fprintf(t, "  %s\t%d\t\n", tables.AsRead.Format(tie.Value), tie.Count)
+		fmt.Fprintf(t, "  %s\t%d\t\n", display.AsRead.Format(tie.Value), tie.Count)
 	}
 	t.Flush()
 	if show < r.TiesTotal {
@@ -123,7 +124,7 @@ func writeRanks(w io.Writer, r *core.Result) {
 	const page = 4096
 	for off := 0; off < r.N; off += page {
 		for _, v := range r.Page(core.ListRanks, off, page).Ranks {
-			fmt.Fprintf(t, "  %d\t%s\t%s\t%s\t%d\t\n", v.Line, v.Group, tables.AsRead.Format(v.Value), tables.AsRead.Format(v.Rank), v.Shared)
+			fmt.Fprintf(t, "  %d\t%s\t%s\t%s\t%d\t\n", v.Line, v.Group, display.AsRead.Format(v.Value), display.AsRead.Format(v.Rank), v.Shared)
 		}
 	}
 	t.Flush()

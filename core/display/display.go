@@ -1,4 +1,8 @@
-package tables
+// Package display is the one policy for showing numbers to people: how
+// many digits, when in powers of ten. The page, the reports, the command
+// line's text and the plain-language decision all show numbers through it;
+// CSV and JSON keep full precision.
+package display
 
 import (
 	"math"
@@ -6,10 +10,7 @@ import (
 	"strings"
 )
 
-// Show is how a column's values are shown to people. It is the one display
-// policy of the project: the page, the HTML and Markdown reports and the
-// command line's text all show the text it gives; CSV and JSON keep the
-// values at full precision.
+// Show is a way of showing a value to people.
 type Show int
 
 const (
@@ -57,7 +58,7 @@ func (s Show) Format(v any) string {
 	case float64:
 		return s.number(v)
 	}
-	panic("tables: cannot show a value of this type")
+	panic("display: cannot show a value of this type")
 }
 
 func (s Show) number(v float64) string {
