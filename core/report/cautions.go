@@ -1,0 +1,61 @@
+package report
+
+import "fmt"
+
+// Cautions are the facts the cautions of an answer speak of.
+type Cautions struct {
+	// SmallGroups are the groups with fewer than SmallGroup values, when
+	// the chi-square approximation gave p
+	SmallGroups []GroupSize
+	// PairsSkipped: pairs were asked for but not compared, there being
+	// Groups groups, more than MaxPairGroups
+	PairsSkipped          bool
+	Groups, MaxPairGroups int
+	// MonteCarlo is the 99% interval of an estimated p, nil otherwise
+	MonteCarlo *Interval
+	Alpha      float64
+	// PZero: p is below the smallest positive double
+	PZero bool
+	// HeavyTies: the tie correction, TieCorrection, is below the threshold
+	// where ties count as heavy
+	HeavyTies     bool
+	TieCorrection float64
+}
+
+// GroupSize is a group's label and its number of values.
+type GroupSize struct {
+	Label string
+	N     int
+}
+
+// Interval is a confidence interval.
+type Interval struct{ Low, High float64 }
+
+// Warnings words the cautions, most specific first.
+func Warnings(c Cautions) []string {
+	w := []string{}
+	switch small := c.SmallGroups; {
+	case len(small) > 3:
+		w = append(w, fmt.Sprintf("%d groups (%q, %q and %d more) have fewer than %d values: the chi-square approximation is rough for groups this small.",
+			len(small), small[0].Label, small[1].Label, len(small)-2, SmallGroup))
+	default:
+		for _, g := range small {
+			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, SmallGroup))
+		}
+	}
+	if c.PairsSkipped {
+		w = append(w, fmt.Sprintf("Pairs of groups were not compared: with %d groups there would be %d pairs, and pairwise comparisons are made for at most %d groups.",
+			c.Groups, c.Groups*(c.Groups-1)/2, c.MaxPairGroups))
+	}
+	if mc := c.MonteCarlo; mc != nil && Straddles(mc.Low, mc.High, c.Alpha) {
+		w = append(w, fmt.Sprintf("The Monte Carlo interval for p (%s to %s) includes the significance level %s: run more resamples for a firm decision.",
+			Number(mc.Low), Number(mc.High), Number(c.Alpha)))
+	}
+	if c.PZero {
+		w = append(w, "The p-value is below the smallest positive number a computer can hold (about 1e-308), so it is reported as 0; the true value is positive but vanishingly small.")
+	}
+	if c.HeavyTies {
+		w = append(w, fmt.Sprintf("Ties are heavy (tie correction %s): many values are shared, as on rating scales; the correction is applied.", Number(c.TieCorrection)))
+	}
+	return w
+}
