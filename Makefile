@@ -95,6 +95,7 @@ fuzz:
 	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
 	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
 	$(call fuzz-once,./core,FuzzPValues) || $(call fuzz-once,./core,FuzzPValues)
+	$(call fuzz-once,./core/tables,FuzzTables) || $(call fuzz-once,./core/tables,FuzzTables)
 
 # bench: the speed and memory benchmarks
 bench:

@@ -112,3 +112,34 @@ func TestAColumnIsAddedInOnePlace(t *testing.T) {
 		t.Errorf("added column not in the JSON: %s", b)
 	}
 }
+
+// FuzzTables: for any text that analyses, every table is whole, its JSON
+// valid, and no cell shows NaN or Inf.
+func FuzzTables(f *testing.F) {
+	f.Add("A,B,C\n1,4,7\n2,5,8\n3,6,9\n", "dunn")
+	f.Add("g,v\na,1e-300\na,2\nb,1e300\nb,-0\nc,5\nc,5\n", "mann-whitney")
+	f.Add("x\ty\n1\t1\n1\t1\n2\t\n", "none")
+	f.Fuzz(func(t *testing.T, data, posthoc string) {
+		r, err := core.Analyze([]byte(data), core.Options{PostHoc: posthoc})
+		if err != nil {
+			return
+		}
+		all := Of(r)
+		b, err := Encode(all)
+		if err != nil || !json.Valid(b) {
+			t.Fatalf("Encode: %v, valid %v", err, json.Valid(b))
+		}
+		for _, tab := range all {
+			for _, row := range tab.Rows {
+				if len(row) != len(tab.Columns) {
+					t.Fatalf("%s: %d cells for %d columns", tab.Name, len(row), len(tab.Columns))
+				}
+				for _, c := range row {
+					if strings.Contains(c.Text, "NaN") || strings.Contains(c.Text, "Inf") {
+						t.Fatalf("%s: cell shown as %q", tab.Name, c.Text)
+					}
+				}
+			}
+		}
+	})
+}

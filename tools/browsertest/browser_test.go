@@ -230,6 +230,17 @@ func markdownText(md string) string {
 	return regexp.MustCompile(`\\(.)`).ReplaceAllString(md, "$1")
 }
 
+// keep writes a downloaded file to the temporary folder, for a person to
+// look at.
+func keep(t *testing.T, name, text string) {
+	t.Helper()
+	path := filepath.Join(os.TempDir(), name)
+	if err := os.WriteFile(path, []byte(text), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("download kept for review: %s", path)
+}
+
 // screenshot saves the page as it stands to the temporary folder, for a
 // person to look at.
 func (b *browser) screenshot(t *testing.T, name string) {
@@ -310,8 +321,13 @@ func TestPage(t *testing.T) {
 	t.Run("every column of the core's tables is in the page, the CSV files and both reports", func(t *testing.T) {
 		// the tables as the core defines them: a column added there must
 		// show in each rendering, with each row's cells as the core shows them
-		report, md := b.saved(t, "save-html"), markdownText(b.saved(t, "save-markdown"))
+		report, md := b.saved(t, "save-html"), b.saved(t, "save-markdown")
 		csvs := map[string]string{"groups": b.saved(t, "save-groups"), "pairs": b.saved(t, "save-pairs")}
+		for name, text := range map[string]string{"midrank-report.html": report, "midrank-report.md": md,
+			"midrank-groups.csv": csvs["groups"], "midrank-pairs.csv": csvs["pairs"]} {
+			keep(t, name, text)
+		}
+		md = markdownText(md)
 		for _, tab := range tables.Of(want) {
 			page, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](map[string]string{
 				"figures": `[...document.querySelectorAll("#figures dt")].map((d) => d.textContent)`,

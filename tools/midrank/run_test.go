@@ -10,6 +10,8 @@ import (
 	"strings"
 	"testing"
 
+	"midrank/core"
+	"midrank/core/tables"
 	"midrank/core/testfiles"
 )
 
@@ -218,5 +220,36 @@ func TestSealedLink(t *testing.T) {
 	stderr.Reset()
 	if code := run([]string{"--open", strings.TrimSpace(link.String()), "--passphrase", "red kite"}, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "passphrase does not open") {
 		t.Errorf("--open with a wrong passphrase: exit %d, %q", code, stderr.String())
+	}
+}
+
+// TestTextShowsEveryColumn: the text report walks the core's tables, so
+// every column of their definition is there, with each cell as the core
+// shows it (R's PlantGrowth, as the golden case writes it).
+func TestTextShowsEveryColumn(t *testing.T) {
+	data, err := os.ReadFile("../../testdata/cases/plantgrowth_long.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out, stderr bytes.Buffer
+	if code := run([]string{"-"}, bytes.NewReader(data), &out, &stderr); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr.String())
+	}
+	r, err := core.Analyze(data, core.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	text := out.String()
+	for _, tab := range tables.Of(r) {
+		for i, c := range tab.Columns {
+			if !strings.Contains(text, c.Heading) {
+				t.Errorf("%s: column %q is not in the text", tab.Name, c.Heading)
+			}
+			for _, row := range tab.Rows {
+				if !strings.Contains(text, row[i].Text) {
+					t.Errorf("%s: cell %q of %q is not in the text", tab.Name, row[i].Text, c.Heading)
+				}
+			}
+		}
 	}
 }
