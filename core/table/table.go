@@ -53,6 +53,10 @@ type Options struct {
 	Separator byte // '\t', ';' or ','; 0 to detect
 	// DecimalPoint refuses the decimal comma even where it would be accepted.
 	DecimalPoint bool
+	// Group and Measure choose the columns of a long reading, each by its
+	// header or its 1-based number; "" leaves the choice to the reading.
+	// Either implies the long layout.
+	Group, Measure string
 }
 
 // Table is what was read: one entry per value in text order, and one entry
@@ -69,7 +73,13 @@ type Table struct {
 	Separator    byte   // the separator used
 	DecimalComma bool   // some value was written with a decimal comma
 	Header       bool   // long layout: the first record was a header
-	Measure      string // long layout: the header's second cell, naming what was measured
+	Measure      string // long layout: the measure column's header, naming what was measured
+
+	// long layout: the columns read, 1-based (0 in the wide layout)
+	GroupColumn, MeasureColumn int
+	Reason                     string  // why the text was read so, in one sentence
+	Others                     string  // other plausible readings, "" when there are none
+	Profile                    Profile // the text's columns
 
 	Excluded []Excluded // groups left out by Regroup, in group order
 }
@@ -92,8 +102,10 @@ func Parse(data []byte, opt Options) (*Table, error) {
 			Fix: "choose tab, semicolon or comma"}
 	}
 	comma := t.Separator != ',' && !opt.DecimalPoint
-	if t.Layout == LayoutAuto {
-		t.Layout = detectLayout(data, t.Separator, comma)
+	t.Profile = ProfileOf(data, t.Separator, comma)
+	cols, err := t.chooseColumns(data, opt, comma)
+	if err != nil {
+		return nil, err
 	}
 	// One value per line (long) or per line and column (wide) is the common
 	// case; sizing the arrays once avoids regrowing them for large inputs.
@@ -101,7 +113,7 @@ func Parse(data []byte, opt Options) (*Table, error) {
 	p := parser{t: t, r: newReader(data, t.Separator), comma: comma}
 	if t.Layout == LayoutLong {
 		t.reserve(lines)
-		return t, p.long()
+		return t, p.long(cols)
 	}
 	return t, p.wide(lines)
 }
@@ -272,8 +284,11 @@ func (p *parser) dropUnlabelled() {
 	}
 }
 
-func (p *parser) long() error {
+// long reads one value per record, its group label in column cols.group
+// and its value in column cols.measure.
+func (p *parser) long(cols longColumns) error {
 	t, r := p.t, p.r
+	t.GroupColumn, t.MeasureColumn = cols.group+1, cols.measure+1
 	index := map[string]int{}
 	lastLabel, last := []byte(nil), -1
 	first := true
@@ -286,48 +301,56 @@ func (p *parser) long() error {
 			return p.finish()
 		}
 		f := r.fields
-		if len(f) > 2 {
+		if cols.strict && len(f) > 2 {
 			if err := p.problem(&Error{Line: r.line, Column: 3, Found: quoteFound(f[2].text),
 				Reason: fmt.Sprintf("there is a third cell (%q), but the long layout has two: group label, then value", quoteFound(f[2].text)),
-				Fix:    "remove the extra cells, or choose the wide layout"}); err != nil {
+				Fix:    "remove the extra cells, or choose the group and measure columns"}); err != nil {
 				return err
 			}
 			continue
 		}
-		var value field
-		if len(f) == 2 {
-			value = f[1]
+		var label, value field
+		if cols.group < len(f) {
+			label = f[cols.group]
+		}
+		if cols.measure < len(f) {
+			value = f[cols.measure]
 		}
 		if first {
 			first = false
-			if _, kind, _ := parseCell(value.text, p.comma); kind == cellText {
+			header := cols.header == 1
+			if cols.header < 0 {
+				_, kind, _ := parseCell(value.text, p.comma)
+				header = kind == cellText
+			}
+			if header {
 				t.Header = true
 				t.Measure = value.String()
 				continue
 			}
 		}
-		if len(f[0].text) == 0 {
-			if err := p.problem(&Error{Line: r.line, Column: 1,
+		if len(label.text) == 0 {
+			if err := p.problem(&Error{Line: r.line, Column: cols.group + 1,
 				Reason: "the value has no group label",
-				Fix:    "write the group label in the first cell of the line"}); err != nil {
+				Fix:    fmt.Sprintf("write the group label in column %d of the line", cols.group+1)}); err != nil {
 				return err
 			}
 			continue
 		}
 		g := last
-		if !bytes.Equal(f[0].text, lastLabel) || f[0].escaped {
+		if !bytes.Equal(label.text, lastLabel) || label.escaped {
 			var bad error
-			if g, bad = p.groupOf(index, f[0]); bad != nil {
+			if g, bad = p.groupOf(index, label, cols.group+1); bad != nil {
 				return bad
 			}
-			lastLabel, last = f[0].text, g
-			if f[0].escaped {
+			lastLabel, last = label.text, g
+			if label.escaped {
 				lastLabel = nil
 			}
 		}
 		v, kind, usedComma := parseCell(value.text, p.comma)
 		if kind > cellMissing {
-			if err := p.problem(p.cellError(value, kind, 2, t.Labels[g])); err != nil {
+			if err := p.problem(p.cellError(value, kind, cols.measure+1, t.Labels[g])); err != nil {
 				return err
 			}
 			continue
@@ -343,7 +366,7 @@ func (p *parser) long() error {
 
 // groupOf finds or adds the group of a label; looking up a plain label
 // allocates nothing.
-func (p *parser) groupOf(index map[string]int, label field) (int, error) {
+func (p *parser) groupOf(index map[string]int, label field, column int) (int, error) {
 	t := p.t
 	if !label.escaped && len(t.Labels) <= 8 {
 		// a few comparisons beat hashing for the usual handful of groups
@@ -365,11 +388,11 @@ func (p *parser) groupOf(index map[string]int, label field) (int, error) {
 	if known {
 		return g, nil
 	}
-	if err := checkLabel(label.text, p.r.line, 1); err != nil {
+	if err := checkLabel(label.text, p.r.line, column); err != nil {
 		return 0, err
 	}
 	if len(t.Labels) == MaxGroups {
-		return 0, tooManyGroups(p.r.line, 1)
+		return 0, tooManyGroups(p.r.line, column)
 	}
 	g = len(t.Labels)
 	name := label.String()

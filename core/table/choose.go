@@ -1,0 +1,123 @@
+package table
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+)
+
+// longColumns are the columns a long reading takes its groups and values from.
+type longColumns struct {
+	group, measure int  // 0-based
+	header         int8 // the first record is a header: 1, it is not: 0, detect it: -1
+	strict         bool // a cell beyond the two columns is an error (a two-column text read as it stands)
+}
+
+// chooseColumns settles the layout of t and, for the long layout, its
+// columns: as opt chooses them, else from the profile of the text (see
+// chooseReading), else by the first-record rule of detectLayout; and says
+// why in t.Reason.
+func (t *Table) chooseColumns(data []byte, opt Options, comma bool) (longColumns, error) {
+	p := t.Profile
+	if opt.Group != "" || opt.Measure != "" {
+		return t.chosenColumns(opt)
+	}
+	cols := longColumns{group: 0, measure: 1, header: -1, strict: true}
+	switch t.Layout {
+	case LayoutLong:
+		t.Reason = "one row per value, the group then the value, as chosen"
+		return cols, nil
+	case LayoutWide:
+		t.Reason = "one column per group, as chosen"
+		return cols, nil
+	}
+	if read, ok := chooseReading(p); ok {
+		t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
+		return longColumns{group: read.Group, measure: read.Measure, header: 1, strict: len(p.Columns) <= 2}, nil
+	}
+	t.Layout = detectLayout(data, t.Separator, comma)
+	t.Reason = "one column per group, its label in the first row"
+	if t.Layout == LayoutLong {
+		t.Reason = "one row per value: the first column holds labels of groups, the second the values"
+	}
+	return cols, nil
+}
+
+// chosenColumns reads the group and measure columns opt names; the one not
+// named is the automatic reading's, or else the first (group) or last
+// (measure) other column.
+func (t *Table) chosenColumns(opt Options) (longColumns, error) {
+	if t.Layout == LayoutWide {
+		return longColumns{}, &Error{Reason: "a group or measure column is chosen, which means one row per value, but the layout chosen is one column per group",
+			Fix: "choose the layout auto or long, or leave the columns to the reading"}
+	}
+	p := t.Profile
+	t.Layout = LayoutLong
+	group, err := p.column(opt.Group, "group")
+	if err != nil {
+		return longColumns{}, err
+	}
+	measure, err := p.column(opt.Measure, "measure")
+	if err != nil {
+		return longColumns{}, err
+	}
+	auto, _ := chooseReading(p)
+	last := len(p.Columns) - 1
+	if group < 0 {
+		group = 0
+		if auto.Layout == LayoutLong && auto.Group != measure {
+			group = auto.Group
+		} else if measure == 0 {
+			group = 1
+		}
+	}
+	if measure < 0 {
+		measure = last
+		if auto.Layout == LayoutLong && auto.Measure != group {
+			measure = auto.Measure
+		} else if group == last {
+			measure = last - 1
+		}
+	}
+	if group == measure || measure < 0 {
+		return longColumns{}, &Error{Reason: fmt.Sprintf("the group and the measure are both column %s", strconv.Quote(p.Columns[group].Name)),
+			Fix: "choose two different columns: one holding the groups, one the values"}
+	}
+	t.Reason = fmt.Sprintf("groups from column %s and values from column %s, as chosen",
+		strconv.Quote(p.Columns[group].Name), strconv.Quote(p.Columns[measure].Name))
+	header := int8(-1)
+	if p.Header {
+		header = 1
+	}
+	return longColumns{group: group, measure: measure, header: header}, nil
+}
+
+// column finds the column ref names: its 1-based number, else its header
+// (exactly, then in any letter case); -1 when ref is "".
+func (p Profile) column(ref, role string) (int, error) {
+	ref = strings.TrimSpace(ref)
+	if ref == "" {
+		return -1, nil
+	}
+	if n, err := strconv.Atoi(ref); err == nil && n >= 1 && n <= len(p.Columns) {
+		return n - 1, nil
+	}
+	if p.Header {
+		for c, col := range p.Columns {
+			if col.Name == ref {
+				return c, nil
+			}
+		}
+		for c, col := range p.Columns {
+			if strings.EqualFold(col.Name, ref) {
+				return c, nil
+			}
+		}
+	}
+	names := make([]string, len(p.Columns))
+	for c, col := range p.Columns {
+		names[c] = strconv.Quote(col.Name)
+	}
+	return -1, &Error{Reason: fmt.Sprintf("there is no column %s for the %s", strconv.Quote(ref), role),
+		Fix: fmt.Sprintf("name a column by its header or its number from 1 to %d: %s", len(p.Columns), strings.Join(names, ", "))}
+}

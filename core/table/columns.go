@@ -1,0 +1,278 @@
+package table
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+)
+
+// ProfileRecords is how many records below the first a column profile looks
+// at: enough to tell a column of codes from a column of measurements, few
+// enough that a profile costs nothing next to the reading itself.
+const ProfileRecords = 1000
+
+// MaxCodes is the most different whole numbers a column of group codes
+// holds (department, site or grade codes): a column with more is read as
+// measurements.
+const MaxCodes = 20
+
+// ColumnProfile describes a column from the first ProfileRecords records
+// below the first record.
+type ColumnProfile struct {
+	Name     string // the header cell, or "column N" when the first record is not a header
+	Numbers  int    // cells that are numbers
+	Text     int    // cells that are neither numbers nor missing markers
+	Blanks   int    // empty cells and missing markers, in records that reach the column
+	Distinct int    // different cells that are not blank
+	Whole    bool   // some cell is a number and every number is a whole number
+	Counting bool   // the numbers count up by one from the first (1, 2, 3…): a row number
+}
+
+// kind is what a column looks like to the automatic reading. A cell that
+// cannot be read in a column of numbers (a typo) does not change it.
+func (c ColumnProfile) kind() columnKind {
+	switch {
+	case c.Text > c.Numbers && c.Text >= 2:
+		return labelColumn // text on two rows or more: group labels
+	case c.Numbers == 0:
+		return otherColumn
+	case c.Text == 0 && c.Counting && c.Numbers > MaxCodes:
+		return rowNumberColumn
+	case c.Text == 0 && c.Whole && c.Distinct <= MaxCodes && 2*c.Distinct <= c.Numbers:
+		return codeColumn // a few whole numbers, each on two rows or more on average: group codes
+	case c.Numbers >= c.Text:
+		return measureColumn
+	}
+	return otherColumn
+}
+
+type columnKind uint8
+
+const (
+	otherColumn columnKind = iota
+	labelColumn
+	codeColumn
+	measureColumn
+	rowNumberColumn
+)
+
+// Profile describes the columns of a text: whether its first record is a
+// header (it holds text and no number), and each column's cells among the
+// first ProfileRecords records below it.
+type Profile struct {
+	Header  bool
+	Columns []ColumnProfile
+	Records int  // records looked at below the first
+	Whole   bool // the profile covers every record of the text
+}
+
+// ProfileOf profiles data read with the given separator and decimal mark.
+func ProfileOf(data []byte, sep byte, comma bool) Profile {
+	r := newReader(data, sep)
+	var p Profile
+	ok, _ := r.read()
+	if !ok {
+		return Profile{Whole: true}
+	}
+	numbers := 0
+	first := make([]string, len(r.fields))
+	for i, f := range r.fields {
+		first[i] = f.String()
+		if _, kind, _ := parseCell(f.text, comma); kind == cellNumber {
+			numbers++
+		}
+	}
+	p.Header = numbers == 0
+	var seen []map[string]bool
+	var last []float64
+	grow := func(n int) {
+		for len(p.Columns) < n {
+			c := len(p.Columns)
+			p.Columns = append(p.Columns, ColumnProfile{Whole: true, Counting: true, Blanks: p.Records})
+			seen = append(seen, map[string]bool{})
+			last = append(last, math.NaN())
+			if !p.Header {
+				seen[c][first[min(c, len(first)-1)]] = c < len(first)
+			}
+		}
+	}
+	grow(len(first))
+	if !p.Header {
+		p.count(first, seen, last, comma)
+	}
+	for p.Records < ProfileRecords {
+		if ok, err := r.read(); err != nil || !ok {
+			p.Whole = true
+			break
+		}
+		p.Records++
+		cells := make([]string, len(r.fields))
+		for i, f := range r.fields {
+			cells[i] = f.String()
+		}
+		grow(len(cells))
+		p.count(cells, seen, last, comma)
+	}
+	if !p.Whole {
+		ok, _ := r.read()
+		p.Whole = !ok
+	}
+	for c := range p.Columns {
+		col := &p.Columns[c]
+		col.Name = fmt.Sprintf("column %d", c+1)
+		if p.Header && c < len(first) && first[c] != "" {
+			col.Name = first[c]
+		}
+		col.Whole = col.Whole && col.Numbers > 0
+		col.Counting = col.Counting && col.Numbers > 0
+	}
+	return p
+}
+
+// count adds one record's cells to the profile.
+func (p *Profile) count(cells []string, seen []map[string]bool, last []float64, comma bool) {
+	for c := range p.Columns {
+		col := &p.Columns[c]
+		if c >= len(cells) {
+			col.Blanks++
+			continue
+		}
+		v, kind, _ := parseCell([]byte(cells[c]), comma)
+		switch kind {
+		case cellMissing:
+			col.Blanks++
+			continue
+		case cellNumber, cellInfinite:
+			col.Numbers++
+			col.Whole = col.Whole && kind == cellNumber && v == math.Trunc(v)
+			col.Counting = col.Counting && (math.IsNaN(last[c]) || v == last[c]+1)
+			last[c] = v
+		default:
+			col.Text++
+		}
+		if !seen[c][cells[c]] {
+			seen[c][cells[c]] = true
+			col.Distinct++
+		}
+	}
+}
+
+// Reading is an automatic choice of the layout and, for a long reading,
+// of the group and measure columns, with its reason and the other readings
+// that are plausible too.
+type Reading struct {
+	Layout         Layout
+	Group, Measure int    // 0-based columns of a long reading
+	Reason         string // why this reading, in one sentence
+	Others         string // the other plausible readings, "" when there are none
+}
+
+// chooseReading picks the reading of a text whose first record is a
+// header, from its profile:
+//
+//   - a column of repeated text labels holds the groups (the first such
+//     column), or else a column of a few repeated whole numbers, codes of
+//     groups (the first such column), when another column holds the values:
+//     the measurement column with the most different values (the rightmost on
+//     a tie), or else the last other code column;
+//   - otherwise each column is a group.
+//
+// A row-number column (1, 2, 3…) is never chosen. ok is false when the
+// first record is not a header.
+func chooseReading(p Profile) (read Reading, ok bool) {
+	if !p.Header || len(p.Columns) == 0 {
+		return Reading{}, false
+	}
+	var labels, codes, measures []int
+	for c, col := range p.Columns {
+		switch col.kind() {
+		case labelColumn:
+			labels = append(labels, c)
+		case codeColumn:
+			codes = append(codes, c)
+		case measureColumn:
+			measures = append(measures, c)
+		}
+	}
+	// a column whose labels repeat before one whose labels are all different (names, identifiers)
+	allDifferent := func(c int) int {
+		if p.Columns[c].Distinct == p.Columns[c].Text {
+			return 1
+		}
+		return 0
+	}
+	slices.SortStableFunc(labels, func(a, b int) int { return cmp.Compare(allDifferent(a), allDifferent(b)) })
+	name := func(c int) string { return strconv.Quote(p.Columns[c].Name) }
+	wide := Reading{Layout: LayoutWide, Reason: "one column per group: no column holds repeated labels or codes of groups beside a column of values"}
+	switch {
+	case len(labels) == 0 && len(measures) > 0 && len(codes) == 0:
+		return wide, true
+	case len(labels) == 0 && len(measures) == 0:
+		// every column a few whole numbers: ratings of one group a column, or codes beside ratings
+		wide.Reason = "one column per group: every column holds a few whole numbers, as ratings do"
+		if len(codes) == 2 {
+			wide.Others = fmt.Sprintf("groups from %s (%d codes) and values from %s", name(codes[0]), p.Columns[codes[0]].Distinct, name(codes[1]))
+		}
+		return wide, true
+	}
+	groups := append(labels, codes...)
+	group := groups[0]
+	values := measures
+	if len(values) == 0 { // values from the last other code column
+		for _, c := range codes {
+			if c != group {
+				values = []int{c}
+			}
+		}
+	}
+	if len(values) == 0 {
+		return wide, true
+	}
+	measure := values[0]
+	for _, m := range values[1:] {
+		if p.Columns[m].Distinct >= p.Columns[measure].Distinct {
+			measure = m
+		}
+	}
+	read = Reading{Layout: LayoutLong, Group: group, Measure: measure}
+	if p.Columns[group].kind() == labelColumn {
+		read.Reason = fmt.Sprintf("groups from column %s, which holds %d different labels; values from column %s",
+			name(group), p.Columns[group].Distinct, name(measure))
+	} else {
+		read.Reason = fmt.Sprintf("groups from column %s, which holds %d different whole numbers, each on several rows: codes of groups, not measurements; values from column %s",
+			name(group), p.Columns[group].Distinct, name(measure))
+	}
+	var others []string
+	for _, g := range groups[1:] {
+		if g != measure && (len(labels) == 0 || p.Columns[g].kind() == labelColumn) {
+			others = append(others, fmt.Sprintf("groups from %s (%d different)", name(g), p.Columns[g].Distinct))
+		}
+	}
+	for _, m := range measures {
+		if m != measure {
+			others = append(others, "values from "+name(m))
+		}
+	}
+	if len(labels) == 0 && len(p.Columns) == 2 {
+		others = append(others, "one column per group (2 groups)")
+	}
+	if len(others) > 0 {
+		read.Others = joinOr(others)
+	}
+	return read, true
+}
+
+// joinOr lists choices: "a", "a or b", "a, b or c".
+func joinOr(items []string) string {
+	switch len(items) {
+	case 1:
+		return items[0]
+	}
+	s := items[0]
+	for _, it := range items[1 : len(items)-1] {
+		s += ", " + it
+	}
+	return s + " or " + items[len(items)-1]
+}
