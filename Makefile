@@ -87,6 +87,7 @@ check-core:
 # failure leaves its input in testdata/fuzz, fails again, and from then on fails make test until it is fixed.
 fuzz:
 	$(call fuzz-once,./core/table,FuzzParse) || $(call fuzz-once,./core/table,FuzzParse)
+	$(call fuzz-once,./core/table,FuzzColumns) || $(call fuzz-once,./core/table,FuzzColumns)
 	$(call fuzz-once,./core,FuzzAnalyze) || $(call fuzz-once,./core,FuzzAnalyze)
 	$(call fuzz-once,./core/rank,FuzzRank) || $(call fuzz-once,./core/rank,FuzzRank)
 	$(call fuzz-once,./core/link,FuzzDecode) || $(call fuzz-once,./core/link,FuzzDecode)

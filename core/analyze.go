@@ -60,7 +60,13 @@ type Input struct {
 	DecimalMark string `json:"decimal_mark"` // point or comma
 	Header      bool   `json:"header"`       // long layout: the first line was a header
 	Measure     string `json:"measure"`      // long layout: what the header calls the values
-	Excluded    []Left `json:"excluded"`     // groups left out by request, in data order
+	// long layout: the columns of the groups and of the values, by header
+	// (or "column N"); "" in the wide layout
+	GroupColumn   string  `json:"group_column"`
+	MeasureColumn string  `json:"measure_column"`
+	Reason        string  `json:"reason"`         // why the text was read so
+	OtherReadings *string `json:"other_readings"` // other plausible readings, null when there are none
+	Excluded      []Left  `json:"excluded"`       // groups left out by request, in data order
 }
 
 // LeftLabels lists the labels of the groups left out.
@@ -275,7 +281,13 @@ func checkGroups(t *table.Table, sizes []int) error {
 }
 
 func describeInput(t *table.Table) Input {
-	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure, Excluded: []Left{}}
+	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure, Reason: t.Reason, Excluded: []Left{}}
+	if t.GroupColumn > 0 {
+		in.GroupColumn, in.MeasureColumn = t.Profile.Columns[t.GroupColumn-1].Name, t.Profile.Columns[t.MeasureColumn-1].Name
+	}
+	if t.Others != "" {
+		in.OtherReadings = &t.Others
+	}
 	for _, e := range t.Excluded {
 		in.Excluded = append(in.Excluded, Left{Label: e.Label, N: e.Values, Missing: e.Missing})
 	}

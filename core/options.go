@@ -20,6 +20,8 @@ type Options struct {
 	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long
 	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
 	Decimal   string  `json:"decimal,omitempty"`   // auto (default: comma accepted unless comma separates), point
+	Group     string  `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
+	Measure   string  `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
 	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
 	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
 	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples, default 100,000
@@ -99,7 +101,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 		if v.Kind == jsonlite.Null {
 			continue
 		}
-		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal,
+		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "group": &o.Group, "measure": &o.Measure,
 			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
@@ -198,7 +200,7 @@ func (o Options) JSON() []byte {
 // write appends the options that differ from the defaults, with the names
 // of their json tags, as members of an open object.
 func (o Options) write(w *jsonlite.Writer) {
-	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}} {
+	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"group", o.Group}, {"measure", o.Measure}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -263,6 +265,7 @@ func (o Options) validate() (settings, error) {
 		return s, &OptionError{"layout", o.Layout, "choose auto, wide or long"}
 	}
 	s.read.Layout = layout
+	s.read.Group, s.read.Measure = o.Group, o.Measure
 	switch o.Separator {
 	case "", "auto":
 	case "tab":

@@ -8,6 +8,7 @@ import "midrank/core/report"
 // heavy ties.
 func warnings(r *Result) []string {
 	c := report.Cautions{
+		Reading:       r.Input.Reason,
 		PairsSkipped:  r.K > MaxPairGroups && r.PostHoc == nil && r.pairsAsked,
 		Groups:        r.K,
 		MaxPairGroups: MaxPairGroups,
@@ -22,6 +23,9 @@ func warnings(r *Result) []string {
 				c.SmallGroups = append(c.SmallGroups, report.GroupSize{Label: g.Label, N: g.N})
 			}
 		}
+	}
+	if o := r.Input.OtherReadings; o != nil {
+		c.OtherReadings = *o
 	}
 	if mc := r.MonteCarlo; mc != nil {
 		c.MonteCarlo = &report.Interval{Low: mc.CILow, High: mc.CIHigh}

@@ -4,6 +4,9 @@ import "fmt"
 
 // Cautions are the facts the cautions of an answer speak of.
 type Cautions struct {
+	// Reading is why the text was read as it was, and OtherReadings the
+	// other plausible readings ("" when there are none)
+	Reading, OtherReadings string
 	// SmallGroups are the groups with fewer than SmallGroup values, when
 	// the chi-square approximation gave p
 	SmallGroups []GroupSize
@@ -34,6 +37,10 @@ type Interval struct{ Low, High float64 }
 // Warnings words the cautions, most specific first.
 func Warnings(c Cautions) []string {
 	w := []string{}
+	if c.OtherReadings != "" {
+		w = append(w, fmt.Sprintf("The text was read with %s. It could also be read with %s: if that is meant, choose the group and measure columns (on the command line --group and --measure).",
+			c.Reading, c.OtherReadings))
+	}
 	switch small := c.SmallGroups; {
 	case len(small) > 3:
 		w = append(w, fmt.Sprintf("%d groups (%q, %q and %d more) have fewer than %d values: the chi-square approximation is rough for groups this small.",

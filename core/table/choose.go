@@ -53,6 +53,10 @@ func (t *Table) chosenColumns(opt Options) (longColumns, error) {
 	}
 	p := t.Profile
 	t.Layout = LayoutLong
+	if len(p.Columns) < 2 {
+		return longColumns{}, &Error{Reason: fmt.Sprintf("a group and a measure column are read from the text, but it has %d column", len(p.Columns)),
+			Fix: "paste or open a table with a column of groups and a column of values"}
+	}
 	group, err := p.column(opt.Group, "group")
 	if err != nil {
 		return longColumns{}, err
@@ -79,7 +83,7 @@ func (t *Table) chosenColumns(opt Options) (longColumns, error) {
 			measure = last - 1
 		}
 	}
-	if group == measure || measure < 0 {
+	if group == measure {
 		return longColumns{}, &Error{Reason: fmt.Sprintf("the group and the measure are both column %s", strconv.Quote(p.Columns[group].Name)),
 			Fix: "choose two different columns: one holding the groups, one the values"}
 	}

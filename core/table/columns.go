@@ -38,8 +38,8 @@ func (c ColumnProfile) kind() columnKind {
 		return labelColumn // text on two rows or more: group labels
 	case c.Numbers == 0:
 		return otherColumn
-	case c.Text == 0 && c.Counting && c.Numbers > MaxCodes:
-		return rowNumberColumn
+	case c.Text == 0 && c.Counting && c.Numbers >= 3:
+		return rowNumberColumn // 1, 2, 3…: in the first column, an identifier
 	case c.Text == 0 && c.Whole && c.Distinct <= MaxCodes && 2*c.Distinct <= c.Numbers:
 		return codeColumn // a few whole numbers, each on two rows or more on average: group codes
 	case c.Numbers >= c.Text:
@@ -179,7 +179,7 @@ type Reading struct {
 //     a tie), or else the last other code column;
 //   - otherwise each column is a group.
 //
-// A row-number column (1, 2, 3…) is never chosen. ok is false when the
+// A first column of row numbers (1, 2, 3…) is never chosen. ok is false when the
 // first record is not a header.
 func chooseReading(p Profile) (read Reading, ok bool) {
 	if !p.Header || len(p.Columns) == 0 {
@@ -192,6 +192,10 @@ func chooseReading(p Profile) (read Reading, ok bool) {
 			labels = append(labels, c)
 		case codeColumn:
 			codes = append(codes, c)
+		case rowNumberColumn:
+			if c > 0 { // counting values are row numbers only in the first column
+				measures = append(measures, c)
+			}
 		case measureColumn:
 			measures = append(measures, c)
 		}

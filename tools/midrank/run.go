@@ -29,7 +29,9 @@ const (
 const usage = `usage: midrank [flags] FILE
 Compares three or more independent groups with the Kruskal–Wallis H test.
 FILE is delimited text in the wide layout (one column per group, labels in
-the first line) or the long layout (group label, value); - reads standard input.
+the first line) or the long layout (one row per value: a column of group
+labels or codes and a column of values, chosen with --group and --measure
+or by the reading, which says why); - reads standard input.
 
 flags:
 `
@@ -60,6 +62,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	passphrase := fs.String("passphrase", "", "with --link: seal the link with this passphrase; with --open: the passphrase of a sealed link (also read from MIDRANK_PASSPHRASE)")
 	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide or long")
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
+	fs.StringVar(&opt.Group, "group", "", "the column of group labels or codes, by its header or its number from 1 (implies one row per value)")
+	fs.StringVar(&opt.Measure, "measure", "", "the column of values, by its header or its number from 1 (implies one row per value)")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (a decimal comma is read unless comma separates) or point")
 	fs.Func("alpha", fmt.Sprintf("significance level, strictly between 0 and 1 (default %v)", core.DefaultAlpha), func(v string) error {
 		f, err := decimal(v)

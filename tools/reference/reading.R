@@ -1,0 +1,34 @@
+# Writes R datasets as analysts' exports (testdata/reading/) and the
+# Kruskal-Wallis figures R's kruskal.test gives for the intended reading
+# (testdata/reading/expected.tsv). Run from the project root:
+#   Rscript tools/reference/reading.R
+out <- "testdata/reading"
+cw <- ChickWeight
+files <- list(
+  # write.csv as R writes it: quoted row names in an unnamed first column
+  list(file = "morley.csv", write = function(f) write.csv(morley, f), group = "Expt", measure = "Speed", data = morley),
+  # the two columns only, as a spreadsheet exports them
+  list(file = "morley_expt_speed.csv", write = function(f) write.csv(morley[, c("Expt", "Speed")], f, row.names = FALSE),
+       group = "Expt", measure = "Speed", data = morley),
+  list(file = "npk.csv", write = function(f) write.csv(npk, f), group = "block", measure = "yield", data = npk),
+  # tab-separated with a decimal comma, as a spreadsheet in many locales saves it
+  list(file = "npk_decimal_comma.tsv", write = function(f) write.table(npk, f, sep = "\t", dec = ",", row.names = FALSE, quote = FALSE),
+       group = "block", measure = "yield", data = npk),
+  # an export with an id column and text group labels
+  list(file = "chickweight_id_diet_weight.csv",
+       write = function(f) write.csv(data.frame(id = seq_len(nrow(cw)), Diet = paste("Diet", cw$Diet), weight = cw$weight), f, row.names = FALSE),
+       group = "Diet", measure = "weight", data = cw),
+  # every column, the measure first: the reading must be chosen by name
+  list(file = "chickweight.csv", write = function(f) write.csv(cw, f, row.names = FALSE), group = "Diet", measure = "weight", data = cw),
+  list(file = "orchardsprays.csv", write = function(f) write.csv(OrchardSprays, f, row.names = FALSE),
+       group = "treatment", measure = "decrease", data = OrchardSprays)
+)
+rows <- character()
+for (x in files) {
+  x$write(file.path(out, x$file))
+  k <- kruskal.test(x$data[[x$measure]], factor(x$data[[x$group]]))
+  rows <- c(rows, paste(x$file, x$group, x$measure, length(unique(x$data[[x$group]])), sum(!is.na(x$data[[x$measure]])),
+                        sprintf("%.15g", k$statistic), k$parameter, sprintf("%.15g", k$p.value),
+                        paste("R", getRversion(), "kruskal.test"), sep = "\t"))
+}
+writeLines(c("file\tgroup\tmeasure\tk\tn\th\tdf\tp\tsource", rows), file.path(out, "expected.tsv"))
