@@ -19,6 +19,7 @@ type Preview struct {
 	Input    Input           `json:"input"`
 	Rows     []PreviewRow    `json:"rows"`
 	Groups   []Left          `json:"groups"`   // in data order, labels as written
+	Columns  table.Profile   `json:"columns"`  // the text's columns, to choose the group and measure columns from
 	Problems []ProblemDetail `json:"problems"` // data problems, with their places
 	Option   *string         `json:"option"`   // the setting that cannot be used, if any
 	Message  *string         `json:"message"`  // what is wrong, if anything
@@ -59,7 +60,8 @@ func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Pre
 // read validates the options, reads the text and describes it; the table
 // is nil when the text cannot be analysed.
 func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
-	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Problems: []ProblemDetail{}}
+	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Columns: table.Profile{Columns: []table.ColumnProfile{}},
+		Problems: []ProblemDetail{}}
 	s, err := opt.validate()
 	if err == nil {
 		for _, r := range table.Records(data, s.read.Separator, PreviewRows) {
@@ -68,6 +70,7 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 		var t *table.Table
 		if t, err = table.Parse(data, s.read); t != nil {
 			p.Input = describeInput(t) // how it was read, even when reading stopped
+			p.Columns = t.Profile
 		}
 		var ps table.Problems
 		if t != nil && (err == nil || errors.As(err, &ps)) {
@@ -88,6 +91,28 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 	return p, s, nil, err
 }
 
+// writeProfile writes the columns of a text as
+// {"header", "records", "whole", "list": [{"name", "numbers", "text", "blanks", "distinct"}, …]}.
+func writeProfile(w *jsonlite.Writer, p table.Profile) {
+	w.BeginObject()
+	w.BoolMember("header", p.Header)
+	w.IntMember("records", p.Records)
+	w.BoolMember("whole", p.Whole)
+	w.Key("list")
+	w.BeginArray()
+	for _, c := range p.Columns {
+		w.BeginObject()
+		w.StringMember("name", c.Name)
+		w.IntMember("numbers", c.Numbers)
+		w.IntMember("text", c.Text)
+		w.IntMember("blanks", c.Blanks)
+		w.IntMember("distinct", c.Distinct)
+		w.EndObject()
+	}
+	w.EndArray()
+	w.EndObject()
+}
+
 // EncodePreview renders a preview as JSON.
 func EncodePreview(p Preview) []byte {
 	var w jsonlite.Writer
@@ -106,6 +131,8 @@ func EncodePreview(p Preview) []byte {
 	w.EndArray()
 	w.Key("groups")
 	writeLeft(&w, p.Groups)
+	w.Key("columns")
+	writeProfile(&w, p.Columns)
 	w.Key("problems")
 	writeProblems(&w, p.Problems)
 	w.Key("option")

@@ -205,7 +205,7 @@ wireReports();
 wireShare(bridge.ask, openLink);
 $("analyse").addEventListener("click", analyse);
 $("cancel").addEventListener("click", cancel);
-$("data").addEventListener("input", () => { keep(); reanalyseSoon(400); });
+$("data").addEventListener("input", () => { $("demo-note").hidden = true; keep(); reanalyseSoon(400); });
 // a changed setting counts at once; a new way of reading the text also shows its preview
 for (const f of fields) $(f).addEventListener("change", () => { keep(); reanalyseSoon(0); });
 $("undo").addEventListener("click", () => undoEdit(state));

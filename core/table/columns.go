@@ -21,13 +21,13 @@ const MaxCodes = 20
 // ColumnProfile describes a column from the first ProfileRecords records
 // below the first record.
 type ColumnProfile struct {
-	Name     string // the header cell, or "column N" when the first record is not a header
-	Numbers  int    // cells that are numbers
-	Text     int    // cells that are neither numbers nor missing markers
-	Blanks   int    // empty cells and missing markers, in records that reach the column
-	Distinct int    // different cells that are not blank
-	Whole    bool   // some cell is a number and every number is a whole number
-	Counting bool   // the numbers count up by one from the first (1, 2, 3…): a row number
+	Name     string `json:"name"`     // the header cell, or "column N" when the first record is not a header
+	Numbers  int    `json:"numbers"`  // cells that are numbers
+	Text     int    `json:"text"`     // cells that are neither numbers nor missing markers
+	Blanks   int    `json:"blanks"`   // empty cells and missing markers, in records that reach the column
+	Distinct int    `json:"distinct"` // different cells that are not blank
+	Whole    bool   `json:"-"`        // some cell is a number and every number is a whole number
+	Counting bool   `json:"-"`        // the numbers count up by one from the first (1, 2, 3…): a row number
 }
 
 // kind is what a column looks like to the automatic reading. A cell that
@@ -62,10 +62,10 @@ const (
 // header (it holds text and no number), and each column's cells among the
 // first ProfileRecords records below it.
 type Profile struct {
-	Header  bool
-	Columns []ColumnProfile
-	Records int  // records looked at below the first
-	Whole   bool // the profile covers every record of the text
+	Header  bool            `json:"header"`
+	Records int             `json:"records"` // records looked at below the first
+	Whole   bool            `json:"whole"`   // the profile covers every record of the text
+	Columns []ColumnProfile `json:"list"`
 }
 
 // ProfileOf profiles data read with the given separator and decimal mark.
@@ -74,7 +74,7 @@ func ProfileOf(data []byte, sep byte, comma bool) Profile {
 	var p Profile
 	ok, _ := r.read()
 	if !ok {
-		return Profile{Whole: true}
+		return Profile{Whole: true, Columns: []ColumnProfile{}}
 	}
 	numbers := 0
 	first := make([]string, len(r.fields))

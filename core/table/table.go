@@ -85,7 +85,9 @@ type Table struct {
 }
 
 // Parse reads text in the given layout. A UTF-8 byte-order mark is ignored.
-// The text is not copied; the returned Table does not refer to it.
+// The text is not copied; the returned Table does not refer to it. When the
+// columns chosen cannot be used, the error comes with a Table holding only
+// how far the reading got: its separator and the profile of its columns.
 func Parse(data []byte, opt Options) (*Table, error) {
 	if err := checkSize(data); err != nil {
 		return nil, err
@@ -105,7 +107,7 @@ func Parse(data []byte, opt Options) (*Table, error) {
 	t.Profile = ProfileOf(data, t.Separator, comma)
 	cols, err := t.chooseColumns(data, opt, comma)
 	if err != nil {
-		return nil, err
+		return t, err // the profile still shows the columns to choose from
 	}
 	// One value per line (long) or per line and column (wide) is the common
 	// case; sizing the arrays once avoids regrowing them for large inputs.

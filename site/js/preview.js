@@ -2,9 +2,10 @@
 // every unreadable cell marked and listed with the core's message.
 import { $ } from "./dom.js";
 import { selectLine } from "./input.js";
+import { fillColumns } from "./settings.js";
 
 const separatorNames = { tab: "tab-separated", semicolon: "semicolon-separated", comma: "comma-separated" };
-const layoutNames = { wide: "one column per group", long: "group, value per row" };
+const layoutNames = { wide: "one column per group", long: "one row per value" };
 
 export function renderPreview(state, changed) {
   if (!changed.has("preview") || !state.preview) return;
@@ -14,6 +15,9 @@ export function renderPreview(state, changed) {
     : layoutNames[input.layout] + ", " + separatorNames[input.separator] + ", decimal " + input.decimal_mark
       + (p.groups.length ? ", " + p.groups.length + " groups" : "")
       + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
+  $("read-reason").textContent = !input.reason ? "" : "Read with " + input.reason + "."
+    + (input.other_readings ? " It could also be read with " + input.other_readings + ": if that is meant, choose the columns above." : "");
+  fillColumns(p.columns);
   const marks = new Map(); // "line:column" → message
   for (const q of p.problems) if (q.line && q.column) marks.set(q.line + ":" + q.column, q.message);
   const width = Math.max(1, ...p.rows.map((r) => r.cells.length));

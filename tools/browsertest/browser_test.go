@@ -410,6 +410,33 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a table of many columns: the reading says why, and the columns are chosen in menus", func(t *testing.T) {
+		// R's ChickWeight as write.csv writes it: its first code column is
+		// Time, so the reading offers Diet, which the analyst then chooses
+		data, err := os.ReadFile("../../testdata/reading/chickweight.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		if got := b.text(t, "#read-reason"); !strings.Contains(got, `groups from column "Time"`) || !strings.Contains(got, `groups from "Diet"`) {
+			t.Errorf("the reading says %q, want Time read and Diet offered", got)
+		}
+		menu, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.getElementById("group").options].map((o) => o.text)`))
+		if err != nil || len(menu) != 5 || !strings.HasPrefix(menu[4], "Diet (4 different, 578 numbers, 0 blank") {
+			t.Errorf("group menu %q (%v), want every column with what it holds", menu, err)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("status").textContent = "";
+			const g = document.getElementById("group"); g.value = "Diet"; g.dispatchEvent(new Event("change")); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+		// R 4.2.2: kruskal.test(weight ~ Diet, ChickWeight): chi-squared = 24.45, df = 3 (testdata/reading/expected.tsv)
+		if h, df := b.text(t, `[data-result="h"]`), b.text(t, `[data-result="df"]`); h != "24.45" || df != "3" {
+			t.Errorf("with Diet chosen: H %s on %s df, want R's 24.45 on 3", h, df)
+		}
+		b.screenshot(t, "midrank-columns-chosen.png")
+	})
+
 	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
 		data := "A,B,C\n3,8,2\n5,6,1\n4,9,3\n"
 		r, err := core.Analyze([]byte(data), core.Options{})
