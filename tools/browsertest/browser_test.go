@@ -435,6 +435,11 @@ func TestPage(t *testing.T) {
 			t.Errorf("with Diet chosen: H %s on %s df, want R's 24.45 on 3", h, df)
 		}
 		b.screenshot(t, "midrank-columns-chosen.png")
+		// the choice is the analyst's until they undo it: back to the reading's
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`const c = document.getElementById("group"); c.value = ""; c.dispatchEvent(new Event("change")); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && document.querySelector('[data-result="df"]').textContent === "11"`)
 	})
 
 	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
