@@ -50,7 +50,7 @@ test-unit:
 # test-go: the Go tests natively, the browser tests in headless Chromium among them. The packages that
 # build the module in a child process run every time (-count=1): Go's test cache cannot see those inputs.
 test-go: test-unit
-	$(GO) test -count=1 $(FRESH)
+	$(GO) test -count=1 -timeout 30m $(FRESH)
 
 # test-wasm: the core and the module's tests compiled to js/wasm and run under Node
 test-wasm:

@@ -58,6 +58,7 @@ type Input struct {
 	Layout      string `json:"layout"`       // wide or long
 	Separator   string `json:"separator"`    // tab, semicolon or comma
 	DecimalMark string `json:"decimal_mark"` // point or comma
+	Thousands   string `json:"thousands"`    // the thousands separator: none, comma, point, space or apostrophe
 	Header      bool   `json:"header"`       // long layout: the first line was a header
 	Measure     string `json:"measure"`      // long layout: what the header calls the values
 	// long layout: the columns of the groups and of the values, by header
@@ -66,7 +67,10 @@ type Input struct {
 	MeasureColumn string  `json:"measure_column"`
 	Reason        string  `json:"reason"`         // why the text was read so
 	OtherReadings *string `json:"other_readings"` // other plausible readings, null when there are none
-	Excluded      []Left  `json:"excluded"`       // groups left out by request, in data order
+	// OtherNumbers: cells whose marks could be read two ways, and the other
+	// way; null when there are none
+	OtherNumbers *string `json:"other_numbers"`
+	Excluded     []Left  `json:"excluded"` // groups left out by request, in data order
 }
 
 // LeftLabels lists the labels of the groups left out.
@@ -281,12 +285,15 @@ func checkGroups(t *table.Table, sizes []int) error {
 }
 
 func describeInput(t *table.Table) Input {
-	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Header: t.Header, Measure: t.Measure, Reason: t.Reason, Excluded: []Left{}}
+	in := Input{Layout: t.Layout.String(), DecimalMark: "point", Thousands: t.Thousands.String(), Header: t.Header, Measure: t.Measure, Reason: t.Reason, Excluded: []Left{}}
 	if t.GroupColumn > 0 {
 		in.GroupColumn, in.MeasureColumn = t.Profile.Columns[t.GroupColumn-1].Name, t.Profile.Columns[t.MeasureColumn-1].Name
 	}
 	if t.Others != "" {
 		in.OtherReadings = &t.Others
+	}
+	if t.OtherNumbers != "" {
+		in.OtherNumbers = &t.OtherNumbers
 	}
 	for _, e := range t.Excluded {
 		in.Excluded = append(in.Excluded, Left{Label: e.Label, N: e.Values, Missing: e.Missing})

@@ -19,7 +19,8 @@ import (
 type Options struct {
 	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long
 	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
-	Decimal   string  `json:"decimal,omitempty"`   // auto (default: comma accepted unless comma separates), point
+	Decimal   string  `json:"decimal,omitempty"`   // auto (default), point, comma
+	Thousands string  `json:"thousands,omitempty"` // auto (default), none, comma, point, space, apostrophe
 	Group     string  `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
 	Measure   string  `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
 	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
@@ -60,7 +61,7 @@ func (o Options) ForLabels(labels []string) Options {
 // page to show: the one place the defaults are kept is here.
 func Defaults() Options {
 	seed := uint64(DefaultSeed)
-	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Alpha: DefaultAlpha, PValue: Keys("pvalue")[0],
+	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Thousands: "auto", Alpha: DefaultAlpha, PValue: Keys("pvalue")[0],
 		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0]}
 }
 
@@ -101,7 +102,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 		if v.Kind == jsonlite.Null {
 			continue
 		}
-		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "group": &o.Group, "measure": &o.Measure,
+		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure,
 			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
@@ -200,7 +201,7 @@ func (o Options) JSON() []byte {
 // write appends the options that differ from the defaults, with the names
 // of their json tags, as members of an open object.
 func (o Options) write(w *jsonlite.Writer) {
-	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"group", o.Group}, {"measure", o.Measure}} {
+	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"thousands", o.Thousands}, {"group", o.Group}, {"measure", o.Measure}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -277,12 +278,14 @@ func (o Options) validate() (settings, error) {
 	default:
 		return s, &OptionError{"separator", o.Separator, "choose auto, tab, semicolon or comma"}
 	}
-	switch o.Decimal {
-	case "", "auto":
-	case "point":
-		s.read.DecimalPoint = true
-	default:
-		return s, &OptionError{"decimal", o.Decimal, "choose auto or point"}
+	if s.read.Decimal, ok = table.ParseDecimal(o.Decimal); !ok {
+		return s, &OptionError{"decimal", o.Decimal, "choose auto, point or comma"}
+	}
+	if s.read.Thousands, ok = table.ParseThousands(o.Thousands); !ok {
+		return s, &OptionError{"thousands", o.Thousands, "choose auto, none, comma, point, space or apostrophe"}
+	}
+	if s.read.Decimal != table.NoMark && s.read.Decimal == s.read.Thousands {
+		return s, &OptionError{"thousands", o.Thousands, "the decimal mark is the " + o.Decimal + "; choose another thousands separator, or none"}
 	}
 	if s.alpha == 0 {
 		s.alpha = DefaultAlpha

@@ -27,6 +27,9 @@ func warnings(r *Result) []string {
 	if o := r.Input.OtherReadings; o != nil {
 		c.OtherReadings = *o
 	}
+	if o := r.Input.OtherNumbers; o != nil {
+		c.OtherNumbers = *o
+	}
 	if mc := r.MonteCarlo; mc != nil {
 		c.MonteCarlo = &report.Interval{Low: mc.CILow, High: mc.CIHigh}
 	}

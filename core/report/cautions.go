@@ -7,6 +7,9 @@ type Cautions struct {
 	// Reading is why the text was read as it was, and OtherReadings the
 	// other plausible readings ("" when there are none)
 	Reading, OtherReadings string
+	// OtherNumbers names cells whose marks could be read two ways, how they
+	// were read and what to choose for the other way ("" when none)
+	OtherNumbers string
 	// SmallGroups are the groups with fewer than SmallGroup values, when
 	// the chi-square approximation gave p
 	SmallGroups []GroupSize
@@ -40,6 +43,9 @@ func Warnings(c Cautions) []string {
 	if c.OtherReadings != "" {
 		w = append(w, fmt.Sprintf("The text was read with %s. It could also be read with %s: if that is meant, choose the group and measure columns (on the command line --group and --measure).",
 			c.Reading, c.OtherReadings))
+	}
+	if c.OtherNumbers != "" {
+		w = append(w, fmt.Sprintf("Some numbers could be read two ways: %s (on the command line --decimal or --thousands).", c.OtherNumbers))
 	}
 	switch small := c.SmallGroups; {
 	case len(small) > 3:

@@ -17,7 +17,7 @@ type longColumns struct {
 // columns: as opt chooses them, else from the profile of the text (see
 // chooseReading), else by the first-record rule of detectLayout; and says
 // why in t.Reason.
-func (t *Table) chooseColumns(data []byte, opt Options, comma bool) (longColumns, error) {
+func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 	p := t.Profile
 	if opt.Group != "" || opt.Measure != "" {
 		return t.chosenColumns(opt)
@@ -35,7 +35,7 @@ func (t *Table) chooseColumns(data []byte, opt Options, comma bool) (longColumns
 		t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
 		return longColumns{group: read.Group, measure: read.Measure, header: 1, strict: len(p.Columns) <= 2}, nil
 	}
-	t.Layout = detectLayout(data, t.Separator, comma)
+	t.Layout = detectLayout(data, t.Separator)
 	t.Reason = "one column per group, its label in the first row"
 	if t.Layout == LayoutLong {
 		t.Reason = "one row per value: the first column holds labels of groups, the second the values"

@@ -68,8 +68,9 @@ type Profile struct {
 	Columns []ColumnProfile `json:"list"`
 }
 
-// ProfileOf profiles data read with the given separator and decimal mark.
-func ProfileOf(data []byte, sep byte, comma bool) Profile {
+// ProfileOf profiles data read with the given separator; a cell is counted
+// as a number when it is one in any of the forms parseCell accepts.
+func ProfileOf(data []byte, sep byte) Profile {
 	r := newReader(data, sep)
 	var p Profile
 	ok, _ := r.read()
@@ -80,7 +81,7 @@ func ProfileOf(data []byte, sep byte, comma bool) Profile {
 	first := make([]string, len(r.fields))
 	for i, f := range r.fields {
 		first[i] = f.String()
-		if _, kind, _ := parseCell(f.text, comma); kind == cellNumber {
+		if _, kind, _ := parseCell(f.text); kind == cellNumber {
 			numbers++
 		}
 	}
@@ -100,7 +101,7 @@ func ProfileOf(data []byte, sep byte, comma bool) Profile {
 	}
 	grow(len(first))
 	if !p.Header {
-		p.count(first, seen, last, comma)
+		p.count(first, seen, last)
 	}
 	for p.Records < ProfileRecords {
 		if ok, err := r.read(); err != nil || !ok {
@@ -113,7 +114,7 @@ func ProfileOf(data []byte, sep byte, comma bool) Profile {
 			cells[i] = f.String()
 		}
 		grow(len(cells))
-		p.count(cells, seen, last, comma)
+		p.count(cells, seen, last)
 	}
 	if !p.Whole {
 		ok, _ := r.read()
@@ -132,14 +133,14 @@ func ProfileOf(data []byte, sep byte, comma bool) Profile {
 }
 
 // count adds one record's cells to the profile.
-func (p *Profile) count(cells []string, seen []map[string]bool, last []float64, comma bool) {
+func (p *Profile) count(cells []string, seen []map[string]bool, last []float64) {
 	for c := range p.Columns {
 		col := &p.Columns[c]
 		if c >= len(cells) {
 			col.Blanks++
 			continue
 		}
-		v, kind, _ := parseCell([]byte(cells[c]), comma)
+		v, kind, _ := parseCell([]byte(cells[c]))
 		switch kind {
 		case cellMissing:
 			col.Blanks++

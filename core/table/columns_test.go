@@ -107,13 +107,15 @@ func FuzzColumns(f *testing.F) {
 		for _, r := range records {
 			byLine[r.Line] = r.Cells
 		}
-		comma := tab.Separator != ','
 		for i, v := range tab.Values {
 			cells := byLine[int(tab.Lines[i])]
 			if tab.MeasureColumn > len(cells) {
 				t.Fatalf("value %v on line %d, which has no column %d", v, tab.Lines[i], tab.MeasureColumn)
 			}
-			want, kind, _ := parseCell([]byte(cells[tab.MeasureColumn-1]), comma)
+			want, kind, form := parseCell([]byte(cells[tab.MeasureColumn-1]))
+			if form.ambiguous != NoMark && tab.Thousands != form.ambiguous {
+				want /= 1000 // read as a decimal on the evidence of the whole column
+			}
 			if kind != cellNumber || want != v && !(want == 0 && v == 0) {
 				t.Fatalf("value %v on line %d, but column %d holds %q", v, tab.Lines[i], tab.MeasureColumn, cells[tab.MeasureColumn-1])
 			}

@@ -43,7 +43,7 @@ func DetectSeparator(data []byte) byte {
 // detectLayout applies the documented rule for LayoutAuto: the text is long
 // when its records (among the first 200) use exactly two fields and, below
 // the first record, more first cells are text than numbers; otherwise wide.
-func detectLayout(data []byte, sep byte, comma bool) Layout {
+func detectLayout(data []byte, sep byte) Layout {
 	r := newReader(data, sep)
 	widest, text, numbers := 0, 0, 0
 	for i := 0; i < sampleLines; i++ {
@@ -55,7 +55,7 @@ func detectLayout(data []byte, sep byte, comma bool) Layout {
 		if i == 0 {
 			continue
 		}
-		switch _, kind, _ := parseCell(r.fields[0].text, comma); kind {
+		switch _, kind, _ := parseCell(r.fields[0].text); kind {
 		case cellNumber:
 			numbers++
 		case cellText:

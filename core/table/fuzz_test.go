@@ -21,11 +21,14 @@ func FuzzParse(f *testing.F) {
 		"a,b\n1e3,.5\n+2,-0\n",
 		"\"open,1\n",
 		"a;b\r1;2\r",
+		"pay\tgrade\n52,300\t1\n980\t2\n1,234,567.5\t1\n",
+		"x;y\n1.234,5;2 300\n3,5;1'000\n",
 	} {
 		f.Add([]byte(seed), uint8(0))
 	}
 	f.Fuzz(func(t *testing.T, data []byte, mode uint8) {
-		opt := Options{Layout: Layout(mode % 3), DecimalPoint: mode&4 != 0}
+		// the low bits choose the layout, the next the decimal mark, the high ones the thousands separator
+		opt := Options{Layout: Layout(mode % 3), Decimal: Mark(mode / 4 % 3), Thousands: Mark(mode / 12 % 6)}
 		tab, err := Parse(data, opt)
 		if err != nil {
 			var e *Error

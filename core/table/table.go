@@ -51,8 +51,10 @@ func ParseLayout(s string) (Layout, bool) {
 type Options struct {
 	Layout    Layout
 	Separator byte // '\t', ';' or ','; 0 to detect
-	// DecimalPoint refuses the decimal comma even where it would be accepted.
-	DecimalPoint bool
+	// Decimal and Thousands fix how the values write their numbers (see
+	// numberReading.decide); NoMark detects them, and Thousands MarkNone
+	// refuses every thousands separator.
+	Decimal, Thousands Mark
 	// Group and Measure choose the columns of a long reading, each by its
 	// header or its 1-based number; "" leaves the choice to the reading.
 	// Either implies the long layout.
@@ -72,6 +74,10 @@ type Table struct {
 	Layout       Layout // the layout used (never LayoutAuto)
 	Separator    byte   // the separator used
 	DecimalComma bool   // some value was written with a decimal comma
+	Thousands    Mark   // the thousands separator the values were written with; NoMark when none
+	// OtherNumbers is the other reading of cells whose marks could be read
+	// two ways ("52,300"), "" when there are none
+	OtherNumbers string
 	Header       bool   // long layout: the first record was a header
 	Measure      string // long layout: the measure column's header, naming what was measured
 
@@ -103,16 +109,22 @@ func Parse(data []byte, opt Options) (*Table, error) {
 		return nil, &Error{Reason: fmt.Sprintf("the separator %q is not one of tab, semicolon or comma", t.Separator),
 			Fix: "choose tab, semicolon or comma"}
 	}
-	comma := t.Separator != ',' && !opt.DecimalPoint
-	t.Profile = ProfileOf(data, t.Separator, comma)
-	cols, err := t.chooseColumns(data, opt, comma)
+	if opt.Decimal != NoMark && opt.Decimal == opt.Thousands {
+		return nil, &Error{Reason: fmt.Sprintf("the %s is chosen both as the decimal mark and between thousands", opt.Decimal),
+			Fix: "choose different marks"}
+	}
+	t.Profile = ProfileOf(data, t.Separator)
+	cols, err := t.chooseColumns(data, opt)
 	if err != nil {
 		return t, err // the profile still shows the columns to choose from
 	}
 	// One value per line (long) or per line and column (wide) is the common
 	// case; sizing the arrays once avoids regrowing them for large inputs.
 	lines := estimateLines(data)
-	p := parser{t: t, r: newReader(data, t.Separator), comma: comma}
+	p := parser{t: t, r: newReader(data, t.Separator), numbers: numberReading{decimal: opt.Decimal, thousands: opt.Thousands, presumed: MarkPoint}}
+	if t.Separator == ';' {
+		p.numbers.presumed = MarkComma
+	}
 	if t.Layout == LayoutLong {
 		t.reserve(lines)
 		return t, p.long(cols)
@@ -148,7 +160,7 @@ func (t *Table) add(v float64, group int, line int) {
 type parser struct {
 	t        *Table
 	r        *reader
-	comma    bool
+	numbers  numberReading
 	problems Problems
 }
 
@@ -162,8 +174,13 @@ func (p *parser) problem(e *Error) error {
 	return nil
 }
 
-// finish reports the problems noted, if any.
+// finish settles how the numbers were written and reports the problems
+// noted, if any, with those of the numbers' marks.
 func (p *parser) finish() error {
+	err := p.numbers.decide(p.t)
+	if ps, ok := err.(Problems); ok {
+		p.problems = append(p.problems, ps[:min(len(ps), MaxProblems-len(p.problems))]...)
+	}
 	if len(p.problems) > 0 {
 		return p.problems
 	}
@@ -235,18 +252,18 @@ func (p *parser) wide(lines int) error {
 				}
 				continue
 			}
-			v, kind, usedComma := parseCell(f.text, p.comma)
+			v, kind, form := parseCell(f.text)
 			if kind > cellMissing {
 				if err := p.problem(p.cellError(f, kind, c+1, t.Labels[c])); err != nil {
 					return err
 				}
 				continue
 			}
-			t.DecimalComma = t.DecimalComma || usedComma
 			switch {
 			case kind == cellNumber:
 				t.Missing[c] += pending[c]
 				pending[c] = 0
+				p.numbers.note(t, form, r.line, c+1, t.Labels[c], f.text)
 				t.add(v, c, r.line)
 			case len(f.text) == 0:
 				pending[c]++
@@ -322,7 +339,7 @@ func (p *parser) long(cols longColumns) error {
 			first = false
 			header := cols.header == 1
 			if cols.header < 0 {
-				_, kind, _ := parseCell(value.text, p.comma)
+				_, kind, _ := parseCell(value.text)
 				header = kind == cellText
 			}
 			if header {
@@ -350,17 +367,17 @@ func (p *parser) long(cols longColumns) error {
 				lastLabel = nil
 			}
 		}
-		v, kind, usedComma := parseCell(value.text, p.comma)
+		v, kind, form := parseCell(value.text)
 		if kind > cellMissing {
 			if err := p.problem(p.cellError(value, kind, cols.measure+1, t.Labels[g])); err != nil {
 				return err
 			}
 			continue
 		}
-		t.DecimalComma = t.DecimalComma || usedComma
 		if kind == cellMissing {
 			t.Missing[g]++
 		} else {
+			p.numbers.note(t, form, r.line, cols.measure+1, t.Labels[g], value.text)
 			t.add(v, g, r.line)
 		}
 	}

@@ -101,7 +101,7 @@ func TestParse(t *testing.T) {
 		{
 			name: "decimal point on request",
 			in:   "a\tb\n1.5\t2\n",
-			opt:  Options{DecimalPoint: true},
+			opt:  Options{Decimal: MarkPoint},
 			sep:  '\t', layout: LayoutWide,
 			want: []group{{"a", []float64{1.5}, 0}, {"b", []float64{2}, 0}},
 		},
@@ -160,7 +160,10 @@ func TestParseErrors(t *testing.T) {
 		{"overflow", "a,b\n1,1e400\n", Options{}, 2, 2, "b", "infinite"},
 		{"hexadecimal", "a,b\n1,0x10\n", Options{}, 2, 2, "b", "not a number"},
 		{"digit separator", "a,b\n1,1_000\n", Options{}, 2, 2, "b", "not a number"},
-		{"decimal comma refused", "a;b\n1,5;2\n", Options{Layout: LayoutWide, DecimalPoint: true}, 2, 1, "a", `"1,5" is not a number`},
+		{"decimal comma refused", "a;b\n1,5;2\n", Options{Layout: LayoutWide, Decimal: MarkPoint}, 2, 1, "a", `"1,5" is written with a decimal comma, but the decimal mark chosen is the point`},
+		{"badly grouped", "a,b\n1,\"1,23,456\"\n", Options{}, 2, 2, "b", "not a number"},
+		{"two thousands separators", "a\tb\n1 234\t2\n3\t1,234,567\n", Options{}, 2, 1, "a", `"1 234" has a space between thousands, but "1,234,567" (line 3, column 2) has a comma`},
+		{"a mark both ways", "a;b\n1.234.567;2\n3,5;1.5\n", Options{}, 3, 2, "b", `"1.5" has a decimal point, but "1.234.567" (line 2, column 1) has a point between thousands`},
 		{"value without label", "a,b\n1,2,3\n", Options{}, 2, 3, "", "no group label"},
 		{"duplicate labels", "a,b,a\n1,2,3\n", Options{}, 1, 3, "a", "both labelled"},
 		{"unclosed quote", "a,b\n\"1,2\n", Options{}, 2, 1, "", "never closed"},
@@ -209,35 +212,109 @@ func TestDetectLayout(t *testing.T) {
 
 func TestParseCell(t *testing.T) {
 	tests := []struct {
-		in    string
-		comma bool
-		v     float64
-		kind  cellKind
+		in   string
+		v    float64
+		kind cellKind
+		form form
 	}{
-		{"0.1", false, 0.1, cellNumber},
-		{"123456789012345", false, 123456789012345, cellNumber},
-		{"1234567890123456789", false, 1234567890123456789, cellNumber},
-		{"0.30000000000000004", false, 0.30000000000000004, cellNumber},
-		{"1e-400", false, 0, cellNumber},
-		{"2.5e-3", false, 0.0025, cellNumber},
-		{"1,25", true, 1.25, cellNumber},
-		{"1,25", false, 0, cellText},
-		{"1.", false, 1, cellNumber},
-		{".", false, 0, cellMissing},
-		{"NaN", false, 0, cellMissing},
-		{"N/A", false, 0, cellMissing},
-		{"-Infinity", false, 0, cellInfinite},
-		{"∞", false, 0, cellInfinite},
-		{"e5", false, 0, cellText},
-		{"1e", false, 0, cellText},
-		{"--1", false, 0, cellText},
-		{"1.2.3", false, 0, cellText},
+		{"0.1", 0.1, cellNumber, form{decimal: MarkPoint}},
+		{"123456789012345", 123456789012345, cellNumber, form{ungrouped: true}},
+		{"1234567890123456789", 1234567890123456789, cellNumber, form{ungrouped: true}},
+		{"0.30000000000000004", 0.30000000000000004, cellNumber, form{decimal: MarkPoint}},
+		{"1e-400", 0, cellNumber, form{}},
+		{"2.5e-3", 0.0025, cellNumber, form{decimal: MarkPoint}},
+		{"1,25", 1.25, cellNumber, form{decimal: MarkComma}},
+		{"1.", 1, cellNumber, form{decimal: MarkPoint}},
+		{".5", 0.5, cellNumber, form{decimal: MarkPoint}},
+		{"980", 980, cellNumber, form{}},
+		// one to three digits, one mark, three digits: read as the whole number until the column decides
+		{"52,300", 52300, cellNumber, form{ambiguous: MarkComma}},
+		{"-1.250", -1250, cellNumber, form{ambiguous: MarkPoint}},
+		{"0,300", 0.3, cellNumber, form{decimal: MarkComma}},   // a thousands separator never follows a leading zero
+		{"1,250e2", 125, cellNumber, form{decimal: MarkComma}}, // nor comes with an exponent
+		{"1234,567", 1234.567, cellNumber, form{decimal: MarkComma, ungrouped: true}},
+		{"1,234,567", 1234567, cellNumber, form{thousands: MarkComma}},
+		{"1,234,567.25", 1234567.25, cellNumber, form{thousands: MarkComma, decimal: MarkPoint}},
+		{"1.234.567,25", 1234567.25, cellNumber, form{thousands: MarkPoint, decimal: MarkComma}},
+		{"52 300", 52300, cellNumber, form{thousands: MarkSpace}},
+		{"52\u00a0300,5", 52300.5, cellNumber, form{thousands: MarkSpace, decimal: MarkComma}},
+		{"1\u202f234\u202f567", 1234567, cellNumber, form{thousands: MarkSpace}},
+		{"1'234.5", 1234.5, cellNumber, form{thousands: MarkQuote, decimal: MarkPoint}},
+		{"1\u2019234", 1234, cellNumber, form{thousands: MarkQuote}},
+		{"123,456,789,012,345,678.5", 123456789012345678.5, cellNumber, form{thousands: MarkComma, decimal: MarkPoint}},
+		{"1,23,456", 0, cellText, form{}},
+		{"1234,567,890", 0, cellText, form{}},
+		{"1,234e3", 1234, cellNumber, form{decimal: MarkComma}},
+		{"1,234,567e3", 0, cellText, form{}},
+		{"1 2", 0, cellText, form{}},
+		{"12 min", 0, cellText, form{}},
+		{"1_000", 0, cellText, form{}},
+		{".", 0, cellMissing, form{}},
+		{"NaN", 0, cellMissing, form{}},
+		{"N/A", 0, cellMissing, form{}},
+		{"-Infinity", 0, cellInfinite, form{}},
+		{"∞", 0, cellInfinite, form{}},
+		{"e5", 0, cellText, form{}},
+		{"1e", 0, cellText, form{}},
+		{"--1", 0, cellText, form{}},
+		{"1.2.3", 0, cellText, form{}},
+		{",", 0, cellText, form{}},
 	}
 	for _, tt := range tests {
-		v, kind, _ := parseCell([]byte(tt.in), tt.comma)
-		if v != tt.v || kind != tt.kind {
-			t.Errorf("parseCell(%q, %v) = %v, %v; want %v, %v", tt.in, tt.comma, v, kind, tt.v, tt.kind)
+		v, kind, f := parseCell([]byte(tt.in))
+		if v != tt.v || kind != tt.kind || f != tt.form {
+			t.Errorf("parseCell(%q) = %v, %v, %+v; want %v, %v, %+v", tt.in, v, kind, f, tt.v, tt.kind, tt.form)
 		}
+	}
+}
+
+// TestNumberFormats: the decimal mark and the thousands separator are
+// decided on every value of the reading, and a cell that could be read two
+// ways follows the others (README, "Numbers").
+func TestNumberFormats(t *testing.T) {
+	tests := []struct {
+		name      string
+		in        string
+		opt       Options
+		want      []float64
+		comma     bool
+		thousands Mark
+		other     string // a part of OtherNumbers, "" for none
+	}{
+		// salaries formatted #,##0 and pasted from a spreadsheet: a comma between thousands, the other reading named
+		{"grouped salaries", "pay\n52,300\n980\n61,250\n", Options{}, []float64{52300, 980, 61250}, false, MarkComma, `"52,300" (line 2, column 1) and 1 more cell like it were read with a comma between thousands (52300), but the comma may be a decimal comma (52.3)`},
+		{"decimal comma seen elsewhere", "x\n1,250\n3,5\n", Options{}, []float64{1.25, 3.5}, true, NoMark, ""},
+		{"decimal point seen elsewhere", "x\n1,250\n3.5\n", Options{}, []float64{1250, 3.5}, false, MarkComma, ""},
+		{"grouping seen elsewhere", "x\n1,250\n1,234,567\n", Options{}, []float64{1250, 1234567}, false, MarkComma, ""},
+		{"a long whole part without a separator", "x\n1,250\n1500\n", Options{}, []float64{1.25, 1500}, true, NoMark, "the comma may separate thousands (1250)"},
+		{"decimal comma chosen", "x\n52,300\n980\n", Options{Decimal: MarkComma}, []float64{52.3, 980}, true, NoMark, ""},
+		{"no thousands chosen", "x\n52,300\n980\n", Options{Thousands: MarkNone}, []float64{52.3, 980}, true, NoMark, ""},
+		{"a point alone is a decimal point", "x\n1.250\n2\n", Options{}, []float64{1.25, 2}, false, NoMark, "the point may separate thousands (1250): if so, choose the thousands separator point"},
+		{"semicolon-separated: a presumed decimal comma", "x;y\n1.250;1,250\n2;3\n", Options{Separator: ';'}, []float64{1250, 1.25, 2, 3}, true, MarkPoint, `"1,250" (line 2, column 2) was read with a decimal comma (1.25), but the comma may separate thousands (1250)`},
+		{"points between thousands", "x\n1.250\n2,5\n", Options{}, []float64{1250, 2.5}, true, MarkPoint, ""},
+		{"points chosen between thousands", "x\n1.250\n2\n", Options{Thousands: MarkPoint}, []float64{1250, 2}, false, MarkPoint, ""},
+		{"spaces", "x\n52 300,5\n1,250\n", Options{}, []float64{52300.5, 1.25}, true, MarkSpace, ""},
+		{"both marks", "x\n1,234.5\n1.250\n2,500\n", Options{}, []float64{1234.5, 1.25, 2500}, false, MarkComma, ""},
+		{"decimals both ways, nothing ambiguous", "x;y\n3,5;2.5\n", Options{Separator: ';'}, []float64{3.5, 2.5}, true, NoMark, ""},
+		{"quoted in a comma-separated text", "a,b\n\"52,300\",\"1,250.5\"\n", Options{Separator: ','}, []float64{52300, 1250.5}, false, MarkComma, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			opt := tt.opt
+			if opt.Separator == 0 {
+				opt.Separator = '\t' // one column, as pasted
+			}
+			got, err := Parse([]byte(tt.in), opt)
+			if err != nil {
+				t.Fatalf("Parse(%q): %v", tt.in, err)
+			}
+			if !reflect.DeepEqual(got.Values, tt.want) || got.DecimalComma != tt.comma || got.Thousands != tt.thousands {
+				t.Errorf("Parse(%q) = %v, decimal comma %v, thousands %v; want %v, %v, %v", tt.in, got.Values, got.DecimalComma, got.Thousands, tt.want, tt.comma, tt.thousands)
+			}
+			if (tt.other == "") != (got.OtherNumbers == "") || !strings.Contains(got.OtherNumbers, tt.other) {
+				t.Errorf("Parse(%q) other reading %q, want one with %q", tt.in, got.OtherNumbers, tt.other)
+			}
+		})
 	}
 }
 

@@ -13,10 +13,12 @@ export function renderPreview(state, changed) {
   const input = p.input;
   $("read-as").textContent = !input.layout ? "it could not be read"
     : layoutNames[input.layout] + ", " + separatorNames[input.separator] + ", decimal " + input.decimal_mark
+      + (input.thousands !== "none" ? ", " + input.thousands + " between thousands" : "")
       + (p.groups.length ? ", " + p.groups.length + " groups" : "")
       + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
   $("read-reason").textContent = !input.reason ? "" : "Read with " + input.reason + "."
-    + (input.other_readings ? " It could also be read with " + input.other_readings + ": if that is meant, choose the columns above." : "");
+    + (input.other_readings ? " It could also be read with " + input.other_readings + ": if that is meant, choose the columns above." : "")
+    + (input.other_numbers ? " Some numbers could be read two ways: " + input.other_numbers + " above." : "");
   fillColumns(p.columns);
   const marks = new Map(); // "line:column" → message
   for (const q of p.problems) if (q.line && q.column) marks.set(q.line + ":" + q.column, q.message);

@@ -1,7 +1,7 @@
 // The settings on the form, by the module's request keys.
 import { $ } from "./dom.js";
 
-export const fields = ["layout", "separator", "decimal", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
+export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
 const numeric = new Set(["alpha", "resamples", "seed"]);
 
 // formOptions reads the settings as the module's options.

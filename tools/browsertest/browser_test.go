@@ -9,7 +9,6 @@ import (
 	"context"
 	"crypto/rand"
 	"fmt"
-	"github.com/chromedp/cdproto/page"
 	"html"
 	"net/http/httptest"
 	"os"
@@ -27,6 +26,7 @@ import (
 	"github.com/chromedp/cdproto/emulation"
 	"github.com/chromedp/cdproto/log"
 	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/runtime"
 	"github.com/chromedp/chromedp"
 
@@ -172,7 +172,9 @@ func (b *browser) waitFor(t *testing.T, condition string) {
 
 func (b *browser) text(t *testing.T, selector string) string {
 	t.Helper()
-	s, err := chromedp.Run(b.ctx, chromedp.TextContent(selector))
+	ctx, cancel := context.WithTimeout(b.ctx, 60*time.Second)
+	defer cancel()
+	s, err := chromedp.Run(ctx, chromedp.TextContent(selector))
 	if err != nil {
 		t.Fatalf("reading %s: %v", selector, err)
 	}

@@ -20,6 +20,9 @@ const tiesShown = 10
 func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	in := r.Input
 	read := fmt.Sprintf("%s layout, %s-separated, decimal %s", in.Layout, in.Separator, in.DecimalMark)
+	if in.Thousands != "none" {
+		read += fmt.Sprintf(", %s between thousands", in.Thousands)
+	}
 	if in.Header {
 		read += fmt.Sprintf(", header line (values: %q)", in.Measure)
 	}
