@@ -19,6 +19,7 @@ package table
 import (
 	"bytes"
 	"fmt"
+	"strconv"
 )
 
 // Layout names how groups and values are arranged in the text.
@@ -189,8 +190,13 @@ func (p *parser) finish() error {
 
 // cellError explains why a cell is neither a number nor a missing marker.
 func (p *parser) cellError(f field, kind cellKind, column int, group string) *Error {
-	switch kind {
-	case cellText:
+	switch {
+	case kind == cellText && column <= len(p.t.Profile.Columns) && p.t.Profile.Columns[column-1].kind() == labelColumn:
+		name := strconv.Quote(p.t.Profile.Columns[column-1].Name)
+		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+			Reason: fmt.Sprintf("%q is not a number, and column %s holds text on most rows: it looks like a column of group labels", quoteFound(f.text), name),
+			Fix:    fmt.Sprintf("choose it as the group column (\"Groups from the column\" on the page, --group %s on the command line) and a column of numbers as the measure", name)}
+	case kind == cellText:
 		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
 			Reason: fmt.Sprintf("%q is not a number", quoteFound(f.text)),
 			Fix:    "correct the cell, or write NA there to mark the value as missing"}
