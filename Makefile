@@ -97,6 +97,8 @@ fuzz:
 	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
 	$(call fuzz-once,./core,FuzzPValues) || $(call fuzz-once,./core,FuzzPValues)
 	$(call fuzz-once,./core/tables,FuzzTables) || $(call fuzz-once,./core/tables,FuzzTables)
+	$(call fuzz-once,./core/sheet,FuzzOpen) || $(call fuzz-once,./core/sheet,FuzzOpen)
+	$(call fuzz-once,./core/sheet,FuzzXML) || $(call fuzz-once,./core/sheet,FuzzXML)
 
 # bench: the speed and memory benchmarks
 bench:

@@ -55,12 +55,14 @@ type RankedValue struct {
 
 // Input says how the text was read.
 type Input struct {
-	Layout      string `json:"layout"`       // wide or long
-	Separator   string `json:"separator"`    // tab, semicolon or comma
-	DecimalMark string `json:"decimal_mark"` // point or comma
-	Thousands   string `json:"thousands"`    // the thousands separator: none, comma, point, space or apostrophe
-	Header      bool   `json:"header"`       // long layout: the first line was a header
-	Measure     string `json:"measure"`      // long layout: what the header calls the values
+	Layout string `json:"layout"` // wide or long
+	// Sheet is the sheet read from a spreadsheet file, null for text
+	Sheet       *string `json:"sheet"`
+	Separator   string  `json:"separator"`    // tab, semicolon or comma
+	DecimalMark string  `json:"decimal_mark"` // point or comma
+	Thousands   string  `json:"thousands"`    // the thousands separator: none, comma, point, space or apostrophe
+	Header      bool    `json:"header"`       // long layout: the first line was a header
+	Measure     string  `json:"measure"`      // long layout: what the header calls the values
 	// long layout: the columns of the groups and of the values, by header
 	// (or "column N"); "" in the wide layout
 	GroupColumn   string  `json:"group_column"`
@@ -166,11 +168,19 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	if err != nil {
 		return nil, err
 	}
-	t, err := table.Parse(data, s.read)
+	text, sheetName, err := textOf(data, opt.Sheet)
 	if err != nil {
 		return nil, err
 	}
-	return analyzeTable(ctx, t, s, progress)
+	t, err := table.Parse(text, s.read)
+	if err != nil {
+		return nil, err
+	}
+	r, err := analyzeTable(ctx, t, s, progress)
+	if r != nil && sheetName != "" {
+		r.Input.Sheet = &sheetName
+	}
+	return r, err
 }
 
 // analyzeTable applies the group edits to a table just read and analyses it.

@@ -187,6 +187,8 @@ func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
 func writeInput(w *jsonlite.Writer, in Input) {
 	w.BeginObject()
 	w.StringMember("layout", in.Layout)
+	w.Key("sheet")
+	w.OptString(in.Sheet)
 	w.StringMember("separator", in.Separator)
 	w.StringMember("decimal_mark", in.DecimalMark)
 	w.StringMember("thousands", in.Thousands)

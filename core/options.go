@@ -23,6 +23,7 @@ type Options struct {
 	Thousands string  `json:"thousands,omitempty"` // auto (default), none, comma, point, space, apostrophe
 	Group     string  `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
 	Measure   string  `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
+	Sheet     string  `json:"sheet,omitempty"`     // a spreadsheet file's sheet, by name or 1-based number; default the first
 	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
 	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
 	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples, default 100,000
@@ -102,7 +103,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 		if v.Kind == jsonlite.Null {
 			continue
 		}
-		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure,
+		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "sheet": &o.Sheet,
 			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
@@ -201,7 +202,7 @@ func (o Options) JSON() []byte {
 // write appends the options that differ from the defaults, with the names
 // of their json tags, as members of an open object.
 func (o Options) write(w *jsonlite.Writer) {
-	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"thousands", o.Thousands}, {"group", o.Group}, {"measure", o.Measure}} {
+	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"thousands", o.Thousands}, {"group", o.Group}, {"measure", o.Measure}, {"sheet", o.Sheet}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)

@@ -54,7 +54,11 @@ func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Pre
 		labels[i] = g.Label
 	}
 	s.edits = s.edits.For(labels)
-	return analyzeTable(ctx, t, s, progress)
+	r, err := analyzeTable(ctx, t, s, progress)
+	if r != nil {
+		r.Input.Sheet = p.Input.Sheet
+	}
+	return r, err
 }
 
 // read validates the options, reads the text and describes it; the table
@@ -63,6 +67,10 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Columns: table.Profile{Columns: []table.ColumnProfile{}},
 		Problems: []ProblemDetail{}}
 	s, err := opt.validate()
+	var sheetName string
+	if err == nil {
+		data, sheetName, err = textOf(data, opt.Sheet)
+	}
 	if err == nil {
 		for _, r := range table.Records(data, s.read.Separator, PreviewRows) {
 			p.Rows = append(p.Rows, PreviewRow{Line: r.Line, Cells: r.Cells})
@@ -70,6 +78,9 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 		var t *table.Table
 		if t, err = table.Parse(data, s.read); t != nil {
 			p.Input = describeInput(t) // how it was read, even when reading stopped
+			if sheetName != "" {
+				p.Input.Sheet = &sheetName
+			}
 			p.Columns = t.Profile
 		}
 		var ps table.Problems

@@ -79,3 +79,53 @@ func TestReadingOpenDatasets(t *testing.T) {
 		}
 	}
 }
+
+// TestReadingSpreadsheets reads the same R datasets from .xlsx and .ods
+// files (testdata/sheets, written by tools/reference/sheets.py with
+// openpyxl and odfpy) and checks k, N, H, df and p against R's
+// kruskal.test, as in TestReadingOpenDatasets; the sheet is the first by
+// default, or chosen by name or number.
+func TestReadingSpreadsheets(t *testing.T) {
+	rows, err := testfiles.Rows(os.DirFS("../testdata/reading"), "expected.tsv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := map[string][]string{}
+	for _, row := range rows {
+		want[row[0]] = row
+	}
+	tests := []struct {
+		file, sheet, source string
+	}{
+		{"chickweight", "", "chickweight_id_diet_weight.csv"},
+		{"chickweight", "Morley", "morley_expt_speed.csv"},
+		{"npk", "npk", "npk.csv"},
+		{"npk", "2", "npk.csv"},
+		{"states", "", "states_thousands_comma.csv"},
+	}
+	for _, ext := range []string{"xlsx", "ods"} {
+		for _, tt := range tests {
+			row := want[tt.source]
+			data, err := os.ReadFile(filepath.Join("../testdata/sheets", tt.file+"."+ext))
+			if err != nil {
+				t.Fatal(err)
+			}
+			r, err := Analyze(data, Options{Sheet: tt.sheet, Group: row[1], Measure: row[2], PostHoc: "none", PValue: "asymptotic"})
+			if err != nil {
+				t.Errorf("%s.%s sheet %q: %v", tt.file, ext, tt.sheet, err)
+				continue
+			}
+			h, _ := strconv.ParseFloat(row[5], 64)
+			p, _ := strconv.ParseFloat(row[7], 64)
+			if strconv.Itoa(r.K) != row[3] || strconv.Itoa(r.N) != row[4] || math.Abs(r.H-h) > 1e-9*h || math.Abs(r.PValue-p) > 1e-9*p {
+				t.Errorf("%s.%s sheet %q: k %d N %d H %v p %v; R: k %s N %s H %v p %v", tt.file, ext, tt.sheet, r.K, r.N, r.H, r.PValue, row[3], row[4], h, p)
+			}
+			if r.Input.Sheet == nil || tt.sheet != "" && tt.sheet != "2" && *r.Input.Sheet != tt.sheet {
+				t.Errorf("%s.%s: input.sheet %v, want %q", tt.file, ext, r.Input.Sheet, tt.sheet)
+			}
+		}
+	}
+	if _, err := Analyze([]byte("PK\x03\x04 not a spreadsheet"), Options{}); err == nil || !strings.Contains(err.Error(), "spreadsheet cannot be read") {
+		t.Errorf("a damaged spreadsheet: %v", err)
+	}
+}

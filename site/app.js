@@ -198,7 +198,7 @@ wireInput((text) => {
   $("demo-note").hidden = true;
   keep();
   analyse();
-});
+}, bridge.ask);
 wirePictures(() => state.result !== null);
 wireRanks(bridge.ask);
 wireReports();

@@ -3,8 +3,8 @@
 // starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
 // data, options, edits} (answered by the module's workspace),
 // {id, kind: "page", list, offset, count},
-// {id, kind: "link", data, options, edits} and {id, kind: "open-link",
-// fragment}; replies: {id, json}, and for an analysis that answered
+// {id, kind: "link", data, options, edits}, {id, kind: "open-link",
+// fragment} and {id, kind: "sheet", bytes, sheet}; replies: {id, json}, and for an analysis that answered
 // {id, json, tables} with the module's tables of results of that very
 // analysis. For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
@@ -57,6 +57,9 @@ onmessage = async (event) => {
         break;
       case "open-link":
         json = m.openLink(q.fragment);
+        break;
+      case "sheet":
+        json = m.sheet(q.bytes, q.sheet);
         break;
       default:
         json = m.workspace(new TextEncoder().encode(q.data), request(q),

@@ -64,6 +64,7 @@ func register() {
 		"tables":    guarded(resultTables),
 		"link":      guarded(shareLink),
 		"openLink":  guarded(openLink),
+		"sheet":     guarded(sheetText),
 		"version":   core.Version,
 		"defaults":  string(core.Defaults().JSON()),
 		"limits":    limits(),
@@ -220,6 +221,28 @@ func openLink(args []js.Value) (string, error) {
 	w.Raw(req.Options.JSON())
 	w.EndObject()
 	return string(w.Bytes()), nil
+}
+
+// sheetText opens a spreadsheet file (a Uint8Array) and gives one sheet as
+// text: {"format", "sheets", "sheet", "text"} (see core.Sheets.JSON).
+func sheetText(args []js.Value) (string, error) {
+	const call = "sheet(bytes[, sheet])"
+	if len(args) < 1 {
+		return "", fmt.Errorf("%s needs the file's bytes", call)
+	}
+	data, err := bytesOf(call, args[0])
+	if err != nil {
+		return "", err
+	}
+	ref := ""
+	if len(args) > 1 && args[1].Type() == js.TypeString {
+		ref = args[1].String()
+	}
+	s, err := core.SheetText(data, ref)
+	if err != nil {
+		return "", err
+	}
+	return string(s.JSON()), nil
 }
 
 // inputOf reads the data in args[0] and the options in args[1] of call.

@@ -196,6 +196,10 @@ func (p *parser) cellError(f field, kind cellKind, column int, group string) *Er
 		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
 			Reason: fmt.Sprintf("%q is not a number, and column %s holds text on most rows: it looks like a column of group labels", quoteFound(f.text), name),
 			Fix:    fmt.Sprintf("choose it as the group column (\"Groups from the column\" on the page, --group %s on the command line) and a column of numbers as the measure", name)}
+	case kind == cellText && isDate(f.text):
+		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
+			Reason: fmt.Sprintf("%q is a date, and a date is not a measurement", quoteFound(f.text)),
+			Fix:    "compute what is to be compared (for example the days between two dates) in the spreadsheet first, or choose another column"}
 	case kind == cellText:
 		return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
 			Reason: fmt.Sprintf("%q is not a number", quoteFound(f.text)),
@@ -204,6 +208,21 @@ func (p *parser) cellError(f field, kind cellKind, column int, group string) *Er
 	return &Error{Line: p.r.line, Column: column, Group: group, Found: quoteFound(f.text),
 		Reason: fmt.Sprintf("%q is infinite or too large to compute with (the limit is ±%.3g)", quoteFound(f.text), LargestValue),
 		Fix:    "correct the cell, or write NA there to mark the value as missing"}
+}
+
+// isDate reports whether a cell holds an ISO 8601 date, as a spreadsheet's
+// date cells are read ("2026-03-01", "2026-03-01 08:30:00").
+func isDate(s []byte) bool {
+	if len(s) != 10 && len(s) != 19 {
+		return false
+	}
+	for i, c := range s {
+		want := "dddd-dd-dd dd:dd:dd"[i]
+		if want == 'd' && (c < '0' || c > '9') || want != 'd' && c != want && !(i == 10 && c == 'T') {
+			return false
+		}
+	}
+	return true
 }
 
 func (p *parser) wide(lines int) error {

@@ -171,6 +171,7 @@ func TestParseErrors(t *testing.T) {
 		{"long third cell", "A,1\nB,2,9\n", Options{Layout: LayoutLong}, 2, 3, "", "third cell"},
 		{"long label missing", "A,1\n,2\n", Options{Layout: LayoutLong}, 2, 1, "", "no group label"},
 		{"long text value", "g,v\nA,1\nB,x\n", Options{}, 3, 2, "B", `"x" is not a number`},
+		{"a date", "g\tv\nA\t1\nB\t2026-03-01\n", Options{}, 3, 2, "B", `"2026-03-01" is a date, and a date is not a measurement`},
 		{"a column of labels read as values", "id,Diet,weight\n1,Diet 1,42\n2,Diet 2,51\n3,Diet 1,40\n", Options{Group: "id", Measure: "Diet"}, 2, 2, "1",
 			`it looks like a column of group labels; choose it as the group column ("Groups from the column" on the page, --group "Diet" on the command line)`},
 		{"empty", "\n\n", Options{}, 0, 0, "", "no data"},

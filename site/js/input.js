@@ -2,6 +2,7 @@
 // the box, files opened or dropped, and pastes.
 import { $, showProblem } from "./dom.js";
 import { state } from "./state.js";
+import { forgetSpreadsheet, isSpreadsheet, openSpreadsheet, wireSheets } from "./sheets.js";
 
 // A large text (pasted, opened or dropped) is held here instead of in the
 // text box: laying out a box of 100,000 lines costs the browser seconds. The
@@ -49,25 +50,33 @@ export function selectLine(line) {
 }
 
 // wireInput connects the box, the file chooser and drops; newText(text) is
-// called with a text that replaces the box's (a file, a large paste).
-export function wireInput(newText) {
+// called with a text that replaces the box's (a file, a sheet of a
+// spreadsheet, a large paste); ask sends the worker a request.
+export function wireInput(newText, ask) {
+  wireSheets(ask, newText);
   // a large paste is held rather than laid out in the box (it replaces the box's text)
   $("data").addEventListener("paste", (e) => {
     const text = e.clipboardData?.getData("text/plain") ?? "";
     if (text.length <= HOLD_LIMIT) return;
     e.preventDefault();
+    forgetSpreadsheet();
     newText(text);
   });
   $("held-edit").addEventListener("click", () => { showHeldAsText(); $("data").focus(); });
   $("held-clear").addEventListener("click", () => { setText(""); $("data").dispatchEvent(new Event("input")); $("data").focus(); });
 
   // Files are read with the File API in this tab; nothing is sent anywhere.
-  function readFile(file) {
+  async function readFile(file) {
     if (file.size > state.limits.text) {
       showProblem({ message: "The file " + file.name + " is " + (file.size / 1048576).toFixed(1) + " MB; the most that is read is "
         + (state.limits.text / 1048576) + " MB. Save only the group and value columns, or a part of the rows." });
       return;
     }
+    if (await isSpreadsheet(file)) {
+      openSpreadsheet(file, ask, newText);
+      return;
+    }
+    forgetSpreadsheet();
     const reader = new FileReader();
     reader.onload = () => newText(reader.result);
     reader.onerror = () => showProblem({ message: "The file " + file.name + " could not be read: " + reader.error });

@@ -444,6 +444,32 @@ func TestPage(t *testing.T) {
 		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && document.querySelector('[data-result="df"]').textContent === "11"`)
 	})
 
+	t.Run("a spreadsheet opens in the tab, its sheets in a menu", func(t *testing.T) {
+		// R's npk written by openpyxl behind a sheet of notes (testdata/sheets, tools/reference/sheets.py)
+		file, err := filepath.Abs("../../testdata/sheets/npk.xlsx")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.SetUploadFiles("#file", []string{file})); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `!document.getElementById("sheet-row").hidden && document.getElementById("data").value.startsWith("Note")`)
+		sheets, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.getElementById("sheet").options].map((o) => o.text)`))
+		if err != nil || strings.Join(sheets, "|") != "About|npk" {
+			t.Errorf("sheet menu %q (%v), want About|npk", sheets, err)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("status").textContent = "";
+			const s = document.getElementById("sheet"); s.value = "2"; s.dispatchEvent(new Event("change")); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("data").value.startsWith("block") && document.getElementById("status").textContent.startsWith("Done")`)
+		// R 4.2.2: kruskal.test(yield ~ block, npk): chi-squared = 8.3684, df = 5 (testdata/reading/expected.tsv)
+		if h, df := b.text(t, `[data-result="h"]`), b.text(t, `[data-result="df"]`); h != "8.368" || df != "5" {
+			t.Errorf("npk from the spreadsheet: H %s on %s df, want R's 8.368 on 5", h, df)
+		}
+		b.screenshot(t, "midrank-spreadsheet.png")
+	})
+
 	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
 		data := "A,B,C\n3,8,2\n5,6,1\n4,9,3\n"
 		r, err := core.Analyze([]byte(data), core.Options{})

@@ -64,6 +64,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Group, "group", "", "the column of group labels or codes, by its header or its number from 1 (implies one row per value)")
 	fs.StringVar(&opt.Measure, "measure", "", "the column of values, by its header or its number from 1 (implies one row per value)")
+	fs.StringVar(&opt.Sheet, "sheet", "", "of an .xlsx or .ods file: the sheet to read, by its name or its number from 1 (default the first)")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (decided on every value read), point or comma")
 	fs.StringVar(&opt.Thousands, "thousands", "auto", "the thousands separator: auto (decided on every value read), none, comma, point, space or apostrophe")
 	fs.Func("alpha", fmt.Sprintf("significance level, strictly between 0 and 1 (default %v)", core.DefaultAlpha), func(v string) error {

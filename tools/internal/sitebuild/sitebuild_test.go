@@ -50,6 +50,21 @@ func TestDeterministic(t *testing.T) {
 	if got := hex.EncodeToString(sum[:]); got != results[0].OfflineSHA256 || !strings.Contains(logs[0].String(), got) {
 		t.Errorf("offline SHA-256 %s, reported %s", got, results[0].OfflineSHA256)
 	}
+	r := results[0]
+	for _, size := range []struct {
+		what          string
+		bytes, budget int
+	}{
+		{"module", r.Module, BudgetModule},
+		{"module, gzip", r.ModuleGzip, BudgetModuleGzip},
+		{"module, brotli", r.ModuleBrotli, BudgetModuleBrotli},
+		{"first visit, gzip", r.FirstVisit, BudgetFirstVisit},
+	} {
+		t.Logf("%s: %.3f MiB (budget %.3f)", size.what, float64(size.bytes)/(1<<20), float64(size.budget)/(1<<20))
+		if size.bytes == 0 || size.bytes > size.budget {
+			t.Errorf("%s is %d bytes; the budget is %d", size.what, size.bytes, size.budget)
+		}
+	}
 	page, _ := os.ReadFile(filepath.Join(dirs[0], "index.html"))
 	if n := bytes.Count(page, []byte("integrity=")); n != 2 {
 		t.Errorf("index.html has %d integrity attributes, want 2 (script and style)", n)
