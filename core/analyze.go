@@ -67,8 +67,11 @@ type Input struct {
 	// (or "column N"); "" in the wide layout
 	GroupColumn   string  `json:"group_column"`
 	MeasureColumn string  `json:"measure_column"`
-	Reason        string  `json:"reason"`         // why the text was read so
-	OtherReadings *string `json:"other_readings"` // other plausible readings, null when there are none
+	CountColumn   *string `json:"count_column"` // the column of counts of a long reading, null when none
+	// Levels are the levels of a table of counts, in order; null otherwise
+	Levels        []string `json:"levels"`
+	Reason        string   `json:"reason"`         // why the text was read so
+	OtherReadings *string  `json:"other_readings"` // other plausible readings, null when there are none
 	// OtherNumbers: cells whose marks could be read two ways, and the other
 	// way; null when there are none
 	OtherNumbers *string `json:"other_numbers"`
@@ -101,6 +104,7 @@ type Result struct {
 	Alpha              float64       `json:"alpha"`
 	Input              Input         `json:"input"`
 	Groups             []Group       `json:"groups"`
+	Levels             *Levels       `json:"levels"` // a table of counts' groups level by level, null otherwise
 	H                  float64       `json:"h"`
 	HUncorrected       float64       `json:"h_uncorrected"`
 	TieCorrection      float64       `json:"tie_correction"`
@@ -202,6 +206,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	r := &Result{Version: Version, N: len(t.Values), K: len(t.Labels), Alpha: s.alpha, table: t, ranking: ranking}
 	r.Input = describeInput(t)
 	r.Groups = summarise(t, ranking)
+	r.Levels = levelsOf(t, r.Groups)
 	for _, m := range t.Missing {
 		r.Missing += m
 	}
@@ -299,6 +304,10 @@ func describeInput(t *table.Table) Input {
 	if t.GroupColumn > 0 {
 		in.GroupColumn, in.MeasureColumn = t.Profile.Columns[t.GroupColumn-1].Name, t.Profile.Columns[t.MeasureColumn-1].Name
 	}
+	if t.CountColumn > 0 {
+		in.CountColumn = &t.Profile.Columns[t.CountColumn-1].Name
+	}
+	in.Levels = t.Levels
 	if t.Others != "" {
 		in.OtherReadings = &t.Others
 	}

@@ -42,6 +42,8 @@ func Encode(r *Result) ([]byte, error) {
 		w.EndObject()
 	}
 	w.EndArray()
+	w.Key("levels")
+	writeLevels(&w, r.Levels)
 	w.FloatMember("h", r.H)
 	w.FloatMember("h_uncorrected", r.HUncorrected)
 	w.FloatMember("tie_correction", r.TieCorrection)
@@ -196,6 +198,10 @@ func writeInput(w *jsonlite.Writer, in Input) {
 	w.StringMember("measure", in.Measure)
 	w.StringMember("group_column", in.GroupColumn)
 	w.StringMember("measure_column", in.MeasureColumn)
+	w.Key("count_column")
+	w.OptString(in.CountColumn)
+	w.Key("levels")
+	writeStrings(w, in.Levels)
 	w.StringMember("reason", in.Reason)
 	w.Key("other_readings")
 	w.OptString(in.OtherReadings)
@@ -350,4 +356,17 @@ func EncodePage(p PageOf) ([]byte, error) {
 		return nil, err
 	}
 	return append(w.Bytes(), '\n'), nil
+}
+
+// writeStrings writes a list of strings, null for none.
+func writeStrings(w *jsonlite.Writer, list []string) {
+	if list == nil {
+		w.Null()
+		return
+	}
+	w.BeginArray()
+	for _, s := range list {
+		w.String(s)
+	}
+	w.EndArray()
 }

@@ -17,12 +17,13 @@ import (
 // keys of the WebAssembly module and of share links; the command line's
 // flags carry the same names. Zero values mean the defaults.
 type Options struct {
-	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long
+	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long, counts
 	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
 	Decimal   string  `json:"decimal,omitempty"`   // auto (default), point, comma
 	Thousands string  `json:"thousands,omitempty"` // auto (default), none, comma, point, space, apostrophe
 	Group     string  `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
 	Measure   string  `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
+	Count     string  `json:"count,omitempty"`     // a column of counts: each row stands for that many values; implies long
 	Sheet     string  `json:"sheet,omitempty"`     // a spreadsheet file's sheet, by name or 1-based number; default the first
 	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
 	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
@@ -103,7 +104,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 		if v.Kind == jsonlite.Null {
 			continue
 		}
-		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "sheet": &o.Sheet,
+		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "count": &o.Count, "sheet": &o.Sheet,
 			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
@@ -202,7 +203,7 @@ func (o Options) JSON() []byte {
 // write appends the options that differ from the defaults, with the names
 // of their json tags, as members of an open object.
 func (o Options) write(w *jsonlite.Writer) {
-	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"thousands", o.Thousands}, {"group", o.Group}, {"measure", o.Measure}, {"sheet", o.Sheet}} {
+	for _, f := range []struct{ name, v string }{{"layout", o.Layout}, {"separator", o.Separator}, {"decimal", o.Decimal}, {"thousands", o.Thousands}, {"group", o.Group}, {"measure", o.Measure}, {"count", o.Count}, {"sheet", o.Sheet}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -264,10 +265,10 @@ func (o Options) validate() (settings, error) {
 	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
-		return s, &OptionError{"layout", o.Layout, "choose auto, wide or long"}
+		return s, &OptionError{"layout", o.Layout, "choose auto, wide, long or counts"}
 	}
 	s.read.Layout = layout
-	s.read.Group, s.read.Measure = o.Group, o.Measure
+	s.read.Group, s.read.Measure, s.read.Count = o.Group, o.Measure, o.Count
 	switch o.Separator {
 	case "", "auto":
 	case "tab":

@@ -12,6 +12,7 @@ import { renderPreview } from "./js/preview.js";
 import { NO_EDITS, UNDO_KEPT, editGroups, renderEditor, undoEdit, whenEdited } from "./js/editor.js";
 import { renderResults, setStale } from "./js/results.js";
 import { renderPictures, wirePictures } from "./js/pictures.js";
+import { renderLevels } from "./js/levels.js";
 import { renderRanks, wireRanks } from "./js/ranks.js";
 import { wireReports } from "./js/reports.js";
 import { wireShare } from "./js/share.js";
@@ -35,9 +36,12 @@ const bridge = createBridge(
     },
   });
 
-for (const view of [renderPreview, renderEditor, renderResults, renderPictures, renderRanks]) onUpdate(view);
+for (const view of [renderPreview, renderEditor, renderResults, renderLevels, renderPictures, renderRanks]) onUpdate(view);
 
 let started = false;
+// Small inputs are analysed again as you type, once typing pauses.
+const LIVE_LIMIT = 20000; // characters: larger texts wait for a longer pause in typing
+let typingTimer = 0;
 
 function moduleReady(m) {
   $("version").textContent = m.version;
@@ -140,6 +144,7 @@ addEventListener("hashchange", () => {
 // latest request wins.
 async function analyse() {
   const began = performance.now();
+  clearTimeout(typingTimer); // an analysis asked for now makes the one waiting for a pause in typing needless
   setStale(true);
   keep();
   setStatus("Analysing…");
@@ -176,10 +181,6 @@ function cancel() {
   $("progress").hidden = true;
   setStatus("Cancelled. The results shown, if any, are from the previous analysis.");
 }
-
-// Small inputs are analysed again as you type, once typing pauses.
-const LIVE_LIMIT = 20000; // characters: larger texts wait for a longer pause in typing
-let typingTimer = 0;
 
 // reanalyseSoon marks the results out of date and analyses again after a
 // pause, a longer one for texts too large to analyse at every keystroke (not

@@ -9,6 +9,7 @@ import (
 // longColumns are the columns a long reading takes its groups and values from.
 type longColumns struct {
 	group, measure int  // 0-based
+	count          int  // 0-based column of counts, -1 when none
 	header         int8 // the first record is a header: 1, it is not: 0, detect it: -1
 	strict         bool // a cell beyond the two columns is an error (a two-column text read as it stands)
 }
@@ -19,11 +20,14 @@ type longColumns struct {
 // why in t.Reason.
 func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 	p := t.Profile
-	if opt.Group != "" || opt.Measure != "" {
+	if opt.Group != "" || opt.Measure != "" || opt.Count != "" {
 		return t.chosenColumns(opt)
 	}
-	cols := longColumns{group: 0, measure: 1, header: -1, strict: true}
+	cols := longColumns{group: 0, measure: 1, count: -1, header: -1, strict: true}
 	switch t.Layout {
+	case LayoutCounts:
+		t.Reason = "one row per group, its label and then the count of each level, the levels named in the first row, as chosen"
+		return cols, nil
 	case LayoutLong:
 		t.Reason = "one row per value, the group then the value, as chosen"
 		return cols, nil
@@ -31,9 +35,15 @@ func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 		t.Reason = "one column per group, as chosen"
 		return cols, nil
 	}
+	if records := Records(data, t.Separator, 1); len(records) == 1 {
+		if read, ok := countsReading(p, records[0].Cells); ok {
+			t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
+			return cols, nil
+		}
+	}
 	if read, ok := chooseReading(p); ok {
 		t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
-		return longColumns{group: read.Group, measure: read.Measure, header: 1, strict: len(p.Columns) <= 2}, nil
+		return longColumns{group: read.Group, measure: read.Measure, count: -1, header: 1, strict: len(p.Columns) <= 2}, nil
 	}
 	t.Layout = detectLayout(data, t.Separator)
 	t.Reason = "one column per group, its label in the first row"
@@ -47,8 +57,8 @@ func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 // named is the automatic reading's, or else the first (group) or last
 // (measure) other column.
 func (t *Table) chosenColumns(opt Options) (longColumns, error) {
-	if t.Layout == LayoutWide {
-		return longColumns{}, &Error{Reason: "a group or measure column is chosen, which means one row per value, but the layout chosen is one column per group",
+	if t.Layout == LayoutWide || t.Layout == LayoutCounts {
+		return longColumns{}, &Error{Reason: "a group, measure or count column is chosen, which means one row per value, but the layout chosen is " + t.Layout.String(),
 			Fix: "choose the layout auto or long, or leave the columns to the reading"}
 	}
 	p := t.Profile
@@ -65,7 +75,14 @@ func (t *Table) chosenColumns(opt Options) (longColumns, error) {
 	if err != nil {
 		return longColumns{}, err
 	}
+	count, err := p.column(opt.Count, "count")
+	if err != nil {
+		return longColumns{}, err
+	}
 	auto, _ := chooseReading(p)
+	if auto.Layout == LayoutLong && auto.Measure == count {
+		auto.Measure = otherMeasure(p, auto.Group, count)
+	}
 	last := len(p.Columns) - 1
 	if group < 0 {
 		group = 0
@@ -82,18 +99,45 @@ func (t *Table) chosenColumns(opt Options) (longColumns, error) {
 		} else if group == last {
 			measure = last - 1
 		}
+		if measure == count {
+			measure = otherMeasure(p, group, count)
+		}
 	}
-	if group == measure {
-		return longColumns{}, &Error{Reason: fmt.Sprintf("the group and the measure are both column %s", strconv.Quote(p.Columns[group].Name)),
-			Fix: "choose two different columns: one holding the groups, one the values"}
+	if twice := group; group == measure || count == group || count == measure && count >= 0 {
+		if count == measure {
+			twice = measure
+		}
+		return longColumns{}, &Error{Reason: fmt.Sprintf("column %s is chosen for two roles", strconv.Quote(p.Columns[twice].Name)),
+			Fix: "choose different columns for the groups, the values and the counts"}
 	}
 	t.Reason = fmt.Sprintf("groups from column %s and values from column %s, as chosen",
 		strconv.Quote(p.Columns[group].Name), strconv.Quote(p.Columns[measure].Name))
+	if count >= 0 {
+		t.Reason = fmt.Sprintf("groups from column %s, values from column %s, each row counted the number of times column %s says, as chosen",
+			strconv.Quote(p.Columns[group].Name), strconv.Quote(p.Columns[measure].Name), strconv.Quote(p.Columns[count].Name))
+	}
 	header := int8(-1)
 	if p.Header {
 		header = 1
 	}
-	return longColumns{group: group, measure: measure, header: header}, nil
+	return longColumns{group: group, measure: measure, count: count, header: header}, nil
+}
+
+// otherMeasure is the last column of numbers that is neither the group
+// column nor the count column, or the first other column when none holds
+// numbers.
+func otherMeasure(p Profile, group, count int) int {
+	fallback := -1
+	for c := len(p.Columns) - 1; c >= 0; c-- {
+		if c == group || c == count {
+			continue
+		}
+		if p.Columns[c].Numbers > 0 {
+			return c
+		}
+		fallback = c
+	}
+	return fallback
 }
 
 // column finds the column ref names: its 1-based number, else its header

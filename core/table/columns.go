@@ -28,6 +28,7 @@ type ColumnProfile struct {
 	Distinct int    `json:"distinct"` // different cells that are not blank
 	Whole    bool   `json:"-"`        // some cell is a number and every number is a whole number
 	Counting bool   `json:"-"`        // the numbers count up by one from the first (1, 2, 3…): a row number
+	Negative bool   `json:"-"`        // some number is below 0
 }
 
 // kind is what a column looks like to the automatic reading. A cell that
@@ -90,13 +91,9 @@ func ProfileOf(data []byte, sep byte) Profile {
 	var last []float64
 	grow := func(n int) {
 		for len(p.Columns) < n {
-			c := len(p.Columns)
 			p.Columns = append(p.Columns, ColumnProfile{Whole: true, Counting: true, Blanks: p.Records})
 			seen = append(seen, map[string]bool{})
 			last = append(last, math.NaN())
-			if !p.Header {
-				seen[c][first[min(c, len(first)-1)]] = c < len(first)
-			}
 		}
 	}
 	grow(len(first))
@@ -148,6 +145,7 @@ func (p *Profile) count(cells []string, seen []map[string]bool, last []float64) 
 		case cellNumber, cellInfinite:
 			col.Numbers++
 			col.Whole = col.Whole && kind == cellNumber && v == math.Trunc(v)
+			col.Negative = col.Negative || v < 0
 			col.Counting = col.Counting && (math.IsNaN(last[c]) || v == last[c]+1)
 			last[c] = v
 		default:
@@ -180,8 +178,8 @@ type Reading struct {
 //     a tie), or else the last other code column;
 //   - otherwise each column is a group.
 //
-// A first column of row numbers (1, 2, 3…) is never chosen. ok is false when the
-// first record is not a header.
+// A first column of row numbers (1, 2, 3…) is never chosen. ok is false
+// when the first record is not a header.
 func chooseReading(p Profile) (read Reading, ok bool) {
 	if !p.Header || len(p.Columns) == 0 {
 		return Reading{}, false
@@ -267,6 +265,52 @@ func chooseReading(p Profile) (read Reading, ok bool) {
 		read.Others = joinOr(others)
 	}
 	return read, true
+}
+
+// countsReading is the reading of a table of counts, when the text looks
+// like one: a first column of labels each on one row, two or more other
+// columns each of whole numbers of 0 or more, and a first record that names
+// the levels: with a header of text, or, when the levels are numbers, with
+// the codes of a rating scale (0, 1, 2… or 1, 2, 3…), which no row of
+// counts is likely to be.
+func countsReading(p Profile, first []string) (Reading, bool) {
+	if len(p.Columns) < 3 || !isCounts(p) {
+		return Reading{}, false
+	}
+	if !p.Header {
+		if len(first) != len(p.Columns) {
+			return Reading{}, false
+		}
+		start := first[1]
+		if start != "0" && start != "1" {
+			return Reading{}, false
+		}
+		for c, name := range first[1:] {
+			if name != strconv.Itoa(c+int(start[0]-'0')) {
+				return Reading{}, false
+			}
+		}
+	}
+	return Reading{Layout: LayoutCounts,
+		Reason: fmt.Sprintf("one row per group: column %s holds %d labels, each on one row, and the %d other columns whole numbers of 0 or more, counts of the levels named in the first row",
+			strconv.Quote(first[0]), len(first)-1, len(first)-1),
+		Others: "one column per group, the first column naming the rows (choose the layout wide)"}, true
+}
+
+// isCounts reports whether a profile's columns look like counts: a first
+// column of labels each on one row, and two or more other columns, each of
+// whole numbers of 0 or more.
+func isCounts(p Profile) bool {
+	first := p.Columns[0]
+	if first.kind() != labelColumn || first.Distinct != first.Text || first.Numbers > 0 {
+		return false
+	}
+	for _, c := range p.Columns[1:] {
+		if c.Text > 0 || c.Numbers == 0 || !c.Whole || c.Negative {
+			return false
+		}
+	}
+	return true
 }
 
 // joinOr lists choices: "a", "a or b", "a, b or c".

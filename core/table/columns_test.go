@@ -71,8 +71,8 @@ func TestChosenColumns(t *testing.T) {
 		{"the measure only", Options{Measure: "Time"}, 2, 4, ""},
 		{"the group only", Options{Group: "Diet"}, 2, 3, ""},
 		{"no such column", Options{Group: "Feed"}, 0, 0, `there is no column "Feed" for the group`},
-		{"the same column", Options{Group: "weight", Measure: "3"}, 0, 0, "both column"},
-		{"with the wide layout", Options{Group: "Diet", Layout: LayoutWide}, 0, 0, "one column per group"},
+		{"the same column", Options{Group: "weight", Measure: "3"}, 0, 0, "chosen for two roles"},
+		{"with the wide layout", Options{Group: "Diet", Layout: LayoutWide}, 0, 0, "the layout chosen is wide"},
 	} {
 		tab, err := Parse([]byte(text), c.opt)
 		var e *Error

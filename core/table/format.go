@@ -76,13 +76,16 @@ type numberReading struct {
 	decimals    [MarkNone]sighting
 	groups      [MarkNone]sighting
 	ambiguous   [MarkNone]sighting
-	ambiguousAt [MarkNone][]int32 // indexes in Table.Values
+	ambiguousAt [MarkNone][]valueRun // where their values are in Table.Values
 	ungrouped   sighting
 }
 
-// note records the form of a value about to be added to t, at the given
-// place; only a written mark or a long whole part costs anything.
-func (nr *numberReading) note(t *Table, f form, line, column int, group string, text []byte) {
+// valueRun is a cell's value added n times (a row with a count) from index at.
+type valueRun struct{ at, n int32 }
+
+// note records the form of a value about to be added to t n times, at the
+// given place; only a written mark or a long whole part costs anything.
+func (nr *numberReading) note(t *Table, f form, n int, line, column int, group string, text []byte) {
 	if f == (form{}) {
 		return
 	}
@@ -100,7 +103,7 @@ func (nr *numberReading) note(t *Table, f form, line, column int, group string, 
 	}
 	if f.ambiguous != NoMark {
 		see(&nr.ambiguous[f.ambiguous])
-		nr.ambiguousAt[f.ambiguous] = append(nr.ambiguousAt[f.ambiguous], int32(len(t.Values)))
+		nr.ambiguousAt[f.ambiguous] = append(nr.ambiguousAt[f.ambiguous], valueRun{int32(len(t.Values)), int32(n)})
 	}
 	if f.ungrouped {
 		see(&nr.ungrouped)
@@ -204,8 +207,10 @@ func (nr *numberReading) decide(t *Table) error {
 		if asDecimal {
 			dec = m
 			usedComma = usedComma || m == MarkComma
-			for _, i := range nr.ambiguousAt[m] {
-				t.Values[i] /= 1000 // exactly as the cell's digits over 10³ (see parseCell)
+			for _, run := range nr.ambiguousAt[m] {
+				for i := run.at; i < run.at+run.n; i++ {
+					t.Values[i] /= 1000 // exactly as the cell's digits over 10³ (see parseCell)
+				}
 			}
 		} else {
 			th = m

@@ -23,12 +23,18 @@ func FuzzParse(f *testing.F) {
 		"a;b\r1;2\r",
 		"pay\tgrade\n52,300\t1\n980\t2\n1,234,567.5\t1\n",
 		"x;y\n1.234,5;2 300\n3,5;1'000\n",
+		"team,never,rarely,often\nNorth,2,5,9\nSouth,6,,7\n",
+		"site,minutes,n\nA,12,3\nB,15,2\nA,NA,1\n",
 	} {
 		f.Add([]byte(seed), uint8(0))
+		f.Add([]byte(seed), uint8(131))
 	}
 	f.Fuzz(func(t *testing.T, data []byte, mode uint8) {
 		// the low bits choose the layout, the next the decimal mark, the high ones the thousands separator
-		opt := Options{Layout: Layout(mode % 3), Decimal: Mark(mode / 4 % 3), Thousands: Mark(mode / 12 % 6)}
+		opt := Options{Layout: Layout(mode % 4), Decimal: Mark(mode / 4 % 3), Thousands: Mark(mode / 12 % 6)}
+		if mode >= 128 {
+			opt.Count = "3" // the third column counts its row
+		}
 		tab, err := Parse(data, opt)
 		if err != nil {
 			var e *Error

@@ -29,13 +29,14 @@ const (
 	LayoutAuto Layout = iota // decide from the text (see Detect)
 	LayoutWide               // one column per group, labels in the first record
 	LayoutLong               // one record per value: label, value
+	LayoutCounts             // one record per group: label, then the count of each level
 )
 
-var layoutNames = [...]string{"auto", "wide", "long"}
+var layoutNames = [...]string{"auto", "wide", "long", "counts"}
 
 func (l Layout) String() string { return layoutNames[l] }
 
-// ParseLayout maps "auto", "wide" and "long" (or "") to a Layout.
+// ParseLayout maps "auto", "wide", "long" and "counts" (or "") to a Layout.
 func ParseLayout(s string) (Layout, bool) {
 	if s == "" {
 		return LayoutAuto, true
@@ -58,8 +59,9 @@ type Options struct {
 	Decimal, Thousands Mark
 	// Group and Measure choose the columns of a long reading, each by its
 	// header or its 1-based number; "" leaves the choice to the reading.
-	// Either implies the long layout.
-	Group, Measure string
+	// Count names a column of counts: each row stands for that many values.
+	// Any of them implies the long layout.
+	Group, Measure, Count string
 }
 
 // Table is what was read: one entry per value in text order, and one entry
@@ -82,8 +84,13 @@ type Table struct {
 	Header       bool   // long layout: the first record was a header
 	Measure      string // long layout: the measure column's header, naming what was measured
 
-	// long layout: the columns read, 1-based (0 in the wide layout)
-	GroupColumn, MeasureColumn int
+	// long layout: the columns read, 1-based (0 in the wide layout; 0 for
+	// CountColumn when there is none)
+	GroupColumn, MeasureColumn, CountColumn int
+	// counts layout: the levels' names, in column order, and the value that
+	// stands for each (the name when every name is a number, else 1, 2, 3…)
+	Levels      []string
+	LevelValues []float64
 	Reason                     string  // why the text was read so, in one sentence
 	Others                     string  // other plausible readings, "" when there are none
 	Profile                    Profile // the text's columns
@@ -126,9 +133,12 @@ func Parse(data []byte, opt Options) (*Table, error) {
 	if t.Separator == ';' {
 		p.numbers.presumed = MarkComma
 	}
-	if t.Layout == LayoutLong {
+	switch t.Layout {
+	case LayoutLong:
 		t.reserve(lines)
 		return t, p.long(cols)
+	case LayoutCounts:
+		return t, p.counts()
 	}
 	return t, p.wide(lines)
 }
@@ -288,7 +298,7 @@ func (p *parser) wide(lines int) error {
 			case kind == cellNumber:
 				t.Missing[c] += pending[c]
 				pending[c] = 0
-				p.numbers.note(t, form, r.line, c+1, t.Labels[c], f.text)
+				p.numbers.note(t, form, 1, r.line, c+1, t.Labels[c], f.text)
 				t.add(v, c, r.line)
 			case len(f.text) == 0:
 				pending[c]++
@@ -332,7 +342,7 @@ func (p *parser) dropUnlabelled() {
 // and its value in column cols.measure.
 func (p *parser) long(cols longColumns) error {
 	t, r := p.t, p.r
-	t.GroupColumn, t.MeasureColumn = cols.group+1, cols.measure+1
+	t.GroupColumn, t.MeasureColumn, t.CountColumn = cols.group+1, cols.measure+1, cols.count+1
 	index := map[string]int{}
 	lastLabel, last := []byte(nil), -1
 	first := true
@@ -399,11 +409,27 @@ func (p *parser) long(cols longColumns) error {
 			}
 			continue
 		}
+		n := 1
+		if cols.count >= 0 {
+			var cell field
+			if cols.count < len(f) {
+				cell = f[cols.count]
+			}
+			var bad *Error
+			if n, bad = p.count(cell, cols.count+1, t.Labels[g]); bad != nil {
+				if err := p.problem(bad); err != nil {
+					return err
+				}
+				continue
+			}
+		}
 		if kind == cellMissing {
-			t.Missing[g]++
+			t.Missing[g] += n
 		} else {
-			p.numbers.note(t, form, r.line, cols.measure+1, t.Labels[g], value.text)
-			t.add(v, g, r.line)
+			p.numbers.note(t, form, n, r.line, cols.measure+1, t.Labels[g], value.text)
+			for range n {
+				t.add(v, g, r.line)
+			}
 		}
 	}
 }

@@ -104,6 +104,24 @@ var groupColumns = []column[groupRow]{
 	{Column{"letters", "Letters", NoUnit, display.Text}, func(g groupRow) any { return g.letters }},
 }
 
+// levelRow is one level of one group of a table of counts.
+type levelRow struct {
+	group, level string
+	count        int
+	share, upTo  float64 // the share of the group at this level, and at this level or below
+	median       bool    // the group's median falls at this level
+}
+
+// levelColumns are the levels table's columns.
+var levelColumns = []column[levelRow]{
+	{Column{"group", "Group", NoUnit, display.Text}, func(l levelRow) any { return l.group }},
+	{Column{"level", "Level", NoUnit, display.Text}, func(l levelRow) any { return l.level }},
+	{Column{"values", "Values", NoUnit, display.Count}, func(l levelRow) any { return l.count }},
+	{Column{"share", "Share of the group", NoUnit, display.Share}, func(l levelRow) any { return l.share }},
+	{Column{"share_up_to", "Share at this level or below", NoUnit, display.Share}, func(l levelRow) any { return l.upTo }},
+	{Column{"median_here", "Median here", NoUnit, display.Flag}, func(l levelRow) any { return l.median }},
+}
+
 // pairColumns are the pairs table's columns.
 var pairColumns = []column[core.PairResult]{
 	{Column{"first", "First", NoUnit, display.Text}, func(p core.PairResult) any { return p.A }},
@@ -149,9 +167,13 @@ func optional[T any](v *T) any {
 }
 
 // Of gives the tables of an analysis in the order a report shows them: the
-// test's figures, the groups and, when pairs were compared, the pairs.
+// test's figures, the groups, for a table of counts the groups level by
+// level and, when pairs were compared, the pairs.
 func Of(r *core.Result) []Table {
 	out := []Table{Figures(r), Groups(r)}
+	if r.Levels != nil {
+		out = append(out, Levels(r))
+	}
 	if r.PostHoc != nil {
 		out = append(out, Pairs(r))
 	}
@@ -172,7 +194,26 @@ func Groups(r *core.Result) Table {
 			rows[i].letters = r.PostHoc.Letters[g.Label]
 		}
 	}
-	return build("groups", "Groups", "Quartiles: "+r.QuantileMethod+".", r.Input.Measure, groupColumns, rows)
+	note := "Quartiles: " + r.QuantileMethod + "."
+	if l := r.Levels; l != nil && l.Values[0] == 1 && l.Names[0] != "1" {
+		note += fmt.Sprintf(" Values are the levels' places on the scale: 1 (%s) to %d (%s).", l.Names[0], len(l.Names), l.Names[len(l.Names)-1])
+	}
+	return build("groups", "Groups", note, r.Input.Measure, groupColumns, rows)
+}
+
+// Levels is the table of a table of counts' groups level by level; call it
+// only when r.Levels is not nil.
+func Levels(r *core.Result) Table {
+	var rows []levelRow
+	for _, g := range r.Levels.Groups {
+		upTo := 0.0
+		for c, name := range r.Levels.Names {
+			upTo += g.Shares[c]
+			rows = append(rows, levelRow{group: g.Label, level: name, count: g.Counts[c], share: g.Shares[c], upTo: upTo,
+				median: g.MedianLevel == name || strings.HasSuffix(g.MedianLevel, " to "+name) || strings.HasPrefix(g.MedianLevel, name+" to ")})
+		}
+	}
+	return build("levels", "Groups level by level", "Shares of each group's values; the median falls at the level marked, or between the two marked.", "", levelColumns, rows)
 }
 
 // Pairs is the table of the pairwise comparisons; call it only when pairs

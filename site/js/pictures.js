@@ -9,17 +9,17 @@ const MAX_MARKERS = 5000; // beyond this many values the picture shows the boxes
 // too; every marker and bar has a thin outline in the text colour, so that
 // the light colours (yellow, sky blue) stand out from the paper (WCAG 1.4.11).
 const PALETTE = ["#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9", "currentColor", "#F0E442"];
-const OUTLINE = { stroke: "currentColor", "stroke-width": 0.7 };
+export const OUTLINE = { stroke: "currentColor", "stroke-width": 0.7 };
 const SVG = "http://www.w3.org/2000/svg";
 
-function svgEl(name, attrs, parent) {
+export function svgEl(name, attrs, parent) {
   const el = document.createElementNS(SVG, name);
   for (const [k, v] of Object.entries(attrs)) el.setAttribute(k, String(v));
   if (parent) parent.append(el);
   return el;
 }
 
-function svgText(parent, x, y, text, attrs = {}) {
+export function svgText(parent, x, y, text, attrs = {}) {
   const t = svgEl("text", { x, y, fill: "currentColor", "font-size": 12, ...attrs }, parent);
   t.textContent = text;
   return t;

@@ -5,7 +5,7 @@ import { selectLine } from "./input.js";
 import { fillColumns } from "./settings.js";
 
 const separatorNames = { tab: "tab-separated", semicolon: "semicolon-separated", comma: "comma-separated" };
-const layoutNames = { wide: "one column per group", long: "one row per value" };
+const layoutNames = { wide: "one column per group", long: "one row per value", counts: "one row per group, a count per level" };
 
 export function renderPreview(state, changed) {
   if (!changed.has("preview") || !state.preview) return;

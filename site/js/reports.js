@@ -17,10 +17,9 @@ function groupEditsText(r) {
   return parts.join(" ");
 }
 
-// tablesInOrder are the tables a report shows: figures, groups, pairs.
+// tablesInOrder are the tables a report shows, in the core's order.
 function tablesInOrder() {
-  const t = state.tables;
-  return [t.figures, t.groups].concat(t.pairs ? [t.pairs] : []);
+  return Object.values(state.tables);
 }
 
 function htmlReport() {
@@ -41,7 +40,7 @@ function htmlReport() {
     groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
     "<h2>In plain words</h2><p>" + escapeHTML(r.decision) + "</p>",
     ...tablesInOrder().map((t) => htmlOf(t) + (t.name === "figures" ? "<p class=\"note\">" + escapeHTML(r.p_method_reason) + "</p>" : "")),
-    "<h2>Pictures</h2>" + picture("plot-values") + picture("plot-ranks"),
+    "<h2>Pictures</h2>" + (state.result.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks"),
   ];
   if (r.warnings.length) parts.push("<h2>Take note</h2><ul>" + r.warnings.map((w) => "<li>" + escapeHTML(w) + "</li>").join("") + "</ul>");
   parts.push("</body></html>\n");
@@ -68,4 +67,5 @@ export function wireReports() {
   when("save-markdown", () => download("midrank-report.md", "text/markdown", markdownReport()));
   when("save-groups", () => download("midrank-groups.csv", "text/csv", csvOf(state.tables.groups)));
   when("save-pairs", () => { if (state.tables.pairs) download("midrank-pairs.csv", "text/csv", csvOf(state.tables.pairs)); });
+  when("save-levels", () => { if (state.tables.levels) download("midrank-levels.csv", "text/csv", csvOf(state.tables.levels)); });
 }

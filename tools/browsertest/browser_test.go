@@ -470,6 +470,26 @@ func TestPage(t *testing.T) {
 		b.screenshot(t, "midrank-spreadsheet.png")
 	})
 
+	t.Run("a table of counts shows each group level by level", func(t *testing.T) {
+		// R's esoph as a counts table (testdata/counts, tools/reference/counts.R)
+		data, err := os.ReadFile("../../testdata/counts/esoph_counts.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		// R 4.2.2: kruskal.test on the rep()-expanded counts: 13.83 on 5 df (testdata/counts/expected.tsv)
+		if h, df := b.text(t, `[data-result="h"]`), b.text(t, `[data-result="df"]`); h != "13.83" || df != "5" {
+			t.Errorf("esoph counts: H %s on %s df, want R's 13.83 on 5", h, df)
+		}
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#levels-table tbody tr").length +
+			100 * document.querySelectorAll("#plot-levels rect").length`))
+		// 6 groups × 4 levels: 24 rows, 24 bar segments and 4 legend swatches
+		if err != nil || rows != 24+100*28 || b.text(t, "#levels-box h3") == "" {
+			t.Errorf("levels table and bars: %d (%v), want 24 rows and 28 rectangles", rows, err)
+		}
+		b.screenshot(t, "midrank-counts.png")
+	})
+
 	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
 		data := "A,B,C\n3,8,2\n5,6,1\n4,9,3\n"
 		r, err := core.Analyze([]byte(data), core.Options{})
