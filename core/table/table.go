@@ -26,10 +26,10 @@ import (
 type Layout uint8
 
 const (
-	LayoutAuto Layout = iota // decide from the text (see Detect)
-	LayoutWide               // one column per group, labels in the first record
-	LayoutLong               // one record per value: label, value
-	LayoutCounts             // one record per group: label, then the count of each level
+	LayoutAuto   Layout = iota // decide from the text (see Detect)
+	LayoutWide                 // one column per group, labels in the first record
+	LayoutLong                 // one record per value: label, value
+	LayoutCounts               // one record per group: label, then the count of each level
 )
 
 var layoutNames = [...]string{"auto", "wide", "long", "counts"}
@@ -91,9 +91,9 @@ type Table struct {
 	// stands for each (the name when every name is a number, else 1, 2, 3…)
 	Levels      []string
 	LevelValues []float64
-	Reason                     string  // why the text was read so, in one sentence
-	Others                     string  // other plausible readings, "" when there are none
-	Profile                    Profile // the text's columns
+	Reason      string  // why the text was read so, in one sentence
+	Others      string  // other plausible readings, "" when there are none
+	Profile     Profile // the text's columns
 
 	Excluded []Excluded // groups left out by Regroup, in group order
 }
