@@ -116,7 +116,7 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--resamples", "-5", "-"}, data, exitSettings, "", "from 1 to"},
 		{[]string{"--posthoc", "tukey", "-"}, data, exitSettings, "", "choose one of"},
 		{[]string{"--seed", "x", "-"}, data, exitSettings, "", "whole number"},
-		{[]string{"--layout", "diagonal", "-"}, data, exitSettings, "", "auto, wide or long"},
+		{[]string{"--layout", "diagonal", "-"}, data, exitSettings, "", "auto, wide, long or counts"},
 		{[]string{"--nonsense", "-"}, data, exitSettings, "", "flag provided but not defined"},
 		{[]string{}, data, exitSettings, "", "give one input file"},
 		{[]string{"/nonexistent/file.csv"}, "", exitData, "", "cannot read the input"},
