@@ -69,9 +69,13 @@ type Input struct {
 	MeasureColumn string  `json:"measure_column"`
 	CountColumn   *string `json:"count_column"` // the column of counts of a long reading, null when none
 	// Levels are the levels of a table of counts, in order; null otherwise
-	Levels        []string `json:"levels"`
-	Reason        string   `json:"reason"`         // why the text was read so
-	OtherReadings *string  `json:"other_readings"` // other plausible readings, null when there are none
+	Levels []string `json:"levels"`
+	// Unit is the unit written beside the values and taken off them ("min",
+	// "%", "€"), null when none; UnitCells says from how many values
+	Unit          *string `json:"unit"`
+	UnitCells     int     `json:"unit_cells"`
+	Reason        string  `json:"reason"`         // why the text was read so
+	OtherReadings *string `json:"other_readings"` // other plausible readings, null when there are none
 	// OtherNumbers: cells whose marks could be read two ways, and the other
 	// way; null when there are none
 	OtherNumbers *string `json:"other_numbers"`
@@ -308,6 +312,9 @@ func describeInput(t *table.Table) Input {
 		in.CountColumn = &t.Profile.Columns[t.CountColumn-1].Name
 	}
 	in.Levels = t.Levels
+	if t.Unit != "" {
+		in.Unit, in.UnitCells = &t.Unit, t.UnitCells
+	}
 	if t.Others != "" {
 		in.OtherReadings = &t.Others
 	}

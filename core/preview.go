@@ -103,7 +103,7 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 }
 
 // writeProfile writes the columns of a text as
-// {"header", "records", "whole", "list": [{"name", "numbers", "text", "blanks", "distinct"}, …]}.
+// {"header", "records", "whole", "list": [{"name", "numbers", "text", "blanks", "distinct", "unit"}, …]}.
 func writeProfile(w *jsonlite.Writer, p table.Profile) {
 	w.BeginObject()
 	w.BoolMember("header", p.Header)
@@ -118,6 +118,7 @@ func writeProfile(w *jsonlite.Writer, p table.Profile) {
 		w.IntMember("text", c.Text)
 		w.IntMember("blanks", c.Blanks)
 		w.IntMember("distinct", c.Distinct)
+		w.StringMember("unit", c.Unit)
 		w.EndObject()
 	}
 	w.EndArray()

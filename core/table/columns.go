@@ -29,6 +29,14 @@ type ColumnProfile struct {
 	Whole    bool   `json:"-"`        // some cell is a number and every number is a whole number
 	Counting bool   `json:"-"`        // the numbers count up by one from the first (1, 2, 3…): a row number
 	Negative bool   `json:"-"`        // some number is below 0
+	// Unit is the unit written beside numbers in the column ("min", "%"),
+	// "" when none; numbers with units are counted as numbers only when
+	// they all share one and are not a few values each repeated, as codes
+	// are (12 min, 15 min, 9 min…), else as text (4cyl, 6cyl; 1st floor,
+	// 2nd floor)
+	Unit      string `json:"unit"`
+	unitCells int
+	units     int // different units seen, up to 2
 }
 
 // kind is what a column looks like to the automatic reading. A cell that
@@ -123,6 +131,14 @@ func ProfileOf(data []byte, sep byte) Profile {
 		if p.Header && c < len(first) && first[c] != "" {
 			col.Name = first[c]
 		}
+		if codeLike := col.Distinct <= MaxCodes && 2*col.Distinct <= col.unitCells; col.units == 1 && !codeLike {
+			col.Numbers += col.unitCells // one unit: measurements written with it
+			col.Counting = false
+		} else { // labels such as 4cyl, 6cyl, 8cyl, or 1st floor, 2nd floor
+
+			col.Text += col.unitCells
+			col.Unit = ""
+		}
 		col.Whole = col.Whole && col.Numbers > 0
 		col.Counting = col.Counting && col.Numbers > 0
 	}
@@ -137,12 +153,18 @@ func (p *Profile) count(cells []string, seen []map[string]bool, last []float64) 
 			col.Blanks++
 			continue
 		}
-		v, kind, _ := parseCell([]byte(cells[c]))
-		switch kind {
-		case cellMissing:
+		v, kind, _, unit := parseValue([]byte(cells[c]))
+		switch {
+		case kind == cellMissing:
 			col.Blanks++
 			continue
-		case cellNumber, cellInfinite:
+		case unit != "":
+			col.unitCells++
+			if col.units == 0 || unit != col.Unit && col.units == 1 {
+				col.Unit = unit
+				col.units++
+			}
+		case kind == cellNumber || kind == cellInfinite:
 			col.Numbers++
 			col.Whole = col.Whole && kind == cellNumber && v == math.Trunc(v)
 			col.Negative = col.Negative || v < 0

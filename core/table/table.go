@@ -81,8 +81,12 @@ type Table struct {
 	// OtherNumbers is the other reading of cells whose marks could be read
 	// two ways ("52,300"), "" when there are none
 	OtherNumbers string
-	Header       bool   // long layout: the first record was a header
-	Measure      string // long layout: the measure column's header, naming what was measured
+	// Unit is the unit written beside the values ("min", "%", "€"), taken
+	// off UnitCells of them; "" when none
+	Unit      string
+	UnitCells int
+	Header    bool   // long layout: the first record was a header
+	Measure   string // long layout: the measure column's header, naming what was measured
 
 	// long layout: the columns read, 1-based (0 in the wide layout; 0 for
 	// CountColumn when there is none)
@@ -172,6 +176,7 @@ type parser struct {
 	t        *Table
 	r        *reader
 	numbers  numberReading
+	units    unitReading
 	problems Problems
 }
 
@@ -191,6 +196,9 @@ func (p *parser) finish() error {
 	err := p.numbers.decide(p.t)
 	if ps, ok := err.(Problems); ok {
 		p.problems = append(p.problems, ps[:min(len(ps), MaxProblems-len(p.problems))]...)
+	}
+	if e := p.units.decide(p.t); e != nil && len(p.problems) < MaxProblems {
+		p.problems = append(p.problems, e)
 	}
 	if len(p.problems) > 0 {
 		return p.problems
@@ -287,7 +295,7 @@ func (p *parser) wide(lines int) error {
 				}
 				continue
 			}
-			v, kind, form := parseCell(f.text)
+			v, kind, form, unit := parseValue(f.text)
 			if kind > cellMissing {
 				if err := p.problem(p.cellError(f, kind, c+1, t.Labels[c])); err != nil {
 					return err
@@ -299,6 +307,7 @@ func (p *parser) wide(lines int) error {
 				t.Missing[c] += pending[c]
 				pending[c] = 0
 				p.numbers.note(t, form, 1, r.line, c+1, t.Labels[c], f.text)
+				p.units.note(unit, 1, r.line, c+1, t.Labels[c], f.text)
 				t.add(v, c, r.line)
 			case len(f.text) == 0:
 				pending[c]++
@@ -402,7 +411,7 @@ func (p *parser) long(cols longColumns) error {
 				lastLabel = nil
 			}
 		}
-		v, kind, form := parseCell(value.text)
+		v, kind, form, unit := parseValue(value.text)
 		if kind > cellMissing {
 			if err := p.problem(p.cellError(value, kind, cols.measure+1, t.Labels[g])); err != nil {
 				return err
@@ -427,6 +436,7 @@ func (p *parser) long(cols longColumns) error {
 			t.Missing[g] += n
 		} else {
 			p.numbers.note(t, form, n, r.line, cols.measure+1, t.Labels[g], value.text)
+			p.units.note(unit, n, r.line, cols.measure+1, t.Labels[g], value.text)
 			for range n {
 				t.add(v, g, r.line)
 			}

@@ -271,6 +271,43 @@ func TestParseCell(t *testing.T) {
 	}
 }
 
+// TestUnits: one unit written beside the values is taken off them and
+// named; two units, a unit on a few values only, or a word before the
+// number are errors.
+func TestUnits(t *testing.T) {
+	tests := []struct {
+		name, in string
+		want     []float64
+		unit     string
+		measure  string
+		says     string // a part of the error, "" for none
+	}{
+		{"minutes", "site\twait\nA\t12 min\nB\t15 min\nA\t9 min\nB\t20 min\nA\t7 min\n", []float64{12, 15, 9, 20, 7}, "min", "wait (min)", ""},
+		{"a currency before", "A;B\n€ 40;€ 55,50\n€ 41;€ 38\n", []float64{40, 55.5, 41, 38}, "€", "€", ""},
+		{"percent, no space", "A\tB\n35%\t40%\n12.5%\t50%\n", []float64{35, 40, 12.5, 50}, "%", "%", ""},
+		{"two units", "A\tB\n12 min\t1 h\n", nil, "", "", `"1 h" is in "h", but "12 min" (line 2, column 1) is in "min"`},
+		{"a unit on a few values", "A\tB\n12\t13\n14\t15 min\n16\t17\n", nil, "", "", `"15 min" has the unit "min", which 5 of the 6 values lack`},
+		{"a word before the number", "A\tB\nWard 3\t4\n", nil, "", "", `"Ward 3" is not a number`},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			got, err := Parse([]byte(tt.in), Options{})
+			if tt.says != "" {
+				if err == nil || !strings.Contains(err.Error(), tt.says) {
+					t.Errorf("Parse(%q): error %v, want one saying %q", tt.in, err, tt.says)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatalf("Parse(%q): %v", tt.in, err)
+			}
+			if !reflect.DeepEqual(got.Values, tt.want) || got.Unit != tt.unit || got.Measure != tt.measure {
+				t.Errorf("Parse(%q) = %v, unit %q, measure %q; want %v, %q, %q", tt.in, got.Values, got.Unit, got.Measure, tt.want, tt.unit, tt.measure)
+			}
+		})
+	}
+}
+
 // TestNumberFormats: the decimal mark and the thousands separator are
 // decided on every value of the reading, and a cell that could be read two
 // ways follows the others (README, "Numbers").

@@ -14,6 +14,7 @@ export function renderPreview(state, changed) {
   $("read-as").textContent = !input.layout ? "it could not be read"
     : layoutNames[input.layout] + ", " + separatorNames[input.separator] + ", decimal " + input.decimal_mark
       + (input.thousands !== "none" ? ", " + input.thousands + " between thousands" : "")
+      + (input.unit ? ", values in \u201c" + input.unit + "\u201d (taken off " + input.unit_cells.toLocaleString() + " cells)" : "")
       + (p.groups.length ? ", " + p.groups.length + " groups" : "")
       + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
   $("read-reason").textContent = !input.reason ? "" : "Read with " + input.reason + "."

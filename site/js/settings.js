@@ -33,8 +33,8 @@ export function fillColumns(columns) {
     const chosen = select.value;
     const choices = columns.list.map((c, i) => {
       const key = columns.header ? c.name : String(i + 1);
-      return new Option(c.name + " (" + c.distinct.toLocaleString() + " different, " + c.numbers.toLocaleString() + " numbers, "
-        + c.blanks.toLocaleString() + " blank" + note + ")", key);
+      return new Option(c.name + " (" + c.distinct.toLocaleString() + " different, " + c.numbers.toLocaleString() + " numbers"
+        + (c.unit ? " in \u201c" + c.unit + "\u201d" : "") + ", " + c.blanks.toLocaleString() + " blank" + note + ")", key);
     });
     if (chosen && !choices.some((o) => o.value === chosen)) choices.push(new Option(chosen + " (not in this text)", chosen));
     select.replaceChildren(new Option("as read", ""), ...choices);
