@@ -288,6 +288,7 @@ func TestUnits(t *testing.T) {
 		{"two units", "A\tB\n12 min\t1 h\n", nil, "", "", `"1 h" is in "h", but "12 min" (line 2, column 1) is in "min"`},
 		{"a unit on a few values", "A\tB\n12\t13\n14\t15 min\n16\t17\n", nil, "", "", `"15 min" has the unit "min", which 5 of the 6 values lack`},
 		{"a word before the number", "A\tB\nWard 3\t4\n", nil, "", "", `"Ward 3" is not a number`},
+		{"a sign is no unit", "A\tB\n75+\t4\n", nil, "", "", `"75+" is not a number`},
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"strconv"
+	"unicode"
 	"unicode/utf8"
 )
 
@@ -34,7 +35,7 @@ func splitUnit(s []byte) (v float64, f form, unit string, ok bool) {
 	if len(suffix) > 0 {
 		u = suffix
 	}
-	if len(u) > maxUnit || !utf8.Valid(u) || len(prefix) > 0 && bytes.ContainsFunc(prefix, isLetter) {
+	if len(u) > maxUnit || !utf8.Valid(u) || !bytes.ContainsFunc(u, unitLike) || len(prefix) > 0 && bytes.ContainsFunc(prefix, isLetter) {
 		return 0, form{}, "", false
 	}
 	v, kind, f := parseCell(bytes.TrimSpace(s[start:end]))
@@ -47,6 +48,13 @@ func splitUnit(s []byte) (v float64, f form, unit string, ok bool) {
 func isDigit(c byte) bool { return c >= '0' && c <= '9' }
 
 func isLetter(r rune) bool { return r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' }
+
+// unitLike reports whether a unit may hold r: a unit holds a letter, a
+// currency sign or a percent, per mille or degree sign, so that "75+" or
+// "12*" stay text.
+func unitLike(r rune) bool {
+	return unicode.IsLetter(r) || unicode.Is(unicode.Sc, r) || r == '%' || r == '‰' || r == '°'
+}
 
 // unitReading gathers the units written beside the values of one reading.
 // One unit shared by at least half of the values is taken off them and

@@ -48,12 +48,13 @@ type Result struct {
 
 // The size budget (README, "Sizes"), in bytes; TestDeterministic holds
 // every build to it. Raised from 4 MiB raw and 1.1 MiB gzip when the
-// tables of results (0.11 MiB raw) and the spreadsheet reader with number
-// formats (0.21 MiB raw) moved into the core.
+// tables of results (0.11 MiB raw) and the reading of real tables (the
+// spreadsheet reader, number formats, counts and units: 0.29 MiB raw)
+// moved into the core.
 const (
-	BudgetModule       = 44 * (1 << 20) / 10
-	BudgetModuleGzip   = 122 * (1 << 20) / 100
-	BudgetModuleBrotli = 9 * (1 << 20) / 10
+	BudgetModule       = 45 * (1 << 20) / 10
+	BudgetModuleGzip   = 125 * (1 << 20) / 100
+	BudgetModuleBrotli = 92 * (1 << 20) / 100
 	BudgetFirstVisit   = 13 * (1 << 20) / 10
 )
 
