@@ -12,6 +12,7 @@ import (
 	"context"
 	"fmt"
 	"slices"
+	"strconv"
 	"sync"
 
 	"midrank/core/describe"
@@ -76,10 +77,26 @@ type Input struct {
 	UnitCells     int     `json:"unit_cells"`
 	Reason        string  `json:"reason"`         // why the text was read so
 	OtherReadings *string `json:"other_readings"` // other plausible readings, null when there are none
+	// Alternatives are the same readings as the settings that choose them
+	Alternatives []Alternative `json:"alternatives"`
 	// OtherNumbers: cells whose marks could be read two ways, and the other
 	// way; null when there are none
 	OtherNumbers *string `json:"other_numbers"`
 	Excluded     []Left  `json:"excluded"` // groups left out by request, in data order
+}
+
+// Alternative is another plausible reading of the text: the settings that
+// choose it (request keys layout, group and measure; group and measure as
+// the column menus name them: the header, or the number when there is no
+// header), how the reading names it, and the groups and values it would give
+// in the rows the reading looked at.
+type Alternative struct {
+	Layout  string `json:"layout"`
+	Group   string `json:"group"`
+	Measure string `json:"measure"`
+	Words   string `json:"words"`
+	Groups  int    `json:"groups"`
+	Values  int    `json:"values"`
 }
 
 // LeftLabels lists the labels of the groups left out.
@@ -317,6 +334,20 @@ func describeInput(t *table.Table) Input {
 	}
 	if t.Others != "" {
 		in.OtherReadings = &t.Others
+	}
+	in.Alternatives = []Alternative{}
+	for _, a := range t.Alternatives {
+		key := func(c int) string {
+			switch {
+			case c == 0:
+				return ""
+			case t.Profile.Header:
+				return t.Profile.Columns[c-1].Name
+			}
+			return strconv.Itoa(c)
+		}
+		in.Alternatives = append(in.Alternatives, Alternative{Layout: a.Layout.String(), Group: key(a.Group), Measure: key(a.Measure),
+			Words: a.Words, Groups: a.Groups, Values: a.Values})
 	}
 	if t.OtherNumbers != "" {
 		in.OtherNumbers = &t.OtherNumbers

@@ -64,7 +64,7 @@ func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Pre
 // read validates the options, reads the text and describes it; the table
 // is nil when the text cannot be analysed.
 func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
-	p := Preview{Input: Input{Excluded: []Left{}}, Rows: []PreviewRow{}, Groups: []Left{}, Columns: table.Profile{Columns: []table.ColumnProfile{}},
+	p := Preview{Input: Input{Excluded: []Left{}, Alternatives: []Alternative{}}, Rows: []PreviewRow{}, Groups: []Left{}, Columns: table.Profile{Columns: []table.ColumnProfile{}},
 		Problems: []ProblemDetail{}}
 	s, err := opt.validate()
 	var sheetName string

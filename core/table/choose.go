@@ -37,12 +37,12 @@ func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 	}
 	if records := Records(data, t.Separator, 1); len(records) == 1 {
 		if read, ok := countsReading(p, records[0].Cells); ok {
-			t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
+			t.Layout, t.Reason, t.Alternatives, t.Others = read.Layout, read.Reason, read.Alternatives, others(read.Alternatives)
 			return cols, nil
 		}
 	}
 	if read, ok := chooseReading(p); ok {
-		t.Layout, t.Reason, t.Others = read.Layout, read.Reason, read.Others
+		t.Layout, t.Reason, t.Alternatives, t.Others = read.Layout, read.Reason, read.Alternatives, others(read.Alternatives)
 		return longColumns{group: read.Group, measure: read.Measure, count: -1, header: 1, strict: len(p.Columns) <= 2}, nil
 	}
 	t.Layout = detectLayout(data, t.Separator)

@@ -185,9 +185,31 @@ func (p *Profile) count(cells []string, seen []map[string]bool, last []float64) 
 // that are plausible too.
 type Reading struct {
 	Layout         Layout
-	Group, Measure int    // 0-based columns of a long reading
-	Reason         string // why this reading, in one sentence
-	Others         string // the other plausible readings, "" when there are none
+	Group, Measure int           // 0-based columns of a long reading
+	Reason         string        // why this reading, in one sentence
+	Alternatives   []Alternative // the other plausible readings
+}
+
+// Alternative is another plausible reading of a text: the options that
+// choose it, how the reading names it, and how many groups and values it
+// would give in the rows profiled.
+type Alternative struct {
+	Layout         Layout
+	Group, Measure int    // 1-based columns of a long reading, 0 otherwise
+	Words          string // e.g. `groups from "Diet" (4 different)`
+	Groups, Values int
+}
+
+// others names the alternatives in one phrase, "" when there are none.
+func others(alts []Alternative) string {
+	words := make([]string, len(alts))
+	for i, a := range alts {
+		words[i] = a.Words
+	}
+	if len(words) == 0 {
+		return ""
+	}
+	return joinOr(words)
 }
 
 // chooseReading picks the reading of a text whose first record is a
@@ -238,7 +260,9 @@ func chooseReading(p Profile) (read Reading, ok bool) {
 		// every column a few whole numbers: ratings of one group a column, or codes beside ratings
 		wide.Reason = "one column per group: every column holds a few whole numbers, as ratings do"
 		if len(codes) == 2 {
-			wide.Others = fmt.Sprintf("groups from %s (%d codes) and values from %s", name(codes[0]), p.Columns[codes[0]].Distinct, name(codes[1]))
+			wide.Alternatives = []Alternative{{Layout: LayoutLong, Group: codes[0] + 1, Measure: codes[1] + 1,
+				Words:  fmt.Sprintf("groups from %s (%d codes) and values from %s", name(codes[0]), p.Columns[codes[0]].Distinct, name(codes[1])),
+				Groups: p.Columns[codes[0]].Distinct, Values: p.Columns[codes[1]].Numbers}}
 		}
 		return wide, true
 	}
@@ -269,22 +293,22 @@ func chooseReading(p Profile) (read Reading, ok bool) {
 		read.Reason = fmt.Sprintf("groups from column %s, which holds %d different whole numbers, each on several rows: codes of groups, not measurements; values from column %s",
 			name(group), p.Columns[group].Distinct, name(measure))
 	}
-	var others []string
+	long := func(g, m int, words string) Alternative {
+		return Alternative{Layout: LayoutLong, Group: g + 1, Measure: m + 1, Words: words, Groups: p.Columns[g].Distinct, Values: p.Columns[m].Numbers}
+	}
 	for _, g := range groups[1:] {
 		if g != measure && (len(labels) == 0 || p.Columns[g].kind() == labelColumn) {
-			others = append(others, fmt.Sprintf("groups from %s (%d different)", name(g), p.Columns[g].Distinct))
+			read.Alternatives = append(read.Alternatives, long(g, measure, fmt.Sprintf("groups from %s (%d different)", name(g), p.Columns[g].Distinct)))
 		}
 	}
 	for _, m := range measures {
 		if m != measure {
-			others = append(others, "values from "+name(m))
+			read.Alternatives = append(read.Alternatives, long(group, m, "values from "+name(m)))
 		}
 	}
 	if len(labels) == 0 && len(p.Columns) == 2 {
-		others = append(others, "one column per group (2 groups)")
-	}
-	if len(others) > 0 {
-		read.Others = joinOr(others)
+		read.Alternatives = append(read.Alternatives, Alternative{Layout: LayoutWide, Words: "one column per group (2 groups)",
+			Groups: 2, Values: p.Columns[0].Numbers + p.Columns[1].Numbers})
 	}
 	return read, true
 }
@@ -313,10 +337,18 @@ func countsReading(p Profile, first []string) (Reading, bool) {
 			}
 		}
 	}
+	labels, values := p.Columns[0].Text, 0
+	if !p.Header {
+		labels-- // the first record's label names the column
+	}
+	for _, c := range p.Columns[1:] {
+		values += c.Numbers
+	}
 	return Reading{Layout: LayoutCounts,
 		Reason: fmt.Sprintf("one row per group: column %s holds %d labels, each on one row, and the %d other columns whole numbers of 0 or more, counts of the levels named in the first row",
-			strconv.Quote(first[0]), len(first)-1, len(first)-1),
-		Others: "one column per group, the first column naming the rows (choose the layout wide)"}, true
+			strconv.Quote(first[0]), labels, len(p.Columns)-1),
+		Alternatives: []Alternative{{Layout: LayoutWide, Words: "one column per group, the first column naming the rows",
+			Groups: len(p.Columns) - 1, Values: values}}}, true
 }
 
 // isCounts reports whether a profile's columns look like counts: a first

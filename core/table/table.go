@@ -93,11 +93,12 @@ type Table struct {
 	GroupColumn, MeasureColumn, CountColumn int
 	// counts layout: the levels' names, in column order, and the value that
 	// stands for each (the name when every name is a number, else 1, 2, 3…)
-	Levels      []string
-	LevelValues []float64
-	Reason      string  // why the text was read so, in one sentence
-	Others      string  // other plausible readings, "" when there are none
-	Profile     Profile // the text's columns
+	Levels       []string
+	LevelValues  []float64
+	Reason       string        // why the text was read so, in one sentence
+	Others       string        // other plausible readings, "" when there are none
+	Alternatives []Alternative // the same, as the options that choose them
+	Profile      Profile       // the text's columns
 
 	Excluded []Excluded // groups left out by Regroup, in group order
 }

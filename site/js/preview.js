@@ -2,7 +2,7 @@
 // every unreadable cell marked and listed with the core's message.
 import { $ } from "./dom.js";
 import { selectLine } from "./input.js";
-import { fillColumns } from "./settings.js";
+import { chooseAlternative, fillColumns } from "./settings.js";
 
 const separatorNames = { tab: "tab-separated", semicolon: "semicolon-separated", comma: "comma-separated" };
 const layoutNames = { wide: "one column per group", long: "one row per value", counts: "one row per group, a count per level" };
@@ -18,9 +18,18 @@ export function renderPreview(state, changed) {
       + (p.groups.length ? ", " + p.groups.length + " groups" : "")
       + (p.problems.length ? ", " + p.problems.length + (p.problems.length === 1 ? " cell" : " cells") + " to correct" : "");
   $("read-reason").textContent = !input.reason ? "" : "Read with " + input.reason + "."
-    + (input.other_readings ? " It could also be read with " + input.other_readings + ": if that is meant, choose the columns above." : "")
+    + (input.other_readings ? " It could also be read with " + input.other_readings + ": if that is meant, choose it below." : "")
     + (input.other_numbers ? " Some numbers could be read two ways: " + input.other_numbers + " above." : "");
   fillColumns(p.columns);
+  const rows = p.columns.whole ? "" : " in the first " + p.columns.records.toLocaleString() + " rows";
+  $("read-alternatives").replaceChildren(...(input.alternatives ?? []).map((a) => {
+    const button = document.createElement("button");
+    button.type = "button";
+    button.className = "quiet";
+    button.textContent = "Read with " + a.words + ": " + a.groups.toLocaleString() + " groups, " + a.values.toLocaleString() + " values" + rows;
+    button.addEventListener("click", () => chooseAlternative(a));
+    return button;
+  }));
   const marks = new Map(); // "line:column" → message
   for (const q of p.problems) if (q.line && q.column) marks.set(q.line + ":" + q.column, q.message);
   const width = Math.max(1, ...p.rows.map((r) => r.cells.length));

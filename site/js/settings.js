@@ -42,6 +42,15 @@ export function fillColumns(columns) {
   }
 }
 
+// chooseAlternative sets the reading's settings to another reading the
+// core offered ({layout, group, measure}), as one change.
+export function chooseAlternative(a) {
+  $("layout").value = a.layout === "long" ? "auto" : a.layout;
+  $("group").value = a.group;
+  $("measure").value = a.measure;
+  $("layout").dispatchEvent(new Event("change"));
+}
+
 // fillMenus puts the methods the module offers into their menus, once:
 // the module owns their keys and the words shown.
 export function fillMenus(menus) {
