@@ -195,6 +195,9 @@ function reanalyseSoon(pause) {
 
 whenEdited(() => { keep(); analyse(); });
 wireInput((text) => {
+  // a new table (a file, a sheet, a large paste) is read afresh: columns chosen for the last one are let go
+  $("group").value = "";
+  $("measure").value = "";
   setText(text);
   $("demo-note").hidden = true;
   keep();

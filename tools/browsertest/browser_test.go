@@ -441,7 +441,8 @@ func TestPage(t *testing.T) {
 		}
 		b.screenshot(t, "midrank-columns-chosen.png")
 		// the choice is the analyst's until they undo it: back to the reading's
-		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`const c = document.getElementById("group"); c.value = ""; c.dispatchEvent(new Event("change")); true`)); err != nil {
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("measure").value = "";
+			const c = document.getElementById("group"); c.value = ""; c.dispatchEvent(new Event("change")); true`)); err != nil {
 			t.Fatal(err)
 		}
 		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && document.querySelector('[data-result="df"]').textContent === "11"`)
