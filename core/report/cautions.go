@@ -48,7 +48,7 @@ func Warnings(c Cautions) []string {
 		w = append(w, fmt.Sprintf("Some numbers could be read two ways: %s (on the command line --decimal or --thousands).", c.OtherNumbers))
 	}
 	if c.Groups == 2 {
-		w = append(w, "Only two groups are compared. The Kruskal–Wallis test then gives the same p as the two-sided Mann–Whitney (Wilcoxon rank-sum) test with the normal approximation and no continuity correction; reports usually name the Mann–Whitney test, whose figures (U, an exact p for small groups, the shift with its interval) are in the pairs table when the pairs are compared with Mann–Whitney (on the command line --posthoc mann-whitney).")
+		w = append(w, "Only two groups are compared: the Kruskal–Wallis p equals the two-sided Mann–Whitney p in the normal approximation without continuity correction. The Mann–Whitney figures (U, an exact p for small groups, the shift with its interval) are in the pairs table when the pairs are compared with Mann–Whitney (on the command line --posthoc mann-whitney).")
 	}
 	switch small := c.SmallGroups; {
 	case len(small) > 3:

@@ -71,6 +71,9 @@ func Decision(f Facts) string {
 	}
 	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared%s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
 		len(f.Labels), listLabels(f.Labels), n, on)
+	if len(f.Labels) == 2 {
+		b.WriteString("With two groups this is the two-sided Mann–Whitney (Wilcoxon rank-sum) test in its normal approximation, the name most reports use. ")
+	}
 	if len(f.Left) > 0 {
 		fmt.Fprintf(&b, "Left out of this comparison by request: %s. ", listLabels(f.Left))
 	}
