@@ -125,6 +125,17 @@ func TestReadingSpreadsheets(t *testing.T) {
 			}
 		}
 	}
+	// a title merged over the table and a header on two rows ("Loom" merged over wool and tension)
+	data, err := os.ReadFile("../testdata/sheets/warpbreaks_merged.xlsx")
+	if err != nil {
+		t.Fatal(err)
+	}
+	row := want["warpbreaks.csv"]
+	h, _ := strconv.ParseFloat(row[5], 64)
+	r, err := Analyze(data, Options{Group: "Loom tension", Measure: "Breaks", PostHoc: "none", PValue: "asymptotic"})
+	if err != nil || strconv.Itoa(r.N) != row[4] || math.Abs(r.H-h) > 1e-9*h || !strings.Contains(r.Input.Reason, "header is on lines 2 and 3") {
+		t.Errorf("warpbreaks_merged.xlsx: %v %+v; R: N %s H %v", err, r, row[4], h)
+	}
 	if _, err := Analyze([]byte("PK\x03\x04 not a spreadsheet"), Options{}); err == nil || !strings.Contains(err.Error(), "spreadsheet cannot be read") {
 		t.Errorf("a damaged spreadsheet: %v", err)
 	}

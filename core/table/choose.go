@@ -18,7 +18,7 @@ type longColumns struct {
 // columns: as opt chooses them, else from the profile of the text (see
 // chooseReading), else by the first-record rule of detectLayout; and says
 // why in t.Reason.
-func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
+func (t *Table) chooseColumns(data []byte, opt Options, plan headerPlan) (longColumns, error) {
 	p := t.Profile
 	if opt.Group != "" || opt.Measure != "" || opt.Count != "" {
 		return t.chosenColumns(opt)
@@ -35,8 +35,8 @@ func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 		t.Reason = "one column per group, as chosen"
 		return cols, nil
 	}
-	if records := Records(data, t.Separator, 1); len(records) == 1 {
-		if read, ok := countsReading(p, records[0].Cells); ok {
+	if first := p.first; len(first) > 0 {
+		if read, ok := countsReading(p, first); ok {
 			t.Layout, t.Reason, t.Alternatives, t.Others = read.Layout, read.Reason, read.Alternatives, others(read.Alternatives)
 			return cols, nil
 		}
@@ -45,7 +45,7 @@ func (t *Table) chooseColumns(data []byte, opt Options) (longColumns, error) {
 		t.Layout, t.Reason, t.Alternatives, t.Others = read.Layout, read.Reason, read.Alternatives, others(read.Alternatives)
 		return longColumns{group: read.Group, measure: read.Measure, count: -1, header: 1, strict: len(p.Columns) <= 2}, nil
 	}
-	t.Layout = detectLayout(data, t.Separator)
+	t.Layout = detectLayout(data, t.Separator, plan)
 	t.Reason = "one column per group, its label in the first row"
 	if t.Layout == LayoutLong {
 		t.Reason = "one row per value: the first column holds labels of groups, the second the values"

@@ -75,12 +75,15 @@ type Profile struct {
 	Records int             `json:"records"` // records looked at below the first
 	Whole   bool            `json:"whole"`   // the profile covers every record of the text
 	Columns []ColumnProfile `json:"list"`
+	first   []string        // the first record's cells
 }
 
-// ProfileOf profiles data read with the given separator; a cell is counted
-// as a number when it is one in any of the forms parseCell accepts.
-func ProfileOf(data []byte, sep byte) Profile {
+// profileOf profiles data read with the given separator from where the
+// plan says the table starts; a cell is counted as a number when it is one
+// in any of the forms parseCell accepts.
+func profileOf(data []byte, sep byte, plan headerPlan) Profile {
 	r := newReader(data, sep)
+	r.start(plan)
 	var p Profile
 	ok, _ := r.read()
 	if !ok {
@@ -94,7 +97,7 @@ func ProfileOf(data []byte, sep byte) Profile {
 			numbers++
 		}
 	}
-	p.Header = numbers == 0
+	p.Header, p.first = numbers == 0, first
 	var seen []map[string]bool
 	var last []float64
 	grow := func(n int) {

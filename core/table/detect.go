@@ -43,8 +43,9 @@ func DetectSeparator(data []byte) byte {
 // detectLayout applies the documented rule for LayoutAuto: the text is long
 // when its records (among the first 200) use exactly two fields and, below
 // the first record, more first cells are text than numbers; otherwise wide.
-func detectLayout(data []byte, sep byte) Layout {
+func detectLayout(data []byte, sep byte, plan headerPlan) Layout {
 	r := newReader(data, sep)
+	r.start(plan)
 	widest, text, numbers := 0, 0, 0
 	for i := 0; i < sampleLines; i++ {
 		ok, err := r.read()

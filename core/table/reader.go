@@ -34,6 +34,9 @@ type reader struct {
 	// where the next separator and quote at or after some earlier position
 	// are (len(data) if none); a value below pos is stale
 	nextSep, nextQuote int
+	// joined, when not nil, stands for the next record: a header on two
+	// lines, joined (see headerPlan)
+	joined []field
 }
 
 func newReader(data []byte, sep byte) *reader {
@@ -54,6 +57,15 @@ func newReader(data []byte, sep byte) *reader {
 // several times more; and the next separator and quote are remembered, so
 // that each is searched for once.
 func (r *reader) read() (bool, *Error) {
+	ok, err := r.record()
+	if r.joined != nil && ok && err == nil {
+		r.fields, r.joined = append(r.fields[:0], r.joined...), nil
+	}
+	return ok, err
+}
+
+// record reads the next record as it stands in the text (see read).
+func (r *reader) record() (bool, *Error) {
 	d := r.data
 	for r.pos < len(d) {
 		r.line = r.next

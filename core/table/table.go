@@ -126,8 +126,12 @@ func Parse(data []byte, opt Options) (*Table, error) {
 		return nil, &Error{Reason: fmt.Sprintf("the %s is chosen both as the decimal mark and between thousands", opt.Decimal),
 			Fix: "choose different marks"}
 	}
-	t.Profile = ProfileOf(data, t.Separator)
-	cols, err := t.chooseColumns(data, opt)
+	plan := planHeader(data, t.Separator)
+	t.Profile = profileOf(data, t.Separator, plan)
+	cols, err := t.chooseColumns(data, opt, plan)
+	if note := plan.note(); note != "" {
+		t.Reason += "; " + note
+	}
 	if err != nil {
 		return t, err // the profile still shows the columns to choose from
 	}
@@ -138,6 +142,7 @@ func Parse(data []byte, opt Options) (*Table, error) {
 	if t.Separator == ';' {
 		p.numbers.presumed = MarkComma
 	}
+	p.r.start(plan)
 	switch t.Layout {
 	case LayoutLong:
 		t.reserve(lines)

@@ -420,3 +420,43 @@ func TestEditsFor(t *testing.T) {
 		t.Errorf("For of edits that all name absent labels = %+v, want none", got)
 	}
 }
+
+// TestTitlesAndTwoLineHeaders: title lines above a table are passed over,
+// and a header on two lines (a cell merged over several columns) is joined,
+// each said in the reason; other texts are read as they stand.
+func TestTitlesAndTwoLineHeaders(t *testing.T) {
+	tests := []struct {
+		name, in string
+		opt      Options
+		values   []float64
+		lines    []int32
+		reason   string // a part of the reason, "" when nothing is passed over or joined
+	}{
+		{"a title", "Staff survey 2026\n\nsite,wait\nNorth,12\nSouth,15\nNorth,11\n", Options{},
+			[]float64{12, 15, 11}, []int32{4, 5, 6}, `the title "Staff survey 2026" above the table is passed over`},
+		{"a header on two lines", "Site,Waiting time,\n,min,max\nNorth,12,30\nSouth,15,40\nNorth,11,25\n", Options{Group: "Site", Measure: "Waiting time max"},
+			[]float64{30, 40, 25}, []int32{3, 4, 5}, `the header is on lines 1 and 2 (a cell merged over several columns), read as "Site", "Waiting time min", "Waiting time max"`},
+		{"a bad first value is no header", "site,minutes\nNorth,x\nSouth,3\n", Options{}, nil, nil, ""},
+		{"one column is no title", "A\tB\n1\t2\n3\t4\n", Options{}, []float64{1, 2, 3, 4}, []int32{2, 2, 3, 3}, ""},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			got, err := Parse([]byte(tt.in), tt.opt)
+			if tt.values == nil {
+				if err == nil || strings.Contains(got.Reason, "header is on lines") {
+					t.Errorf("Parse(%q) = %v, %v; want an error for the bad cell, read as it stands", tt.in, got, err)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatalf("Parse(%q): %v", tt.in, err)
+			}
+			if !reflect.DeepEqual(got.Values, tt.values) || !reflect.DeepEqual(got.Lines, tt.lines) {
+				t.Errorf("Parse(%q) = %v on lines %v, want %v on %v", tt.in, got.Values, got.Lines, tt.values, tt.lines)
+			}
+			if (tt.reason == "") == strings.Contains(got.Reason, "; the") || !strings.Contains(got.Reason, tt.reason) {
+				t.Errorf("Parse(%q) reason %q, want one with %q", tt.in, got.Reason, tt.reason)
+			}
+		})
+	}
+}

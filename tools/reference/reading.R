@@ -36,6 +36,9 @@ files <- list(
        group = "region", measure = "Income", data = states, automatic = "offered"),
   list(file = "states_thousands_point.csv", write = function(f) write.csv2(states_grouped("."), f, row.names = FALSE),
        group = "region", measure = "Income", data = states, automatic = "offered"),
+  # the source of testdata/sheets/warpbreaks_merged.xlsx (tools/reference/sheets.py)
+  list(file = "warpbreaks.csv", write = function(f) write.csv(warpbreaks, f, row.names = FALSE),
+       group = "tension", measure = "breaks", data = warpbreaks, automatic = "offered"),
   list(file = "morley_thousands_comma.tsv",
        write = function(f) write.table(transform(morley, Speed = grouped(Speed, ",")), f, sep = "\t", quote = FALSE, row.names = FALSE),
        group = "Expt", measure = "Speed", data = morley)

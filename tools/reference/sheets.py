@@ -32,6 +32,29 @@ def cell(v):
     return str(v)
 
 
+# R's warpbreaks with a title merged over the table and a header on two rows, "Loom" merged over wool and tension,
+# as a report-style export has it (openpyxl: merged cells keep their value in the top-left cell only)
+def merged_book(path):
+    from openpyxl import Workbook
+    wb = Workbook()
+    ws = wb.active
+    ws.title = "warpbreaks"
+    ws.append(["Warp breaks by wool and tension (R dataset warpbreaks)"])
+    ws.merge_cells("A1:C1")
+    ws.append(["Loom", None, "Breaks"])
+    ws.merge_cells("A2:B2")
+    ws.append(["wool", "tension", None])
+    for row in pd.read_csv(f"{src}/warpbreaks.csv").itertuples(index=False):
+        ws.append([row.wool, row.tension, int(row.breaks)])
+    wb.save(path)
+
+
+merged_book(f"{out}/warpbreaks_merged.xlsx")
+df = pd.read_excel(f"{out}/warpbreaks_merged.xlsx", header=None, engine="openpyxl")
+with open(f"{out}/warpbreaks_merged.xlsx.1.tsv", "w") as f:
+    for row in df.itertuples(index=False):
+        f.write("\t".join(cell(v) for v in row) + "\n")
+
 for book, sheets in books.items():
     for ext, engine in (("xlsx", "openpyxl"), ("ods", "odf")):
         path = f"{out}/{book}.{ext}"
