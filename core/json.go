@@ -87,11 +87,7 @@ func Encode(r *Result) ([]byte, error) {
 	w.Key("posthoc")
 	writePostHoc(&w, r.PostHoc)
 	w.Key("warnings")
-	w.BeginArray()
-	for _, m := range r.Warnings {
-		w.String(m)
-	}
-	w.EndArray()
+	writeStrings(&w, r.Warnings)
 	w.StringMember("decision", r.Decision)
 	w.EndObject()
 	if err := w.Err(); err != nil {

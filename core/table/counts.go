@@ -18,12 +18,8 @@ const MaxCounted = 10_000_000
 // the levels in column order. A blank count is 0.
 func (p *parser) counts() error {
 	t, r := p.t, p.r
-	ok, err := r.read()
-	if err != nil {
+	if err := p.header("paste or open a table with the levels in the first row and a row of counts per group"); err != nil {
 		return err
-	}
-	if !ok {
-		return &Error{Reason: "there is no data", Fix: "paste or open a table with the levels in the first row and a row of counts per group"}
 	}
 	header := r.line
 	levels := r.fields[1:]

@@ -249,14 +249,23 @@ func isDate(s []byte) bool {
 	return true
 }
 
-func (p *parser) wide(lines int) error {
-	t, r := p.t, p.r
-	ok, err := r.read()
+// header reads the table's first record; fix says what a text without
+// one should hold.
+func (p *parser) header(fix string) error {
+	ok, err := p.r.read()
 	if err != nil {
 		return err
 	}
 	if !ok {
-		return &Error{Reason: "there is no data", Fix: "paste or open a table with a label row and values below it"}
+		return &Error{Reason: "there is no data", Fix: fix}
+	}
+	return nil
+}
+
+func (p *parser) wide(lines int) error {
+	t, r := p.t, p.r
+	if err := p.header("paste or open a table with a label row and values below it"); err != nil {
+		return err
 	}
 	header := r.line
 	if len(r.fields) > MaxGroups {
