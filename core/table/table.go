@@ -1,19 +1,24 @@
 // Package table reads the groups to compare from delimited text, as analysts
 // paste it from a spreadsheet or save it as a file.
 //
-// Two layouts are understood:
+// Three layouts are understood:
 //
 //   - wide: the first record holds the group labels, one column per group, in
 //     column order. A blank cell below the last value of a column is padding; a
 //     blank cell above a value of the same column is a missing value.
-//   - long: two fields per record, the group label then the value. A header
-//     record is optional (it is recognised by a second field that is neither a
-//     number nor a missing marker). Groups keep their order of first appearance.
+//   - long: one record per value, a column of group labels or codes and a
+//     column of values, chosen or found from a profile of the columns
+//     (columns.go, choose.go); a column of counts may stand each record for
+//     several values. Groups keep their order of first appearance.
+//   - counts: one record per group, its label and the count of each level of
+//     an ordered scale named in the first record (counts.go).
 //
 // Fields are separated by tab, semicolon or comma (RFC 4180 quoting), detected
-// from the first lines; a decimal comma is accepted when the separator is a
-// tab or a semicolon. The missing markers are the empty cell, NA, N/A, NaN,
-// "." and "-" in any letter case. Records whose cells are all empty are skipped.
+// from the first lines. Numbers may have a decimal point or comma and a
+// thousands separator, decided on every value read (format.go), and a unit
+// (unit.go); title lines and a header on two lines are recognised
+// (header.go). The missing markers are the empty cell, NA, N/A, NaN, "." and
+// "-" in any letter case. Records whose cells are all empty are skipped.
 package table
 
 import (
@@ -260,239 +265,4 @@ func (p *parser) header(fix string) error {
 		return &Error{Reason: "there is no data", Fix: fix}
 	}
 	return nil
-}
-
-func (p *parser) wide(lines int) error {
-	t, r := p.t, p.r
-	if err := p.header("paste or open a table with a label row and values below it"); err != nil {
-		return err
-	}
-	header := r.line
-	if len(r.fields) > MaxGroups {
-		return tooManyGroups(header, MaxGroups+1)
-	}
-	seen := map[string]int{}
-	for c, f := range r.fields {
-		if err := checkLabel(f.text, header, c+1); err != nil {
-			return err
-		}
-		label := f.String()
-		if label != "" {
-			if first, dup := seen[label]; dup {
-				return &Error{Line: header, Column: c + 1, Group: label,
-					Reason: fmt.Sprintf("columns %d and %d are both labelled %q", first, c+1, label),
-					Fix:    "give each group its own label"}
-			}
-			seen[label] = c + 1
-		}
-		t.Labels = append(t.Labels, label)
-	}
-	t.reserve(lines * len(t.Labels))
-	t.Missing = make([]int, len(t.Labels))
-	pending := make([]int, len(t.Labels)) // blank cells not yet known to be missing
-	for {
-		ok, err := r.read()
-		if err != nil {
-			return err
-		}
-		if !ok {
-			break
-		}
-		for c, f := range r.fields {
-			if c >= len(t.Labels) || t.Labels[c] == "" {
-				if isMissing(f.text) {
-					continue
-				}
-				if err := p.problem(&Error{Line: r.line, Column: c + 1, Found: quoteFound(f.text),
-					Reason: fmt.Sprintf("%q has no group label above it", quoteFound(f.text)),
-					Fix:    fmt.Sprintf("add a label in line %d, column %d, or remove the cell", header, c+1)}); err != nil {
-					return err
-				}
-				continue
-			}
-			v, kind, form, unit := parseValue(f.text)
-			if kind > cellMissing {
-				if err := p.problem(p.cellError(f, kind, c+1, t.Labels[c])); err != nil {
-					return err
-				}
-				continue
-			}
-			switch {
-			case kind == cellNumber:
-				t.Missing[c] += pending[c]
-				pending[c] = 0
-				p.numbers.note(t, form, 1, r.line, c+1, t.Labels[c], f.text)
-				p.units.note(unit, 1, r.line, c+1, t.Labels[c], f.text)
-				t.add(v, c, r.line)
-			case len(f.text) == 0:
-				pending[c]++
-			default: // an explicit missing marker
-				t.Missing[c] += pending[c] + 1
-				pending[c] = 0
-			}
-		}
-		for c := len(r.fields); c < len(t.Labels); c++ {
-			pending[c]++
-		}
-	}
-	p.dropUnlabelled()
-	return p.finish()
-}
-
-// dropUnlabelled removes columns that have neither a label nor values (for
-// example the empty column a trailing separator makes), renumbering groups.
-func (p *parser) dropUnlabelled() {
-	t := p.t
-	newIndex := make([]int32, len(t.Labels))
-	kept := 0
-	for c, label := range t.Labels {
-		newIndex[c] = int32(kept)
-		if label != "" {
-			t.Labels[kept] = label
-			t.Missing[kept] = t.Missing[c]
-			kept++
-		}
-	}
-	if kept == len(t.Labels) {
-		return
-	}
-	t.Labels, t.Missing = t.Labels[:kept], t.Missing[:kept]
-	for i, g := range t.Groups {
-		t.Groups[i] = newIndex[g]
-	}
-}
-
-// long reads one value per record, its group label in column cols.group
-// and its value in column cols.measure.
-func (p *parser) long(cols longColumns) error {
-	t, r := p.t, p.r
-	t.GroupColumn, t.MeasureColumn, t.CountColumn = cols.group+1, cols.measure+1, cols.count+1
-	index := map[string]int{}
-	lastLabel, last := []byte(nil), -1
-	first := true
-	for {
-		ok, err := r.read()
-		if err != nil {
-			return err
-		}
-		if !ok {
-			return p.finish()
-		}
-		f := r.fields
-		if cols.strict && len(f) > 2 {
-			if err := p.problem(&Error{Line: r.line, Column: 3, Found: quoteFound(f[2].text),
-				Reason: fmt.Sprintf("there is a third cell (%q), but the long layout has two: group label, then value", quoteFound(f[2].text)),
-				Fix:    "remove the extra cells, or choose the group and measure columns"}); err != nil {
-				return err
-			}
-			continue
-		}
-		var label, value field
-		if cols.group < len(f) {
-			label = f[cols.group]
-		}
-		if cols.measure < len(f) {
-			value = f[cols.measure]
-		}
-		if first {
-			first = false
-			header := cols.header == 1
-			if cols.header < 0 {
-				_, kind, _ := parseCell(value.text)
-				header = kind == cellText
-			}
-			if header {
-				t.Header = true
-				t.Measure = value.String()
-				continue
-			}
-		}
-		if len(label.text) == 0 {
-			if err := p.problem(&Error{Line: r.line, Column: cols.group + 1,
-				Reason: "the value has no group label",
-				Fix:    fmt.Sprintf("write the group label in column %d of the line", cols.group+1)}); err != nil {
-				return err
-			}
-			continue
-		}
-		g := last
-		if !bytes.Equal(label.text, lastLabel) || label.escaped {
-			var bad error
-			if g, bad = p.groupOf(index, label, cols.group+1); bad != nil {
-				return bad
-			}
-			lastLabel, last = label.text, g
-			if label.escaped {
-				lastLabel = nil
-			}
-		}
-		v, kind, form, unit := parseValue(value.text)
-		if kind > cellMissing {
-			if err := p.problem(p.cellError(value, kind, cols.measure+1, t.Labels[g])); err != nil {
-				return err
-			}
-			continue
-		}
-		n := 1
-		if cols.count >= 0 {
-			var cell field
-			if cols.count < len(f) {
-				cell = f[cols.count]
-			}
-			var bad *Error
-			if n, bad = p.count(cell, cols.count+1, t.Labels[g]); bad != nil {
-				if err := p.problem(bad); err != nil {
-					return err
-				}
-				continue
-			}
-		}
-		if kind == cellMissing {
-			t.Missing[g] += n
-		} else {
-			p.numbers.note(t, form, n, r.line, cols.measure+1, t.Labels[g], value.text)
-			p.units.note(unit, n, r.line, cols.measure+1, t.Labels[g], value.text)
-			for range n {
-				t.add(v, g, r.line)
-			}
-		}
-	}
-}
-
-// groupOf finds or adds the group of a label; looking up a plain label
-// allocates nothing.
-func (p *parser) groupOf(index map[string]int, label field, column int) (int, error) {
-	t := p.t
-	if !label.escaped && len(t.Labels) <= 8 {
-		// a few comparisons beat hashing for the usual handful of groups
-		text := label.text
-		for g, l := range t.Labels {
-			// length and first byte first: most mismatches end there, without a call
-			if string(text) == l {
-				return g, nil
-			}
-		}
-	}
-	var g int
-	var known bool
-	if label.escaped {
-		g, known = index[label.String()]
-	} else {
-		g, known = index[string(label.text)]
-	}
-	if known {
-		return g, nil
-	}
-	if err := checkLabel(label.text, p.r.line, column); err != nil {
-		return 0, err
-	}
-	if len(t.Labels) == MaxGroups {
-		return 0, tooManyGroups(p.r.line, column)
-	}
-	g = len(t.Labels)
-	name := label.String()
-	index[name] = g
-	t.Labels = append(t.Labels, name)
-	t.Missing = append(t.Missing, 0)
-	return g, nil
 }
