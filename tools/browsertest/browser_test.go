@@ -980,42 +980,13 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("fits 360 px and keeps text contrast at 4.5:1, light and dark", func(t *testing.T) {
-		b.analyse(t, string(demo))
-		// contrast is the WCAG 2 ratio of each visible text element's colour
-		// and the first opaque background behind it
-		check := `(() => {
-			const rgb = (c) => c.match(/[\d.]+/g).map(Number);
-			const lum = ([r, g, b]) => [r, g, b].map((v) => { v /= 255; return v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4; })
-				.reduce((s, v, i) => s + v * [0.2126, 0.7152, 0.0722][i], 0);
-			const back = (el) => { for (; el; el = el.parentElement) { const c = getComputedStyle(el).backgroundColor; if (rgb(c)[3] !== 0 && c !== "rgba(0, 0, 0, 0)") return c; } return "rgb(255, 255, 255)"; };
-			const worst = [];
-			for (const el of document.querySelectorAll("main *, .masthead *, .colophon *")) {
-				if (!el.checkVisibility() || el.disabled || ![...el.childNodes].some((n) => n.nodeType === 3 && n.textContent.trim())) continue;
-				const a = lum(rgb(getComputedStyle(el).color)), b = lum(rgb(back(el)));
-				const ratio = (Math.max(a, b) + 0.05) / (Math.min(a, b) + 0.05);
-				if (ratio < 4.5) worst.push(el.tagName + "." + el.className + " " + ratio.toFixed(2) + " " + el.textContent.slice(0, 30));
-			}
-			return worst.concat(document.scrollingElement.scrollWidth > innerWidth ? ["page scrolls sideways: " + document.scrollingElement.scrollWidth] : []);
-		})()`
-		for _, scheme := range []string{"light", "dark"} {
-			media := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
-				_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{
-					Features: []*emulation.MediaFeature{{Name: "prefers-color-scheme", Value: scheme}}})
-				return err
-			})
-			if err := chromedp.Do(b.ctx, media, chromedp.EmulateViewport(360, 800)); err != nil {
-				t.Fatal(err)
-			}
-			problems, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](check))
-			if err != nil {
-				t.Fatal(err)
-			}
-			if len(problems) > 0 {
-				t.Errorf("%s at 360 px: %d problems, e.g. %q", scheme, len(problems), problems[:min(5, len(problems))])
-			}
-		}
-		if err := chromedp.Do(b.ctx, chromedp.EmulateViewport(1200, 900)); err != nil {
+		// the demo, and a table of counts (R's esoph), whose groups are shown level by level too
+		counts, err := os.ReadFile("../../testdata/counts/esoph_counts.csv")
+		if err != nil {
 			t.Fatal(err)
+		}
+		for _, data := range []string{string(counts), string(demo)} {
+			fitsAndReads(t, b, data)
 		}
 	})
 
@@ -1069,4 +1040,47 @@ func TestOfflineFile(t *testing.T) {
 	}
 	b.requests = kept
 	b.checkRequests(t)
+}
+
+// fitsAndReads analyses data and checks that the page fits 360 px and keeps
+// text contrast at 4.5:1, light and dark.
+func fitsAndReads(t *testing.T, b *browser, data string) {
+	t.Helper()
+	b.analyse(t, data)
+	// contrast is the WCAG 2 ratio of each visible text element's colour
+	// and the first opaque background behind it
+	check := `(() => {
+		const rgb = (c) => c.match(/[\d.]+/g).map(Number);
+		const lum = ([r, g, b]) => [r, g, b].map((v) => { v /= 255; return v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4; })
+			.reduce((s, v, i) => s + v * [0.2126, 0.7152, 0.0722][i], 0);
+		const back = (el) => { for (; el; el = el.parentElement) { const c = getComputedStyle(el).backgroundColor; if (rgb(c)[3] !== 0 && c !== "rgba(0, 0, 0, 0)") return c; } return "rgb(255, 255, 255)"; };
+		const worst = [];
+		for (const el of document.querySelectorAll("main *, .masthead *, .colophon *")) {
+			if (!el.checkVisibility() || el.disabled || ![...el.childNodes].some((n) => n.nodeType === 3 && n.textContent.trim())) continue;
+			const a = lum(rgb(getComputedStyle(el).color)), b = lum(rgb(back(el)));
+			const ratio = (Math.max(a, b) + 0.05) / (Math.min(a, b) + 0.05);
+			if (ratio < 4.5) worst.push(el.tagName + "." + el.className + " " + ratio.toFixed(2) + " " + el.textContent.slice(0, 30));
+		}
+		return worst.concat(document.scrollingElement.scrollWidth > innerWidth ? ["page scrolls sideways: " + document.scrollingElement.scrollWidth] : []);
+	})()`
+	for _, scheme := range []string{"light", "dark"} {
+		media := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+			_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{
+				Features: []*emulation.MediaFeature{{Name: "prefers-color-scheme", Value: scheme}}})
+			return err
+		})
+		if err := chromedp.Do(b.ctx, media, chromedp.EmulateViewport(360, 800)); err != nil {
+			t.Fatal(err)
+		}
+		problems, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](check))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(problems) > 0 {
+			t.Errorf("%s at 360 px: %d problems, e.g. %q", scheme, len(problems), problems[:min(5, len(problems))])
+		}
+	}
+	if err := chromedp.Do(b.ctx, chromedp.EmulateViewport(1200, 900)); err != nil {
+		t.Fatal(err)
+	}
 }
