@@ -224,7 +224,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 			if !p.Significant {
 				continue
 			}
-			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: p.PAdjusted, Superiority: p.ProbSuperiority}
+			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: *p.PAdjusted, Superiority: p.ProbSuperiority}
 			if p.ProbSuperiority < 0.5 {
 				d.Higher, d.Lower, d.Superiority = p.B, p.A, 1-p.ProbSuperiority
 			}

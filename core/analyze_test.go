@@ -284,8 +284,8 @@ func TestLettersMatchPairs(t *testing.T) {
 				if shared == p.Significant {
 					t.Errorf("%s %s: %s (%s) and %s (%s): significant %v", name, method, p.A, r.PostHoc.Letters[p.A], p.B, r.PostHoc.Letters[p.B], p.Significant)
 				}
-				if p.PAdjusted < p.P {
-					t.Errorf("%s %s: adjusted %v below raw %v", name, method, p.PAdjusted, p.P)
+				if *p.PAdjusted < *p.P {
+					t.Errorf("%s %s: adjusted %v below raw %v", name, method, *p.PAdjusted, *p.P)
 				}
 			}
 		}
@@ -382,5 +382,37 @@ func TestMenus(t *testing.T) {
 	}
 	if !bytes.Contains(EncodeMenus(), []byte(`{"key":"none","label":"no pairwise comparison"}`)) {
 		t.Errorf("EncodeMenus = %s", EncodeMenus())
+	}
+}
+
+// TestConoverWithoutDegreesOfFreedom: with one value per group Conover–Iman's
+// t has N − k = 0 degrees of freedom and is undefined: no statistic, no p,
+// nothing significant, and a caution says why; with groups each constant
+// but different its t is infinite (null) with p = 0 (the limit of the
+// formula in core/posthoc, common practice to report as p < any level).
+func TestConoverWithoutDegreesOfFreedom(t *testing.T) {
+	r, err := Analyze([]byte("A,B,C\n1,2,3\n"), Options{PostHoc: "conover"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range r.PostHoc.Pairs {
+		if p.Statistic != nil || p.P != nil || p.PAdjusted != nil || p.Significant {
+			t.Errorf("%s–%s: statistic %v p %v adjusted %v significant %v, want none", p.A, p.B, p.Statistic, p.P, p.PAdjusted, p.Significant)
+		}
+	}
+	if !strings.Contains(strings.Join(r.Warnings, " "), "no statistic and no p") {
+		t.Errorf("warnings %q, want the reason the pairs have no test", r.Warnings)
+	}
+	r, err = Analyze([]byte("A,B,C\n1,2,3\n1,2,3\n1,2,3\n"), Options{PostHoc: "conover"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range r.PostHoc.Pairs {
+		if p.Statistic != nil || p.P == nil || *p.P != 0 || !p.Significant {
+			t.Errorf("%s–%s: statistic %v p %v significant %v, want an infinite statistic with p 0", p.A, p.B, p.Statistic, p.P, p.Significant)
+		}
+	}
+	if !strings.Contains(strings.Join(r.Warnings, " "), "In 3 pairs every group's values are all equal") {
+		t.Errorf("warnings %q, want the infinite statistics named", r.Warnings)
 	}
 }

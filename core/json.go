@@ -151,9 +151,9 @@ func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
 		w.BeginObject()
 		w.StringMember("a", p.A)
 		w.StringMember("b", p.B)
-		w.FloatMember("statistic", p.Statistic)
-		w.FloatMember("p", p.P)
-		w.FloatMember("p_adjusted", p.PAdjusted)
+		w.OptFloatMember("statistic", p.Statistic)
+		w.OptFloatMember("p", p.P)
+		w.OptFloatMember("p_adjusted", p.PAdjusted)
 		w.BoolMember("significant", p.Significant)
 		w.BoolMember("exact", p.Exact)
 		for _, f := range []struct {

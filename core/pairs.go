@@ -17,15 +17,22 @@ type PostHoc struct {
 	Confidence float64           `json:"confidence"` // of the Hodges–Lehmann intervals, 1 − alpha
 	Pairs      []PairResult      `json:"pairs"`
 	Letters    map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
+	// Undefined: the procedure gives no test for the pairs (see
+	// posthoc.Pair); Infinite counts the pairs whose statistic is infinite
+	Undefined bool `json:"-"`
+	Infinite  int  `json:"-"`
 }
 
 // PairResult is one comparison, a before b in input order.
 type PairResult struct {
 	A           string  `json:"a"`
 	B           string  `json:"b"`
-	Statistic   float64 `json:"statistic"` // signed, positive when a tends higher; U of a for mann-whitney
-	P           float64 `json:"p"`         // two-sided
-	PAdjusted   float64 `json:"p_adjusted"`
+	// Statistic is signed, positive when a tends higher (U of a for
+	// mann-whitney); null when it is infinite or undefined. P (two-sided) and
+	// PAdjusted are null when the test is undefined for the pair.
+	Statistic   *float64 `json:"statistic"`
+	P           *float64 `json:"p"`
+	PAdjusted   *float64 `json:"p_adjusted"`
 	Significant bool    `json:"significant"` // p_adjusted ≤ alpha
 	Exact       bool    `json:"exact"`       // mann-whitney: exact null distribution
 	// effect sizes
@@ -53,9 +60,12 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 	if err != nil {
 		return nil, err
 	}
-	raw := make([]float64, len(pairs))
-	for i, p := range pairs {
-		raw[i] = p.P
+	// the family is the pairs that have a p
+	var raw []float64
+	for _, p := range pairs {
+		if !p.Undefined {
+			raw = append(raw, p.P)
+		}
 	}
 	adjusted, err := adjust.Adjust(raw, s.adjust)
 	if err != nil {
@@ -64,15 +74,25 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 	ph := &PostHoc{Method: s.posthoc, Adjust: s.adjust, Confidence: 1 - s.alpha, Letters: map[string]string{}}
 	k := len(groups)
 	differ := make([]bool, k*k)
-	for i, p := range pairs {
-		sig := report.Significant(adjusted[i], s.alpha)
-		differ[p.A*k+p.B], differ[p.B*k+p.A] = sig, sig
-		ph.Pairs = append(ph.Pairs, PairResult{
-			A: groups[p.A].Label, B: groups[p.B].Label,
-			Statistic: p.Statistic, P: p.P, PAdjusted: adjusted[i], Significant: sig, Exact: p.Exact,
+	next := 0
+	for _, p := range pairs {
+		pr := PairResult{A: groups[p.A].Label, B: groups[p.B].Label, Exact: p.Exact,
 			ProbSuperiority: p.ProbSuperiority, CliffsDelta: p.CliffsDelta,
-			Shift: p.Shift, ShiftLow: p.ShiftLow, ShiftHigh: p.ShiftHigh,
-		})
+			Shift: p.Shift, ShiftLow: p.ShiftLow, ShiftHigh: p.ShiftHigh}
+		if !p.Undefined {
+			pr.P, pr.PAdjusted = &p.P, &adjusted[next]
+			pr.Significant = report.Significant(adjusted[next], s.alpha)
+			next++
+		}
+		if !p.Undefined && !p.Infinite {
+			pr.Statistic = &p.Statistic
+		}
+		ph.Undefined = ph.Undefined || p.Undefined
+		if p.Infinite {
+			ph.Infinite++
+		}
+		differ[p.A*k+p.B], differ[p.B*k+p.A] = pr.Significant, pr.Significant
+		ph.Pairs = append(ph.Pairs, pr)
 	}
 	for g, l := range letters.Display(k, func(a, b int) bool { return differ[a*k+b] }) {
 		ph.Letters[groups[g].Label] = l

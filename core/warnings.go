@@ -33,5 +33,8 @@ func warnings(r *Result) []string {
 	if mc := r.MonteCarlo; mc != nil {
 		c.MonteCarlo = &report.Interval{Low: mc.CILow, High: mc.CIHigh}
 	}
+	if ph := r.PostHoc; ph != nil {
+		c.PairMethod, c.PairsUndefined, c.PairsInfinite = ph.Method.Name(), ph.Undefined, ph.Infinite
+	}
 	return report.Warnings(c)
 }

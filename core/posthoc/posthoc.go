@@ -61,6 +61,11 @@ type Pair struct {
 	Statistic float64
 	P         float64
 	Exact     bool // Mann–Whitney: p from the exact null distribution
+	// Undefined: the procedure has no statistic and no p for this pair
+	// (Conover–Iman with no degrees of freedom left); Infinite: the
+	// statistic is infinite (a variance of 0 between groups that differ),
+	// and P is 0
+	Undefined, Infinite bool
 	Effect
 }
 
@@ -111,7 +116,7 @@ func compare(ctx context.Context, method Method, r rank.Ranking, h, confidence f
 	case Dunn:
 		p.Statistic, p.P = dunn(r, a, b)
 	case Conover:
-		p.Statistic, p.P = conover(r, h, a, b)
+		p.Statistic, p.P, p.Undefined, p.Infinite = conover(r, h, a, b)
 	case DSCF:
 		p.Statistic, p.P = dscf(r, a, b)
 	case MannWhitney:
@@ -143,27 +148,31 @@ func dunn(r rank.Ranking, a, b int) (float64, float64) {
 //
 //	S² = (Σr² − N(N+1)²/4)/(N−1),  t = (R̄a − R̄b) / √(S²·(N−1−H)/(N−k) · (1/na + 1/nb)),
 //
-// two-sided with N−k degrees of freedom, H tie-corrected. When no rank
-// varies within its group (H = N−1) the variance is 0: t is reported as 0
-// with p = 0 if the mean ranks differ, and p = 1 if not.
+// two-sided with N−k degrees of freedom, H tie-corrected. With no degrees of
+// freedom left (N = k: one value per group) the test is undefined. When no
+// rank varies within its group (H = N−1) the variance is 0: t is infinite
+// with p = 0 if the mean ranks differ, and 0 with p = 1 if not.
 //
 // Conover, W. J. & Iman, R. L. (1979). On multiple-comparisons procedures.
 // Technical report LA-7677-MS, Los Alamos Scientific Laboratory.
-func conover(r rank.Ranking, h float64, a, b int) (float64, float64) {
+func conover(r rank.Ranking, h float64, a, b int) (t, p float64, undefined, infinite bool) {
 	n := float64(len(r.Sorted))
 	k := float64(len(r.Sizes))
+	if n <= k {
+		return 0, 0, true, false
+	}
 	na, nb := float64(r.Sizes[a]), float64(r.Sizes[b])
 	s2 := (sumSquaredRanks(r) - n*(n+1)*(n+1)/4) / (n - 1)
 	v := float64(s2 * (n - 1 - h) / (n - k) * (1/na + 1/nb))
 	d := r.RankSums[a]/na - r.RankSums[b]/nb
-	if !(v > 0) || n <= k {
-		if d == 0 {
-			return 0, 1
-		}
-		return 0, 0
+	switch {
+	case v > 0:
+		t = d / math.Sqrt(v)
+		return t, dist.StudentTwoSided(t, n-k), false, false
+	case d == 0:
+		return 0, 1, false, false
 	}
-	t := d / math.Sqrt(v)
-	return t, dist.StudentTwoSided(t, n-k)
+	return 0, 0, false, true
 }
 
 // sumSquaredRanks is Σr² over all midranks, block by block.

@@ -17,6 +17,12 @@ type Cautions struct {
 	// Groups groups, more than MaxPairGroups
 	PairsSkipped          bool
 	Groups, MaxPairGroups int
+	// PairsUndefined: the pairwise procedure, PairMethod, gives no test here
+	// (no degrees of freedom left); PairsInfinite counts the pairs whose
+	// statistic is infinite (groups each constant within, differing between)
+	PairsUndefined bool
+	PairsInfinite  int
+	PairMethod     string
 	// MonteCarlo is the 99% interval of an estimated p, nil otherwise
 	MonteCarlo *Interval
 	Alpha      float64
@@ -59,6 +65,13 @@ func Warnings(c Cautions) []string {
 			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, SmallGroup))
 		}
 	}
+	if c.PairsUndefined {
+		w = append(w, fmt.Sprintf("The pairs have no statistic and no p: %s needs more values than groups (its degrees of freedom are the number of values less the number of groups, here 0). Compare the pairs with Dunn's test or Mann–Whitney instead.", c.PairMethod))
+	}
+	if c.PairsInfinite > 0 {
+		w = append(w, fmt.Sprintf("In %s every group's values are all equal within the group while the groups differ: %s's statistic is infinite there (shown as undefined) and its p is 0.",
+			countPairs(c.PairsInfinite), c.PairMethod))
+	}
 	if c.PairsSkipped {
 		w = append(w, fmt.Sprintf("Pairs of groups were not compared: with %d groups there would be %d pairs, and pairwise comparisons are made for at most %d groups.",
 			c.Groups, c.Groups*(c.Groups-1)/2, c.MaxPairGroups))
@@ -74,4 +87,12 @@ func Warnings(c Cautions) []string {
 		w = append(w, fmt.Sprintf("Ties are heavy (tie correction %s): many values are shared, as on rating scales; the correction is applied.", Number(c.TieCorrection)))
 	}
 	return w
+}
+
+// countPairs says "1 pair" or "3 pairs".
+func countPairs(n int) string {
+	if n == 1 {
+		return "1 pair"
+	}
+	return fmt.Sprintf("%d pairs", n)
 }

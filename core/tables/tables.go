@@ -126,9 +126,9 @@ var levelColumns = []column[levelRow]{
 var pairColumns = []column[core.PairResult]{
 	{Column{"first", "First", NoUnit, display.Text}, func(p core.PairResult) any { return p.A }},
 	{Column{"second", "Second", NoUnit, display.Text}, func(p core.PairResult) any { return p.B }},
-	{Column{"statistic", "Statistic", NoUnit, display.Figure}, func(p core.PairResult) any { return p.Statistic }},
-	{Column{"p", "p", NoUnit, display.PValue}, func(p core.PairResult) any { return p.P }},
-	{Column{"p_adjusted", "Adjusted p", NoUnit, display.PValue}, func(p core.PairResult) any { return p.PAdjusted }},
+	{Column{"statistic", "Statistic", NoUnit, display.Figure}, func(p core.PairResult) any { return optional(p.Statistic) }},
+	{Column{"p", "p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.P) }},
+	{Column{"p_adjusted", "Adjusted p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.PAdjusted) }},
 	{Column{"significant", "Differ", NoUnit, display.Flag}, func(p core.PairResult) any { return p.Significant }},
 	{Column{"probability_of_superiority", "P(first > second)", NoUnit, display.Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
 	{Column{"cliffs_delta", "Cliff's δ", NoUnit, display.Share}, func(p core.PairResult) any { return p.CliffsDelta }},
