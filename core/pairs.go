@@ -25,16 +25,16 @@ type PostHoc struct {
 
 // PairResult is one comparison, a before b in input order.
 type PairResult struct {
-	A           string  `json:"a"`
-	B           string  `json:"b"`
+	A string `json:"a"`
+	B string `json:"b"`
 	// Statistic is signed, positive when a tends higher (U of a for
 	// mann-whitney); null when it is infinite or undefined. P (two-sided) and
 	// PAdjusted are null when the test is undefined for the pair.
 	Statistic   *float64 `json:"statistic"`
 	P           *float64 `json:"p"`
 	PAdjusted   *float64 `json:"p_adjusted"`
-	Significant bool    `json:"significant"` // p_adjusted ≤ alpha
-	Exact       bool    `json:"exact"`       // mann-whitney: exact null distribution
+	Significant bool     `json:"significant"` // p_adjusted ≤ alpha
+	Exact       bool     `json:"exact"`       // mann-whitney: exact null distribution
 	// effect sizes
 	ProbSuperiority float64 `json:"probability_of_superiority"` // P(a > b) + ½P(a = b)
 	CliffsDelta     float64 `json:"cliffs_delta"`
