@@ -30,7 +30,7 @@ const bridge = createBridge(
     preview: (preview) => update({ preview }),
     progress: (stage, done, total) => {
       const pct = Math.floor(100 * done / total);
-      setStatus((stage === "exact" ? "Exact distribution" : "Random deals") + ": " + pct + "%");
+      setStatus((stage === "exact" ? "Exact distribution" : "Resamples") + ": " + pct + "%");
       $("progress").value = pct;
       $("progress").hidden = false;
     },

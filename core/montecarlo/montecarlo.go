@@ -2,7 +2,7 @@
 // Kruskal–Wallis statistic by dealing the observed scores into groups at
 // random, for samples whose exact distribution is too large to compute.
 //
-// The estimate is p̂ = (b+1)/(B+1), b the number of the B random deals whose
+// The estimate is p̂ = (b+1)/(B+1), b the number of the B resamples whose
 // statistic reaches the observed one; counting the observed deal itself keeps
 // p̂ above zero and makes the test exact at its level (Davison & Hinkley 1997,
 // Bootstrap Methods and their Application, §4.2.1; North, Curtis & Sham 2002,

@@ -34,10 +34,10 @@ func MethodReason(c Choice) string {
 		return reason
 	case "monte-carlo":
 		if !c.Automatic {
-			return fmt.Sprintf("Monte Carlo, as requested: %d random deals of the ranks into the groups (seed %d).", c.Resamples, c.Seed)
+			return fmt.Sprintf("Monte Carlo, as requested: %s resamples, each a random reshuffle of the ranks among the groups (seed %d).", thousands(int64(c.Resamples)), c.Seed)
 		}
-		return fmt.Sprintf("Monte Carlo, chosen automatically: %s, and small groups or heavy ties make the chi-square approximation unreliable; %d random deals (seed %d) estimate p.",
-			exactTooLarge, c.Resamples, c.Seed)
+		return fmt.Sprintf("Monte Carlo, chosen automatically: %s, and small groups or heavy ties make the chi-square approximation unreliable; %s resamples (seed %d) estimate p.",
+			exactTooLarge, thousands(int64(c.Resamples)), c.Seed)
 	}
 	switch {
 	case !c.Automatic:

@@ -77,11 +77,11 @@ func Decision(f Facts) string {
 	if len(f.Left) > 0 {
 		fmt.Fprintf(&b, "Left out of this comparison by request: %s. ", listLabels(f.Left))
 	}
-	fmt.Fprintf(&b, "It gives H = %s with %d degrees of freedom and %s (%s). ",
-		Number(f.H), f.DF, PValue(f.P), methodWords(f.Method))
+	fmt.Fprintf(&b, "It gives H = %s with %d %s and %s (%s). ",
+		Number(f.H), f.DF, plural(f.DF, "degree of freedom", "degrees of freedom"), PValue(f.P), methodWords(f.Method))
 	if f.Method == "monte-carlo" {
-		fmt.Fprintf(&b, "That estimate comes from %d random deals of the ranks (seed %d); the 99%% interval for p runs from %s to %s",
-			f.Resamples, f.Seed, Number(f.Low), Number(f.High))
+		fmt.Fprintf(&b, "That estimate comes from %s resamples, random reshuffles of the ranks among the groups (seed %d); the 99%% interval for p runs from %s to %s",
+			thousands(int64(f.Resamples)), f.Seed, Number(f.Low), Number(f.High))
 		if Straddles(f.Low, f.High, f.Alpha) {
 			b.WriteString(", which includes the significance level, so the decision below is not firm: run more resamples")
 		}
@@ -137,8 +137,11 @@ func writePairs(b *strings.Builder, f Facts) {
 		fmt.Fprintf(b, "Values in %s tend to be higher than in %s: adjusted %s, probability of superiority %s. ",
 			d.Higher, d.Lower, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
 	}
-	if rest := f.PairsTested - len(f.Differences); rest > 0 {
-		fmt.Fprintf(b, "The other %d %s no significant difference. ", rest, plural(rest, "pair shows", "pairs show"))
+	switch rest := f.PairsTested - len(f.Differences); {
+	case rest == 1:
+		b.WriteString("The other pair shows no significant difference. ")
+	case rest > 1:
+		fmt.Fprintf(b, "The other %d pairs show no significant difference. ", rest)
 	}
 }
 

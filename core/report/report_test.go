@@ -30,7 +30,7 @@ func TestDecision(t *testing.T) {
 			[]string{"no arrangement of the ranks is rare enough"}, nil},
 		{"Monte Carlo straddling alpha", func(f *Facts) {
 			f.Method, f.P, f.Resamples, f.Seed, f.Low, f.High = "monte-carlo", 0.049, 1000, 3, 0.034, 0.067
-		}, []string{"1000 random deals of the ranks (seed 3)", "from 0.034 to 0.067", "not firm"}, []string{"approximation behind p"}},
+		}, []string{"1,000 resamples, random reshuffles of the ranks among the groups (seed 3)", "from 0.034 to 0.067", "not firm"}, []string{"approximation behind p"}},
 	}
 	for _, tt := range tests {
 		f := base

@@ -296,6 +296,10 @@ func TestPage(t *testing.T) {
 	var want *core.Result
 	t.Run("demo renders its decision", func(t *testing.T) {
 		demo, want = b.smokeTest(t)
+		// the passphrase form is for sealed links only
+		if shown, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("unlock").checkVisibility()`)); err != nil || shown {
+			t.Errorf("the passphrase form shows on a page opened without a sealed link (%v)", err)
+		}
 	})
 	if want == nil {
 		t.FailNow()
