@@ -204,7 +204,7 @@ func (b *browser) startLongRun(t *testing.T, data string) {
 		chromedp.SetValue("#resamples", "100000000"), chromedp.Click("#analyse")); err != nil {
 		t.Fatal(err)
 	}
-	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Random deals")`)
+	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Resamples")`)
 }
 
 // saved presses a download button and returns the file the page made,
