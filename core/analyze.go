@@ -92,6 +92,9 @@ type Result struct {
 	PostHoc            *PostHoc      `json:"posthoc"`       // null when no post-hoc method was asked for
 	Warnings           []string      `json:"warnings"`
 	Decision           string        `json:"decision"`
+	// ResultLine is the result in one line, as reports write it:
+	// "H(2) = 7.99, p = .018, ε² = 0.28, N = 30" (see report.ResultLine)
+	ResultLine string `json:"result_line"`
 
 	table      *table.Table
 	ranking    rank.Ranking
@@ -232,6 +235,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		}
 	}
 	r.Decision = report.Decision(facts)
+	r.ResultLine = report.ResultLine(facts)
 	return r, nil
 }
 

@@ -416,3 +416,20 @@ func TestConoverWithoutDegreesOfFreedom(t *testing.T) {
 		t.Errorf("warnings %q, want the infinite statistics named", r.Warnings)
 	}
 }
+
+// TestResultLineOfPlantGrowth: R's PlantGrowth (testdata/cases/plantgrowth_long.csv)
+// with the chi-square p: R 4.2.2's kruskal.test(weight ~ group) gives
+// chi-squared = 7.9882, df = 2, p-value = 0.01842, and ε² = H/(N − 1) = 0.2755.
+func TestResultLineOfPlantGrowth(t *testing.T) {
+	data, err := os.ReadFile("../testdata/cases/plantgrowth_long.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, err := Analyze(data, Options{PValue: "asymptotic"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := "H(2) = 7.99, p = .018, ε² = 0.28, N = 30"; r.ResultLine != want {
+		t.Errorf("result line %q, want %q", r.ResultLine, want)
+	}
+}

@@ -89,6 +89,7 @@ func Encode(r *Result) ([]byte, error) {
 	w.Key("warnings")
 	writeStrings(&w, r.Warnings)
 	w.StringMember("decision", r.Decision)
+	w.StringMember("result_line", r.ResultLine)
 	w.EndObject()
 	if err := w.Err(); err != nil {
 		return nil, err

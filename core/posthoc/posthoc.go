@@ -36,13 +36,18 @@ const (
 // Methods lists the procedures in the order they are offered.
 var Methods = []Method{Dunn, Conover, DSCF, MannWhitney}
 
-// words are each procedure's label in a menu and its name in prose.
-var words = map[Method]struct{ label, prose string }{
-	Dunn:        {"Dunn", "Dunn's test (Dunn 1964)"},
-	Conover:     {"Conover–Iman", "the Conover–Iman test (Conover & Iman 1979)"},
-	DSCF:        {"Dwass–Steel–Critchlow–Fligner", "the Dwass–Steel–Critchlow–Fligner test (Critchlow & Fligner 1991)"},
-	MannWhitney: {"Mann–Whitney, pair by pair", "pairwise Wilcoxon–Mann–Whitney tests"},
+// words are each procedure's label in a menu, its name in prose, and the
+// symbol of the statistic it reports for a pair.
+var words = map[Method]struct{ label, prose, statistic string }{
+	Dunn:        {"Dunn", "Dunn's test (Dunn 1964)", "z"},
+	Conover:     {"Conover–Iman", "the Conover–Iman test (Conover & Iman 1979)", "t"},
+	DSCF:        {"Dwass–Steel–Critchlow–Fligner", "the Dwass–Steel–Critchlow–Fligner test (Critchlow & Fligner 1991)", "W*"},
+	MannWhitney: {"Mann–Whitney, pair by pair", "pairwise Wilcoxon–Mann–Whitney tests", "U"},
 }
+
+// Statistic is the symbol of the statistic the procedure reports for a
+// pair: z (Dunn), t (Conover–Iman), W* (DSCF), U (Mann–Whitney).
+func (m Method) Statistic() string { return words[m].statistic }
 
 // Known tells whether m is one of Methods.
 func (m Method) Known() bool { _, ok := words[m]; return ok }

@@ -145,6 +145,40 @@ func writePairs(b *strings.Builder, f Facts) {
 	}
 }
 
+// ResultLine is the result in one line, as reports write it:
+//
+//	H(2) = 7.99, p = .018, ε² = 0.28, N = 30
+//
+// H to two decimals, p in the style of APA 7 (three decimals, no leading
+// zero, "p < .001" below that), named as exact or Monte Carlo when it is
+// not the chi-square approximation, ε² to two decimals.
+func ResultLine(f Facts) string {
+	n := 0
+	for _, s := range f.Sizes {
+		n += s
+	}
+	method := ""
+	switch f.Method {
+	case "exact":
+		method = " (exact)"
+	case "monte-carlo":
+		method = " (Monte Carlo)"
+	}
+	return fmt.Sprintf("H(%d) = %s, %s%s, ε² = %s, N = %s", f.DF, strconv.FormatFloat(f.H, 'f', 2, 64), reportP(f.P), method,
+		strconv.FormatFloat(f.Epsilon, 'f', 2, 64), thousands(int64(n)))
+}
+
+// reportP writes p as APA 7 asks: "p = .018", "p < .001", "p > .999".
+func reportP(p float64) string {
+	switch {
+	case p < 0.001:
+		return "p < .001"
+	case p > 0.999:
+		return "p > .999"
+	}
+	return "p = " + strings.TrimPrefix(strconv.FormatFloat(p, 'f', 3, 64), "0")
+}
+
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one

@@ -75,3 +75,23 @@ func TestDecisionPairs(t *testing.T) {
 		t.Errorf("not significant overall, but:\n%s", got)
 	}
 }
+
+// TestResultLine: the one-line result, with p as APA 7 writes it.
+func TestResultLine(t *testing.T) {
+	tests := []struct {
+		f    Facts
+		want string
+	}{
+		// R's PlantGrowth: kruskal.test(weight ~ group) gives 7.9882 on 2 df, p = 0.01842 (R 4.2.2); ε² = H/(N − 1)
+		{Facts{Sizes: []int{10, 10, 10}, H: 7.988228749443715, DF: 2, P: 0.018423236420019286, Method: "asymptotic", Epsilon: 7.988228749443715 / 29},
+			"H(2) = 7.99, p = .018, ε² = 0.28, N = 30"},
+		{Facts{Sizes: []int{600, 700}, H: 40, DF: 1, P: 2e-10, Method: "asymptotic", Epsilon: 0.03}, "H(1) = 40.00, p < .001, ε² = 0.03, N = 1,300"},
+		{Facts{Sizes: []int{4, 4, 4}, H: 0.5, DF: 2, P: 0.9996, Method: "exact", Epsilon: 0.05}, "H(2) = 0.50, p > .999 (exact), ε² = 0.05, N = 12"},
+		{Facts{Sizes: []int{5, 5, 5}, H: 6.1, DF: 2, P: 0.0405, Method: "monte-carlo", Epsilon: 0.44}, "H(2) = 6.10, p = .041 (Monte Carlo), ε² = 0.44, N = 15"},
+	}
+	for _, tt := range tests {
+		if got := ResultLine(tt.f); got != tt.want {
+			t.Errorf("ResultLine = %q, want %q", got, tt.want)
+		}
+	}
+}

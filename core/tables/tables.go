@@ -130,7 +130,7 @@ var pairColumns = []column[core.PairResult]{
 	{Column{"p", "p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.P) }},
 	{Column{"p_adjusted", "Adjusted p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.PAdjusted) }},
 	{Column{"significant", "Differ", NoUnit, display.Flag}, func(p core.PairResult) any { return p.Significant }},
-	{Column{"probability_of_superiority", "P(first > second)", NoUnit, display.Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
+	{Column{"probability_of_superiority", "Chance first is higher", NoUnit, display.Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
 	{Column{"cliffs_delta", "Cliff's δ", NoUnit, display.Share}, func(p core.PairResult) any { return p.CliffsDelta }},
 	{Column{"hodges_lehmann", "Shift", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.Shift }},
 	{Column{"hodges_lehmann_low", "Interval from", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.ShiftLow }},
@@ -224,9 +224,15 @@ func Pairs(r *core.Result) Table {
 	if ph.Adjust == adjust.None {
 		adjusted = "not adjusted for the number of comparisons"
 	}
-	note := fmt.Sprintf("Compared by %s; p two-sided, %s. Shift: the Hodges–Lehmann estimate of how much higher the first group lies, with its %s%% interval.",
-		ph.Method.Name(), adjusted, display.Figure.Format(100*ph.Confidence))
-	return build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
+	note := fmt.Sprintf("Compared by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, with its %s%% interval.",
+		ph.Method.Name(), ph.Method.Statistic(), adjusted, display.Figure.Format(100*ph.Confidence))
+	t := build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
+	for i := range t.Columns {
+		if t.Columns[i].Key == "statistic" {
+			t.Columns[i].Heading = "Statistic " + ph.Method.Statistic()
+		}
+	}
+	return t
 }
 
 func build[T any](name, title, note, measure string, columns []column[T], rows []T) Table {

@@ -38,7 +38,7 @@ function htmlReport() {
     "<p class=\"note\">Made with Midrank " + escapeHTML(r.version) + " on " + new Date().toISOString().slice(0, 10) +
       ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
     groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
-    "<h2>In plain words</h2><p>" + escapeHTML(r.decision) + "</p>",
+    "<h2>In plain words</h2><p><strong>" + escapeHTML(r.result_line) + "</strong></p><p>" + escapeHTML(r.decision) + "</p>",
     ...tablesInOrder().map((t) => htmlOf(t) + (t.name === "figures" ? "<p class=\"note\">" + escapeHTML(r.p_method_reason) + "</p>" : "")),
     "<h2>Pictures</h2>" + (state.result.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks"),
   ];
@@ -50,7 +50,7 @@ function htmlReport() {
 function markdownReport() {
   const r = state.result;
   const lines = ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    ...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), mdText(r.decision)];
+    ...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), "**" + mdText(r.result_line) + "**", "", mdText(r.decision)];
   for (const t of tablesInOrder()) {
     lines.push("", ...markdownOf(t));
     if (t.name === "figures") lines.push("", mdText(r.p_method_reason));

@@ -23,6 +23,7 @@ export function renderResults(state, changed) {
   const t = state.tables;
   if (changed.has("result")) {
     $("decision").textContent = r.decision;
+    $("result-line").textContent = r.result_line;
     figureList($("figures"), t.figures);
     $("method-reason").textContent = r.p_method_reason;
     pageTable($("groups-table"), t.groups);

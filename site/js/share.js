@@ -46,6 +46,8 @@ export function wireShare(ask, opened) {
   $("copy-link").addEventListener("click", async () => {
     if (!await copyText($("link-text").value, "The link", "the link is selected, copy it by hand.")) $("link-text").select();
   });
+  $("copy-result-line").addEventListener("click", () =>
+    copyText($("result-line").textContent, "The result line", "select the line and copy it by hand."));
   $("copy-decision").addEventListener("click", () =>
     copyText($("decision").textContent, "The paragraph", "select the paragraph and copy it by hand."));
   $("unlock").addEventListener("submit", async (event) => {

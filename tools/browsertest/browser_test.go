@@ -296,6 +296,9 @@ func TestPage(t *testing.T) {
 	var want *core.Result
 	t.Run("demo renders its decision", func(t *testing.T) {
 		demo, want = b.smokeTest(t)
+		if got := b.text(t, "#result-line"); got != want.ResultLine {
+			t.Errorf("result line %q, the core's %q", got, want.ResultLine)
+		}
 		// the passphrase form is for sealed links only
 		if shown, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("unlock").checkVisibility()`)); err != nil || shown {
 			t.Errorf("the passphrase form shows on a page opened without a sealed link (%v)", err)

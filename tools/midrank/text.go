@@ -41,6 +41,7 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	}
 
 	fmt.Fprintln(w, "In plain words")
+	fmt.Fprintln(w, "  "+r.ResultLine)
 	fmt.Fprintln(w, wrap(r.Decision, 78, "  "))
 	fmt.Fprintln(w)
 
