@@ -24,6 +24,10 @@ import (
 // Version is the version of the statistics core, reported in every result.
 const Version = "0.1.0"
 
+// MaxNamedGroups is the most groups whose medians the decision names one by
+// one; with more, a paragraph of them would not be read.
+const MaxNamedGroups = 12
+
 // ListLimit is the number of entries up to which the per-value ranking and
 // the tie table are part of the result; larger lists are served in pages by
 // Result.Page.
@@ -218,6 +222,11 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
 		Unreachable: r.PMethod == string(PValueExact) && r.ExactCriticalValue == nil,
 	}
+	if len(r.Groups) <= MaxNamedGroups {
+		for _, g := range r.Groups {
+			facts.Medians, facts.Q1, facts.Q3 = append(facts.Medians, g.Median), append(facts.Q1, g.Q1), append(facts.Q3, g.Q3)
+		}
+	}
 	if mc := r.MonteCarlo; mc != nil {
 		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh
 	}
@@ -227,9 +236,9 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 			if !p.Significant {
 				continue
 			}
-			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: *p.PAdjusted, Superiority: p.ProbSuperiority}
+			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: *p.PAdjusted, Superiority: p.ProbSuperiority, Shift: p.Shift}
 			if p.ProbSuperiority < 0.5 {
-				d.Higher, d.Lower, d.Superiority = p.B, p.A, 1-p.ProbSuperiority
+				d.Higher, d.Lower, d.Superiority, d.Shift = p.B, p.A, 1-p.ProbSuperiority, -p.Shift
 			}
 			facts.Differences = append(facts.Differences, d)
 		}

@@ -16,17 +16,20 @@ const SmallGroup = 5
 
 // Facts are the figures the decision speaks of.
 type Facts struct {
-	Labels  []string // group labels in group order
-	Sizes   []int    // values per group
-	Measure string   // what was measured, "" when the data does not say
-	H       float64
-	DF      int
-	P       float64
-	Method  string // how p was obtained: "asymptotic", "exact" or "monte-carlo"
-	Alpha   float64
-	Left    []string // groups left out of the data by request
-	Epsilon float64  // ε²
-	Size    string   // ε² in words
+	Labels []string // group labels in group order
+	Sizes  []int    // values per group
+	// Medians and the quartiles of each group, in group order (none when
+	// the decision need not name them)
+	Medians, Q1, Q3 []float64
+	Measure         string // what was measured, "" when the data does not say
+	H               float64
+	DF              int
+	P               float64
+	Method          string // how p was obtained: "asymptotic", "exact" or "monte-carlo"
+	Alpha           float64
+	Left            []string // groups left out of the data by request
+	Epsilon         float64  // ε²
+	Size            string   // ε² in words
 
 	// exact method: no arrangement of the ranks is rare enough for alpha
 	Unreachable bool
@@ -47,6 +50,7 @@ type Difference struct {
 	Higher, Lower string  // the group that tends higher, and the other
 	PAdjusted     float64 //
 	Superiority   float64 // P(higher > lower) + ½P(equal)
+	Shift         float64 // the Hodges–Lehmann shift, higher − lower
 }
 
 // Straddles reports whether a Monte Carlo interval holds alpha, so that more
@@ -71,6 +75,13 @@ func Decision(f Facts) string {
 	}
 	fmt.Fprintf(&b, "%d groups (%s; %d values in all) were compared%s with the Kruskal–Wallis test, which works on ranks and so needs no assumption of normality. ",
 		len(f.Labels), listLabels(f.Labels), n, on)
+	if len(f.Medians) == len(f.Labels) {
+		parts := make([]string, len(f.Labels))
+		for g, label := range f.Labels {
+			parts[g] = fmt.Sprintf("%s %s (%s to %s, n = %s)", label, Number(f.Medians[g]), Number(f.Q1[g]), Number(f.Q3[g]), thousands(int64(f.Sizes[g])))
+		}
+		fmt.Fprintf(&b, "Medians (lower to upper quartile): %s. ", strings.Join(parts, "; "))
+	}
 	if len(f.Labels) == 2 {
 		b.WriteString("With two groups this is the two-sided Mann–Whitney (Wilcoxon rank-sum) test in its normal approximation, the name most reports use. ")
 	}
@@ -133,9 +144,13 @@ func writePairs(b *strings.Builder, f Facts) {
 		b.WriteString("No pair differs significantly after the adjustment, so the overall difference cannot be pinned on particular groups. ")
 		return
 	}
-	for _, d := range f.Differences {
-		fmt.Fprintf(b, "Values in %s tend to be higher than in %s: adjusted %s, probability of superiority %s. ",
-			d.Higher, d.Lower, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
+	for i, d := range f.Differences {
+		by := Number(d.Shift)
+		if i == 0 {
+			by += " (the Hodges–Lehmann estimate of the shift)"
+		}
+		fmt.Fprintf(b, "Values in %s tend to be higher than in %s, by %s: adjusted %s, probability of superiority %s. ",
+			d.Higher, d.Lower, by, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
 	}
 	switch rest := f.PairsTested - len(f.Differences); {
 	case rest == 1:
