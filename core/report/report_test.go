@@ -63,7 +63,7 @@ func TestDecisionPairs(t *testing.T) {
 	f := Facts{Labels: []string{"A", "B", "C"}, Sizes: []int{8, 8, 8}, H: 9, DF: 2, P: 0.011, Method: "asymptotic", Alpha: 0.05,
 		Epsilon: 0.39, Size: "large", PairMethod: "Dunn's test (Dunn 1964)", AdjustName: "Holm's step-down method (Holm 1979)", PairsTested: 3,
 		Differences: []Difference{{Higher: "C", Lower: "A", PAdjusted: 0.008, Superiority: 0.84, Shift: 4.5}},
-		Medians: []float64{10, 12, 15}, Q1: []float64{8, 9, 13}, Q3: []float64{11, 14, 18.25}}
+		Medians:     []float64{10, 12, 15}, Q1: []float64{8, 9, 13}, Q3: []float64{11, 14, 18.25}}
 	got := Decision(f)
 	for _, s := range []string{"Medians (lower to upper quartile): A 10 (8 to 11, n = 8); B 12 (9 to 14, n = 8); C 15 (13 to 18.25, n = 8).",
 		"All 3 pairs of groups were compared with Dunn's test", "controlled with Holm's",
