@@ -164,9 +164,8 @@ func writePairs(b *strings.Builder, f Facts) {
 //
 //	H(2) = 7.99, p = .018, ε² = 0.28, N = 30
 //
-// H to two decimals, p in the style of APA 7 (three decimals, no leading
-// zero, "p < .001" below that), named as exact or Monte Carlo when it is
-// not the chi-square approximation, ε² to two decimals.
+// H to two decimals, p as PValue writes it, named as exact or Monte Carlo
+// when it is not the chi-square approximation, ε² to two decimals.
 func ResultLine(f Facts) string {
 	n := 0
 	for _, s := range f.Sizes {
@@ -179,19 +178,8 @@ func ResultLine(f Facts) string {
 	case "monte-carlo":
 		method = " (Monte Carlo)"
 	}
-	return fmt.Sprintf("H(%d) = %s, %s%s, ε² = %s, N = %s", f.DF, strconv.FormatFloat(f.H, 'f', 2, 64), reportP(f.P), method,
+	return fmt.Sprintf("H(%d) = %s, %s%s, ε² = %s, N = %s", f.DF, strconv.FormatFloat(f.H, 'f', 2, 64), PValue(f.P), method,
 		strconv.FormatFloat(f.Epsilon, 'f', 2, 64), thousands(int64(n)))
-}
-
-// reportP writes p as APA 7 asks: "p = .018", "p < .001", "p > .999".
-func reportP(p float64) string {
-	switch {
-	case p < 0.001:
-		return "p < .001"
-	case p > 0.999:
-		return "p > .999"
-	}
-	return "p = " + strings.TrimPrefix(strconv.FormatFloat(p, 'f', 3, 64), "0")
 }
 
 func plural(n int, one, many string) string {
@@ -240,11 +228,16 @@ func listLabels(labels []string) string {
 // significant digits, powers of ten below 0.0001 and from a million up).
 func Number(v float64) string { return display.Figure.Format(v) }
 
-// PValue formats a p-value for prose: three significant digits, and
-// "p < 0.001" below a thousandth (the full value stays in the figures).
+// PValue writes a p-value in prose and in the result line as APA 7 asks
+// (common practice in reports): three decimals without a leading zero,
+// "p < .001" below that and "p > .999" above (the full value stays in the
+// figures and the tables).
 func PValue(p float64) string {
-	if p < 0.001 {
-		return "p < 0.001"
+	switch {
+	case p < 0.001:
+		return "p < .001"
+	case p > 0.999:
+		return "p > .999"
 	}
-	return "p = " + strconv.FormatFloat(p, 'g', 3, 64)
+	return "p = " + strings.TrimPrefix(strconv.FormatFloat(p, 'f', 3, 64), "0")
 }

@@ -15,7 +15,7 @@ func TestDecision(t *testing.T) {
 		saysNot []string
 	}{
 		{"significant", func(*Facts) {},
-			[]string{"3 groups (North, South and East; 21 values in all)", `on "minutes"`, "H = 7.123 with 2 degrees of freedom and p = 0.0284",
+			[]string{"3 groups (North, South and East; 21 values in all)", `on "minutes"`, "H = 7.123 with 2 degrees of freedom and p = .028",
 				"is statistically significant", "does not say which groups differ", "ε² = 0.356 is large",
 				"Group East has fewer than 5 values", "similar shape", Caution},
 			[]string{"not statistically significant"}},
@@ -25,7 +25,7 @@ func TestDecision(t *testing.T) {
 		{"at alpha exactly", func(f *Facts) { f.P = 0.05 }, []string{"is statistically significant"}, nil},
 		{"exact p needs no approximation caution", func(f *Facts) { f.Method = "exact" },
 			[]string{"exact permutation p-value"}, []string{"approximation behind p"}},
-		{"tiny p", func(f *Facts) { f.P = 3e-12 }, []string{"p < 0.001"}, nil},
+		{"tiny p", func(f *Facts) { f.P = 3e-12 }, []string{"p < .001"}, nil},
 		{"unreachable", func(f *Facts) { f.Method, f.Unreachable, f.P = "exact", true, 0.2 },
 			[]string{"no arrangement of the ranks is rare enough"}, nil},
 		{"Monte Carlo straddling alpha", func(f *Facts) {
@@ -67,7 +67,7 @@ func TestDecisionPairs(t *testing.T) {
 	got := Decision(f)
 	for _, s := range []string{"Medians (lower to upper quartile): A 10 (8 to 11, n = 8); B 12 (9 to 14, n = 8); C 15 (13 to 18.25, n = 8).",
 		"All 3 pairs of groups were compared with Dunn's test", "controlled with Holm's",
-		"Values in C tend to be higher than in A, by 4.5 (the Hodges–Lehmann estimate of the shift): adjusted p = 0.008, probability of superiority 0.84.",
+		"Values in C tend to be higher than in A, by 4.5 (the Hodges–Lehmann estimate of the shift): adjusted p = .008, probability of superiority 0.84.",
 		"The other 2 pairs show no significant difference."} {
 		if !strings.Contains(got, s) {
 			t.Errorf("decision lacks %q:\n%s", s, got)
