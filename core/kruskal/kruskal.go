@@ -8,7 +8,9 @@
 package kruskal
 
 import (
+	"fmt"
 	"math"
+	"strings"
 
 	"midrank/core/dist"
 )
@@ -84,20 +86,35 @@ func EtaSquared(h float64, n, k int) (v float64, ok bool) {
 	return (h - float64(k) + 1) / float64(n-k), true
 }
 
-// Size puts an effect size of the eta-squared family into words, with
-// Cohen's benchmarks for the proportion of variance explained (Cohen 1988,
-// Statistical Power Analysis for the Behavioral Sciences, 2nd ed., §8.2; the
-// thresholds 0.01, 0.06 and 0.14 are common practice, quoted from memory):
-//
-//	below 0.01 negligible, below 0.06 small, below 0.14 moderate, else large.
+// sizeBands are Cohen's benchmarks for a proportion of variance explained
+// (Cohen 1988, Statistical Power Analysis for the Behavioral Sciences, 2nd
+// ed., §8.2; the thresholds 0.01, 0.06 and 0.14 are common practice, quoted
+// from memory): each word holds below its bound.
+var sizeBands = []struct {
+	below float64
+	word  string
+}{{0.01, "negligible"}, {0.06, "small"}, {0.14, "moderate"}, {math.Inf(1), "large"}}
+
+// Size puts an effect size of the eta-squared family into words by
+// sizeBands: below 0.01 negligible, below 0.06 small, below 0.14 moderate,
+// else large.
 func Size(v float64) string {
-	switch {
-	case v < 0.01:
-		return "negligible"
-	case v < 0.06:
-		return "small"
-	case v < 0.14:
-		return "moderate"
+	for _, b := range sizeBands {
+		if v < b.below {
+			return b.word
+		}
 	}
-	return "large"
+	return sizeBands[len(sizeBands)-1].word
+}
+
+// SizeRule says how Size words an effect size, for readers.
+func SizeRule() string {
+	var parts []string
+	for i, b := range sizeBands[:len(sizeBands)-1] {
+		parts = append(parts, fmt.Sprintf("%s below %v", b.word, b.below))
+		if i == len(sizeBands)-2 {
+			parts = append(parts, fmt.Sprintf("%s from %v", sizeBands[i+1].word, b.below))
+		}
+	}
+	return strings.Join(parts, ", ") + " (Cohen's benchmarks for a share of variance, common practice)"
 }

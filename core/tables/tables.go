@@ -16,6 +16,7 @@ import (
 	"midrank/core"
 	"midrank/core/adjust"
 	"midrank/core/display"
+	"midrank/core/kruskal"
 )
 
 // Unit says what a column's numbers are measured in.
@@ -83,7 +84,7 @@ var figureColumns = []column[*core.Result]{
 	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, display.Figure}, exactCritical},
 	{Column{"epsilon_squared", "Effect size ε²", NoUnit, display.Figure}, func(r *core.Result) any { return r.EpsilonSquared }},
 	{Column{"epsilon_squared_size", "ε² in words", NoUnit, display.Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
-	{Column{"eta_squared", "Effect size η²(H)", NoUnit, display.Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
+	{Column{"eta_squared", "Effect size η²(H), the alternative", NoUnit, display.Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
 	{Column{"eta_squared_size", "η²(H) in words", NoUnit, display.Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
 	{Column{"tie_correction", "Tie correction C", NoUnit, display.Figure}, func(r *core.Result) any { return r.TieCorrection }},
 	{Column{"h_uncorrected", "H before the correction", NoUnit, display.Figure}, func(r *core.Result) any { return r.HUncorrected }},
@@ -182,7 +183,8 @@ func Of(r *core.Result) []Table {
 
 // Figures is the table of the test's figures, one row.
 func Figures(r *core.Result) Table {
-	return build("figures", "Test figures", "", r.Input.Measure, figureColumns, []*core.Result{r})
+	note := "ε² is the headline effect size, in words " + kruskal.SizeRule() + "; η²(H) is the alternative some reports use."
+	return build("figures", "Test figures", note, r.Input.Measure, figureColumns, []*core.Result{r})
 }
 
 // Groups is the table of the groups.

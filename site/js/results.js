@@ -25,6 +25,7 @@ export function renderResults(state, changed) {
     $("decision").textContent = r.decision;
     $("result-line").textContent = r.result_line;
     figureList($("figures"), t.figures);
+    $("figures-note").textContent = t.figures.note;
     $("method-reason").textContent = r.p_method_reason;
     pageTable($("groups-table"), t.groups);
     const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
