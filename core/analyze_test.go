@@ -12,6 +12,7 @@ import (
 	"strings"
 	"testing"
 
+	"midrank/core/adjust"
 	"midrank/core/table"
 )
 
@@ -431,5 +432,33 @@ func TestResultLineOfPlantGrowth(t *testing.T) {
 	}
 	if want := "H(2) = 7.99, p = .018, ε² = 0.28, N = 30"; r.ResultLine != want {
 		t.Errorf("result line %q, want %q", r.ResultLine, want)
+	}
+}
+
+// TestIntervalLevel: each pair's Hodges–Lehmann interval is taken at the
+// level that matches the adjustment: Bonferroni's 1 − α/m for the
+// family-wise adjustments, Šidák's (1 − α)^(1/m) for Šidák, and 1 − α, each
+// pair on its own, for the false-discovery-rate ones and none (the
+// definitions, common practice; the figures worked by hand for α = 0.05 and
+// m = 6 pairs).
+func TestIntervalLevel(t *testing.T) {
+	tests := []struct {
+		method   adjust.Method
+		want     float64
+		together bool
+	}{
+		{adjust.Holm, 1 - 0.05/6, true},
+		{adjust.Bonferroni, 1 - 0.05/6, true},
+		{adjust.Hochberg, 1 - 0.05/6, true},
+		{adjust.Sidak, 0.9914876, true},
+		{adjust.BH, 0.95, false},
+		{adjust.BY, 0.95, false},
+		{adjust.None, 0.95, false},
+	}
+	for _, tt := range tests {
+		got, together := intervalLevel(tt.method, 0.05, 6)
+		if math.Abs(got-tt.want) > 1e-7 || together != tt.together {
+			t.Errorf("%s: %v together %v, want %v %v", tt.method, got, together, tt.want, tt.together)
+		}
 	}
 }

@@ -146,6 +146,7 @@ func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
 	w.StringMember("method", string(ph.Method))
 	w.StringMember("adjust", string(ph.Adjust))
 	w.FloatMember("confidence", ph.Confidence)
+	w.BoolMember("intervals_together", ph.Together)
 	w.Key("pairs")
 	w.BeginArray()
 	for _, p := range ph.Pairs {

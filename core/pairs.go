@@ -2,6 +2,7 @@ package core
 
 import (
 	"context"
+	"math"
 
 	"midrank/core/adjust"
 	"midrank/core/letters"
@@ -12,11 +13,14 @@ import (
 
 // PostHoc is the result of the pairwise comparisons.
 type PostHoc struct {
-	Method     posthoc.Method    `json:"method"`
-	Adjust     adjust.Method     `json:"adjust"`
-	Confidence float64           `json:"confidence"` // of the Hodges–Lehmann intervals, 1 − alpha
-	Pairs      []PairResult      `json:"pairs"`
-	Letters    map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
+	Method     posthoc.Method `json:"method"`
+	Adjust     adjust.Method  `json:"adjust"`
+	Confidence float64        `json:"confidence"` // of each Hodges–Lehmann interval (see intervalLevel)
+	// Together: the intervals hold together at 1 − alpha (a family-wise
+	// adjustment); else each holds on its own at Confidence
+	Together bool              `json:"intervals_together"`
+	Pairs    []PairResult      `json:"pairs"`
+	Letters  map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
 	// Undefined: the procedure gives no test for the pairs (see
 	// posthoc.Pair); Infinite counts the pairs whose statistic is infinite
 	Undefined bool `json:"-"`
@@ -56,7 +60,9 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 	if !s.pairs || len(groups) > MaxPairGroups {
 		return nil, nil
 	}
-	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, h, 1-s.alpha)
+	k := len(groups)
+	confidence, together := intervalLevel(s.adjust, s.alpha, k*(k-1)/2)
+	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, h, confidence)
 	if err != nil {
 		return nil, err
 	}
@@ -71,8 +77,7 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 	if err != nil {
 		return nil, err
 	}
-	ph := &PostHoc{Method: s.posthoc, Adjust: s.adjust, Confidence: 1 - s.alpha, Letters: map[string]string{}}
-	k := len(groups)
+	ph := &PostHoc{Method: s.posthoc, Adjust: s.adjust, Confidence: confidence, Together: together, Letters: map[string]string{}}
 	differ := make([]bool, k*k)
 	next := 0
 	for _, p := range pairs {
@@ -98,4 +103,22 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 		ph.Letters[groups[g].Label] = l
 	}
 	return ph, nil
+}
+
+// intervalLevel is the confidence of each pair's Hodges–Lehmann interval,
+// so that the intervals agree with how the p-values are adjusted: for the
+// adjustments that hold the family-wise error rate, the Bonferroni level
+// 1 − α/m (Holm, Bonferroni, Hochberg) or the Šidák level (1 − α)^(1/m)
+// (Šidák 1967), at which the m intervals hold together at 1 − α; for those
+// that hold the false discovery rate (Benjamini–Hochberg,
+// Benjamini–Yekutieli) or none, no simultaneous interval matches, and each
+// holds on its own at 1 − α.
+func intervalLevel(m adjust.Method, alpha float64, pairs int) (confidence float64, together bool) {
+	switch m {
+	case adjust.Holm, adjust.Bonferroni, adjust.Hochberg:
+		return 1 - alpha/float64(pairs), true
+	case adjust.Sidak:
+		return math.Pow(1-alpha, 1/float64(pairs)), true
+	}
+	return 1 - alpha, false
 }

@@ -226,8 +226,13 @@ func Pairs(r *core.Result) Table {
 	if ph.Adjust == adjust.None {
 		adjusted = "not adjusted for the number of comparisons"
 	}
-	note := fmt.Sprintf("Compared by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, with its %s%% interval.",
-		ph.Method.Name(), ph.Method.Statistic(), adjusted, display.Figure.Format(100*ph.Confidence))
+	intervals := fmt.Sprintf("with its %s%% interval, at the level where the intervals of all %d pairs hold together at %s%%", display.Figure.Format(100*ph.Confidence),
+		len(ph.Pairs), display.Figure.Format(100*(1-r.Alpha)))
+	if !ph.Together {
+		intervals = fmt.Sprintf("with its %s%% interval, which holds for its pair alone (no interval for all pairs together matches this adjustment)", display.Figure.Format(100*ph.Confidence))
+	}
+	note := fmt.Sprintf("Compared by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, %s.",
+		ph.Method.Name(), ph.Method.Statistic(), adjusted, intervals)
 	t := build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
 	for i := range t.Columns {
 		if t.Columns[i].Key == "statistic" {
