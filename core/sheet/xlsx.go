@@ -219,7 +219,7 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 			}
 		case t.is("c") && !t.end:
 			cellType, style = "", -1
-			t.eachAttr(func(key, v []byte) bool {
+			for key, v, i, ok := t.nextAttr(0); ok; key, v, i, ok = t.nextAttr(i) {
 				switch string(key) {
 				case "t":
 					cellType = string(v)
@@ -228,10 +228,9 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 						col = c
 					}
 				case "s":
-					style, _ = strconv.Atoi(string(v))
+					style = wholeNumber(v)
 				}
-				return true
-			})
+			}
 			value = value[:0]
 			if t.empty {
 				col++
@@ -301,6 +300,21 @@ func (x *xlsxShared) daysSince1970(serial float64) float64 {
 		serial++ // before the leap day that never was
 	}
 	return serial - 25569
+}
+
+// wholeNumber reads a style index, -1 when it is not a whole number.
+func wholeNumber(b []byte) int {
+	n := 0
+	for _, c := range b {
+		if c < '0' || c > '9' || n > 1<<24 {
+			return -1
+		}
+		n = n*10 + int(c-'0')
+	}
+	if len(b) == 0 {
+		return -1
+	}
+	return n
 }
 
 // columnOf reads the 0-based column of a cell reference such as "AB12".

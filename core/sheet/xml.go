@@ -141,62 +141,51 @@ func (t tag) is(name string) bool { return string(t.name) == name }
 
 // attr finds an attribute by local name and returns its value decoded.
 func (t tag) attr(name string) (string, bool) {
-	var value []byte
-	found := false
-	t.eachAttr(func(key, v []byte) bool {
-		if string(key) == name {
-			value, found = v, true
-			return false
+	for key, value, i, ok := t.nextAttr(0); ok; key, value, i, ok = t.nextAttr(i) {
+		if string(key) != name {
+			continue
 		}
-		return true
-	})
-	if !found {
-		return "", false
+		if bytes.IndexByte(value, '&') < 0 {
+			return string(value), true
+		}
+		return string(appendText(nil, value)), true
 	}
-	if bytes.IndexByte(value, '&') < 0 {
-		return string(value), true
-	}
-	return string(appendText(nil, value)), true
+	return "", false
 }
 
-// eachAttr calls fn with each attribute's local name and raw value, until
-// fn returns false or the attributes end (or cannot be read further).
-func (t tag) eachAttr(fn func(key, value []byte) bool) {
+// nextAttr reads the attribute at or after i in the tag's attributes: its
+// local name, its raw value and where the next one starts; ok is false at
+// the end (or where the attributes cannot be read further).
+func (t tag) nextAttr(i int) (key, value []byte, next int, ok bool) {
 	a := t.attrs
-	i := 0
-	for {
-		for i < len(a) && isSpace(a[i]) {
-			i++
-		}
-		keyStart := i
-		for i < len(a) && a[i] != '=' && !isSpace(a[i]) {
-			i++
-		}
-		key := localName(a[keyStart:i])
-		for i < len(a) && isSpace(a[i]) {
-			i++
-		}
-		if i >= len(a) || a[i] != '=' {
-			return
-		}
+	for i < len(a) && isSpace(a[i]) {
 		i++
-		for i < len(a) && isSpace(a[i]) {
-			i++
-		}
-		if i >= len(a) || (a[i] != '"' && a[i] != '\'') {
-			return
-		}
-		quote := a[i]
-		valueStart := i + 1
-		end := bytes.IndexByte(a[valueStart:], quote)
-		if end < 0 {
-			return
-		}
-		i = valueStart + end + 1
-		if !fn(key, a[valueStart:valueStart+end]) {
-			return
-		}
 	}
+	keyStart := i
+	for i < len(a) && a[i] != '=' && !isSpace(a[i]) {
+		i++
+	}
+	key = localName(a[keyStart:i])
+	for i < len(a) && isSpace(a[i]) {
+		i++
+	}
+	if i >= len(a) || a[i] != '=' {
+		return nil, nil, 0, false
+	}
+	i++
+	for i < len(a) && isSpace(a[i]) {
+		i++
+	}
+	if i >= len(a) || (a[i] != '"' && a[i] != '\'') {
+		return nil, nil, 0, false
+	}
+	quote := a[i]
+	valueStart := i + 1
+	end := bytes.IndexByte(a[valueStart:], quote)
+	if end < 0 {
+		return nil, nil, 0, false
+	}
+	return key, a[valueStart : valueStart+end], valueStart + end + 1, true
 }
 
 func localName(name []byte) []byte {
