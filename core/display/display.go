@@ -16,7 +16,8 @@ type Show int
 const (
 	// Text is shown as it is: labels, words, letters.
 	Text Show = iota
-	// Count is a whole number: values, missing values, degrees of freedom.
+	// Count is a whole number: values, missing values, degrees of freedom,
+	// with a comma between thousands (1,300).
 	Count
 	// Figure has 4 significant digits, in powers of ten below 0.0001 and from
 	// a million up (a statistic, a median, a rank).
@@ -54,6 +55,9 @@ func (s Show) Format(v any) string {
 		}
 		return "no"
 	case int:
+		if s == Count {
+			return Thousands(int64(v))
+		}
 		return strconv.Itoa(v)
 	case float64:
 		return s.number(v)
@@ -64,6 +68,9 @@ func (s Show) Format(v any) string {
 func (s Show) number(v float64) string {
 	switch s {
 	case Count:
+		if math.Abs(v) < 1e15 {
+			return Thousands(int64(math.Round(v)))
+		}
 		return strconv.FormatFloat(math.Round(v), 'f', 0, 64)
 	case Share:
 		return strconv.FormatFloat(v, 'f', 3, 64)
@@ -73,6 +80,25 @@ func (s Show) number(v float64) string {
 		return strconv.FormatFloat(v, 'g', -1, 64)
 	}
 	return significant(v, 4, 1e6)
+}
+
+// Thousands writes a whole number with a comma between thousands: 1,300,
+// -52,300.
+func Thousands(v int64) string {
+	s := strconv.FormatInt(v, 10)
+	sign := ""
+	if v < 0 {
+		sign, s = "-", s[1:]
+	}
+	var b strings.Builder
+	b.WriteString(sign)
+	for i, c := range s {
+		if i > 0 && (len(s)-i)%3 == 0 {
+			b.WriteByte(',')
+		}
+		b.WriteRune(c)
+	}
+	return b.String()
 }
 
 // significant shows v with the given significant digits, in powers of ten

@@ -3,6 +3,8 @@ package report
 import (
 	"fmt"
 	"strings"
+
+	"midrank/core/display"
 )
 
 // Choice is how the p-value was found, for the sentence that explains it.
@@ -73,17 +75,8 @@ func dealCount(sizes []int) string {
 	return fmt.Sprintf("%.2g", count)
 }
 
-func thousands(v int64) string {
-	s := fmt.Sprint(v)
-	var b strings.Builder
-	for i, c := range s {
-		if i > 0 && (len(s)-i)%3 == 0 {
-			b.WriteByte(',')
-		}
-		b.WriteRune(c)
-	}
-	return b.String()
-}
+// thousands writes a count as the display policy does: 1,300.
+func thousands(v int64) string { return display.Thousands(v) }
 
 // Sizes lists group sizes as words: "5, 6 and 7".
 func Sizes(sizes []int) string {
