@@ -78,7 +78,7 @@ function drawValues(r) {
       marker(svg, i, cx, y(v.value));
     }
   }
-  svgText(svg, 14, top + (height - top - bottom) / 2, "value", { transform: `rotate(-90 14 ${top + (height - top - bottom) / 2})`, "text-anchor": "middle" });
+  svgText(svg, 14, top + (height - top - bottom) / 2, r.input.measure || "value", { transform: `rotate(-90 14 ${top + (height - top - bottom) / 2})`, "text-anchor": "middle" });
   $("plot-values").replaceChildren(svg);
   $("plot-values-caption").textContent = "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
     (drawEach ? "; every value is a marker beside its box, tied values side by side." : " (with " + r.n.toLocaleString() + " values, too many to draw each one).");
@@ -115,11 +115,19 @@ export function renderPictures(state, changed) {
   drawMeanRanks(state.result);
 }
 
-// svgSource serialises a drawn picture as a standalone SVG file.
+// svgSource serialises a drawn picture as a standalone SVG file: it carries
+// the page's styles it needs (grid lines, a sans-serif font) and its
+// caption as its title, so that it reads the same outside the page.
 export function svgSource(id) {
   const svg = $(id).querySelector("svg").cloneNode(true);
   svg.setAttribute("xmlns", "http://www.w3.org/2000/svg");
   svg.setAttribute("color", getComputedStyle($(id)).color);
+  const style = svgEl("style", {});
+  style.textContent = ".grid { stroke: " + getComputedStyle($(id).querySelector(".grid") ?? $(id)).stroke + "; } "
+    + "text { font-family: system-ui, -apple-system, 'Segoe UI', Roboto, 'Helvetica Neue', Arial, sans-serif; }";
+  const title = svgEl("title", {});
+  title.textContent = $(id + "-caption").textContent;
+  svg.prepend(title, style);
   return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(svg);
 }
 
