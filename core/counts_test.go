@@ -87,12 +87,14 @@ func (l *Levels) group(label string) *LevelCounts {
 }
 
 func ExampleAnalyze_counts() {
-	// an invented five-level item: how many in each team chose each answer
-	data := "team;never;rarely;sometimes;often;always\nNorth;2;5;9;6;3\nSouth;6;8;7;3;1\nWest;1;2;6;9;7\n"
-	r, err := Analyze([]byte(data), Options{PostHoc: "none"})
+	// the five-level counts of two groups quoted in scipy issue 4017
+	data := "group;1;2;3;4;5\nfirst;163;81;40;6;2\nsecond;1007;362;99;27;13\n"
+	r, err := Analyze([]byte(data), Options{PostHoc: "none", PValue: "asymptotic"})
 	if err != nil {
 		panic(err)
 	}
-	fmt.Println(r.Input.Layout, r.N, r.Levels.Groups[2].Label, r.Levels.Groups[2].Counts, r.Levels.Groups[2].MedianLevel)
-	// Output: counts 75 West [1 2 6 9 7] often
+	g := r.Levels.Groups[1]
+	fmt.Println(r.Input.Layout, r.N, g.Label, g.Counts, g.MedianLevel, r.ResultLine)
+	// R 4.2.2, kruskal.test on the rep()-expanded counts: chi-squared = 15.264, df = 1 (testdata/counts/expected.tsv)
+	// Output: counts 1800 second [1007 362 99 27 13] 1 H(1) = 15.26, p < .001, ε² = 0.01, N = 1,800
 }

@@ -28,6 +28,9 @@ type LevelCounts struct {
 	// it lies between ("Agree to Strongly agree") when the group has an even
 	// number of values split there
 	MedianLevel string `json:"median_level"`
+	// MedianFrom and MedianTo are the places (0-based) of the median's
+	// level, or of the two levels it lies between
+	MedianFrom, MedianTo int `json:"-"`
 }
 
 // levelsOf counts the values of a table of counts per group and level; nil
@@ -50,22 +53,28 @@ func levelsOf(t *table.Table, groups []Group) *Levels {
 		for c, n := range lc.Counts {
 			lc.Shares[c] = float64(n) / float64(groups[g].N)
 		}
-		lc.MedianLevel = levelOf(t, groups[g].Median)
+		lc.MedianFrom, lc.MedianTo = levelOf(t, groups[g].Median)
+		lc.MedianLevel = t.Levels[lc.MedianFrom]
+		if lc.MedianTo != lc.MedianFrom {
+			lc.MedianLevel += " to " + t.Levels[lc.MedianTo]
+		}
 	}
 	return l
 }
 
-// levelOf names the level of a value, or the two levels it lies between.
-func levelOf(t *table.Table, v float64) string {
+// levelOf finds the level of a value (a group's median, which lies on a
+// level or halfway between two), as the places of the levels it lies
+// between: the same place twice when it is on one.
+func levelOf(t *table.Table, v float64) (from, to int) {
 	for c, lv := range t.LevelValues {
 		switch {
 		case lv == v:
-			return t.Levels[c]
+			return c, c
 		case c > 0 && t.LevelValues[c-1] < v && v < lv:
-			return t.Levels[c-1] + " to " + t.Levels[c]
+			return c - 1, c
 		}
 	}
-	return ""
+	return 0, 0
 }
 
 func writeLevels(w *jsonlite.Writer, l *Levels) {

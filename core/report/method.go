@@ -45,8 +45,8 @@ func MethodReason(c Choice) string {
 	case !c.Automatic:
 		return "Chi-square approximation, as requested."
 	case c.MonteCarloTooLong:
-		return fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and Monte Carlo with %d resamples of %d values would take too long for an automatic choice (ask for monte-carlo to run it); with %d values the approximation, with the tie correction, is usually close.",
-			exactTooLarge, c.Resamples, n, n)
+		return fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and Monte Carlo with %s resamples of %s values would take too long for an automatic choice (ask for monte-carlo to run it); with %s values the approximation, with the tie correction, is usually close.",
+			exactTooLarge, thousands(int64(c.Resamples)), thousands(int64(n)), thousands(int64(n)))
 	}
 	return fmt.Sprintf("Chi-square approximation, chosen automatically: %s, and every group has at least %d values with few ties, where the approximation is good.",
 		exactTooLarge, SmallGroup)

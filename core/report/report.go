@@ -144,12 +144,16 @@ func writePairs(b *strings.Builder, f Facts) {
 		b.WriteString("No pair differs significantly after the adjustment, so the overall difference cannot be pinned on particular groups. ")
 		return
 	}
-	for i, d := range f.Differences {
-		by := Number(d.Shift)
-		if i == 0 {
-			by += " (the Hodges–Lehmann estimate of the shift)"
+	named := false // the shift's estimator is named at its first mention
+	for _, d := range f.Differences {
+		by := ""
+		if d.Shift != 0 { // a shift of 0 (most differences are 0, as on a short scale) says nothing of the direction
+			by = ", by " + Number(d.Shift)
+			if !named {
+				by, named = by+" (the Hodges–Lehmann estimate of the shift)", true
+			}
 		}
-		fmt.Fprintf(b, "Values in %s tend to be higher than in %s, by %s: adjusted %s, probability of superiority %s. ",
+		fmt.Fprintf(b, "Values in %s tend to be higher than in %s%s: adjusted %s, probability of superiority %s. ",
 			d.Higher, d.Lower, by, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
 	}
 	switch rest := f.PairsTested - len(f.Differences); {

@@ -245,8 +245,6 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 			inValue = !t.end && !t.empty
 		case t.is("is"):
 			inInline = !t.end && !t.empty
-		case t.is("f") && !t.end:
-			// a formula: its cached result follows in <v>
 		}
 	}
 	return w.out, w.err

@@ -187,7 +187,7 @@ func (nr *numberReading) decide(t *Table) error {
 		}
 		asDecimal := (dec == NoMark || dec == m) && th != m
 		asThousands := (th == NoMark || th == m) && dec != m && nr.decimals[m].count == 0
-		whole, _ := strconv.ParseFloat(string(slowParseText(s.text)), 64)
+		whole, _ := strconv.ParseFloat(string(digitsOf(s.text)), 64)
 		switch {
 		case asDecimal && asThousands:
 			asThousands = m != nr.presumed && nr.ungrouped.count == 0
@@ -238,9 +238,9 @@ func more(n int) string {
 	return fmt.Sprintf(" and %d more cells like it were", n)
 }
 
-// slowParseText is a cell's digits and sign without its marks: the whole
+// digitsOf is a cell's digits and sign without its marks: the whole
 // number an ambiguous cell was first read as.
-func slowParseText(text string) []byte {
+func digitsOf(text string) []byte {
 	var b []byte
 	for _, c := range []byte(text) {
 		if c >= '0' && c <= '9' || c == '-' {

@@ -212,7 +212,7 @@ func Levels(r *core.Result) Table {
 		for c, name := range r.Levels.Names {
 			upTo += g.Shares[c]
 			rows = append(rows, levelRow{group: g.Label, level: name, count: g.Counts[c], share: g.Shares[c], upTo: upTo,
-				median: g.MedianLevel == name || strings.HasSuffix(g.MedianLevel, " to "+name) || strings.HasPrefix(g.MedianLevel, name+" to ")})
+				median: c == g.MedianFrom || c == g.MedianTo})
 		}
 	}
 	return build("levels", "Groups level by level", "Shares of each group's values; the median falls at the level marked, or between the two marked.", "", levelColumns, rows)

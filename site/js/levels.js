@@ -42,9 +42,8 @@ function drawLevels(levels) {
   let lx = left;
   levels.names.forEach((name, level) => {
     svgEl("rect", { x: lx, y: height - legend, width: 12, height: 12, fill: shade(level, n), ...OUTLINE }, svg);
-    const label = svgText(svg, lx + 16, height - legend + 10, name, { "font-size": 11 });
+    svgText(svg, lx + 16, height - legend + 10, name, { "font-size": 11 });
     lx += 28 + 6.5 * name.length;
-    return label;
   });
   $("plot-levels").replaceChildren(svg);
   $("plot-levels-caption").textContent = "Each group's values level by level, as shares of the group, from "
