@@ -22,11 +22,22 @@ const (
 	// Figure has 4 significant digits, in powers of ten below 0.0001 and from
 	// a million up (a statistic, a median, a rank).
 	Figure
-	// PValue has 3 significant digits, in powers of ten below 0.0001, so that
-	// a tiny p keeps its size instead of reading as 0.
+	// PValue is a p-value as APA 7 writes it (American Psychological
+	// Association, Publication Manual, 7th ed., 2020, 6.36): three decimals
+	// without the leading zero (.014), "< .001" below .001 and "> .999"
+	// above .999. Where three decimals would carry p across .01, .05 or .10,
+	// the common significance levels (p ≤ level counting as significant),
+	// decimals are added until it does not (.0504, not .050), so that the
+	// figure never contradicts the decision.
 	PValue
-	// Share is a proportion or a probability from −1 to 1, with 3 decimals.
+	// Share is a proportion from 0 to 1 with 3 decimals (a share of a group).
 	Share
+	// Statistic is a test statistic with 2 decimals (H, z, t), as APA 7
+	// reports them.
+	Statistic
+	// Effect is an effect size with 2 decimals (ε², Cliff's δ, the
+	// probability of superiority), as APA 7 reports them.
+	Effect
 	// Flag is a yes or a no.
 	Flag
 	// AsRead is a value with every digit it was read with (the shortest
@@ -36,7 +47,7 @@ const (
 )
 
 // showNames are the keys of Show in JSON, in the order of the constants.
-var showNames = [...]string{"text", "count", "figure", "p", "share", "flag", "as-read"}
+var showNames = [...]string{"text", "count", "figure", "p", "share", "statistic", "effect", "flag", "as-read"}
 
 // String is the key of s in JSON.
 func (s Show) String() string { return showNames[s] }
@@ -73,13 +84,53 @@ func (s Show) number(v float64) string {
 		}
 		return strconv.FormatFloat(math.Round(v), 'f', 0, 64)
 	case Share:
-		return strconv.FormatFloat(v, 'f', 3, 64)
+		return decimals(v, 3)
 	case PValue:
-		return significant(v, 3, math.Inf(1))
+		return apaP(v)
+	case Statistic, Effect:
+		return decimals(v, 2)
 	case AsRead:
 		return strconv.FormatFloat(v, 'g', -1, 64)
 	}
 	return significant(v, 4, 1e6)
+}
+
+// apaP writes p as APA 7 does; see PValue.
+func apaP(p float64) string {
+	switch {
+	case p < 0.001:
+		return "< .001"
+	case p > 0.999:
+		return "> .999"
+	}
+	digits := 3
+	for digits < 15 && crossesLevel(p, digits) {
+		digits++
+	}
+	return strings.TrimPrefix(strconv.FormatFloat(p, 'f', digits, 64), "0")
+}
+
+// crossesLevel reports whether p rounded to the given decimals lies on the
+// other side of .01, .05 or .10 than p, a side counting the level itself as
+// significant (p ≤ level, report.Significant's rule).
+func crossesLevel(p float64, digits int) bool {
+	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(p, 'f', digits, 64), 64)
+	for _, level := range [...]float64{0.01, 0.05, 0.10} {
+		if (p <= level) != (rounded <= level) {
+			return true
+		}
+	}
+	return false
+}
+
+// decimals writes v with a fixed number of decimals, without a minus sign
+// before a zero (-0.001 to 2 decimals is 0.00).
+func decimals(v float64, n int) string {
+	s := strconv.FormatFloat(v, 'f', n, 64)
+	if strings.Trim(s, "-0.") == "" {
+		return strings.TrimPrefix(s, "-")
+	}
+	return s
 }
 
 // Thousands writes a whole number with a comma between thousands: 1,300,

@@ -1,6 +1,10 @@
 package report
 
-import "fmt"
+import (
+	"fmt"
+
+	"midrank/core/display"
+)
 
 // Cautions are the facts the cautions of an answer speak of.
 type Cautions struct {
@@ -78,7 +82,7 @@ func Warnings(c Cautions) []string {
 	}
 	if mc := c.MonteCarlo; mc != nil && Straddles(mc.Low, mc.High, c.Alpha) {
 		w = append(w, fmt.Sprintf("The Monte Carlo interval for p (%s to %s) includes the significance level %s: run more resamples for a firm decision.",
-			Number(mc.Low), Number(mc.High), Number(c.Alpha)))
+			display.PValue.Format(mc.Low), display.PValue.Format(mc.High), Number(c.Alpha)))
 	}
 	if c.PZero {
 		w = append(w, "The p-value is below the smallest positive number a computer can hold (about 1e-308), so it is reported as 0; the true value is positive but vanishingly small.")

@@ -5,7 +5,6 @@ package report
 import (
 	"fmt"
 	"midrank/core/display"
-	"strconv"
 	"strings"
 )
 
@@ -89,10 +88,10 @@ func Decision(f Facts) string {
 		fmt.Fprintf(&b, "Left out of this comparison by request: %s. ", listLabels(f.Left))
 	}
 	fmt.Fprintf(&b, "It gives H = %s with %d %s and %s (%s). ",
-		Number(f.H), f.DF, plural(f.DF, "degree of freedom", "degrees of freedom"), PValue(f.P), methodWords(f.Method))
+		display.Statistic.Format(f.H), f.DF, plural(f.DF, "degree of freedom", "degrees of freedom"), PValue(f.P), methodWords(f.Method))
 	if f.Method == "monte-carlo" {
 		fmt.Fprintf(&b, "That estimate comes from %s resamples, random reshuffles of the ranks among the groups (seed %d); the 99%% interval for p runs from %s to %s",
-			thousands(int64(f.Resamples)), f.Seed, Number(f.Low), Number(f.High))
+			thousands(int64(f.Resamples)), f.Seed, display.PValue.Format(f.Low), display.PValue.Format(f.High))
 		if Straddles(f.Low, f.High, f.Alpha) {
 			b.WriteString(", which includes the significance level, so the decision below is not firm: run more resamples")
 		}
@@ -111,7 +110,7 @@ func Decision(f Facts) string {
 		fmt.Fprintf(&b, "At the chosen significance level of %s this is not statistically significant: the data give no clear evidence that the groups' distributions differ. That is not proof that they are the same; small groups can miss real differences. ",
 			Number(f.Alpha))
 	}
-	fmt.Fprintf(&b, "The effect size ε² = %s is %s by common benchmarks. ", Number(f.Epsilon), f.Size)
+	fmt.Fprintf(&b, "The effect size ε² = %s is %s by common benchmarks. ", display.Effect.Format(f.Epsilon), f.Size)
 	if f.PairMethod != "" {
 		writePairs(&b, f)
 	}
@@ -154,7 +153,7 @@ func writePairs(b *strings.Builder, f Facts) {
 			}
 		}
 		fmt.Fprintf(b, "Values in %s tend to be higher than in %s%s: adjusted %s, probability of superiority %s. ",
-			d.Higher, d.Lower, by, PValue(d.PAdjusted), strconv.FormatFloat(d.Superiority, 'f', 2, 64))
+			d.Higher, d.Lower, by, PValue(d.PAdjusted), display.Effect.Format(d.Superiority))
 	}
 	switch rest := f.PairsTested - len(f.Differences); {
 	case rest == 1:
@@ -182,8 +181,8 @@ func ResultLine(f Facts) string {
 	case "monte-carlo":
 		method = " (Monte Carlo)"
 	}
-	return fmt.Sprintf("H(%d) = %s, %s%s, ε² = %s, N = %s", f.DF, strconv.FormatFloat(f.H, 'f', 2, 64), PValue(f.P), method,
-		strconv.FormatFloat(f.Epsilon, 'f', 2, 64), thousands(int64(n)))
+	return fmt.Sprintf("H(%d) = %s, %s%s, ε² = %s, N = %s", f.DF, display.Statistic.Format(f.H), PValue(f.P), method,
+		display.Effect.Format(f.Epsilon), thousands(int64(n)))
 }
 
 func plural(n int, one, many string) string {
@@ -232,16 +231,12 @@ func listLabels(labels []string) string {
 // significant digits, powers of ten below 0.0001 and from a million up).
 func Number(v float64) string { return display.Figure.Format(v) }
 
-// PValue writes a p-value in prose and in the result line as APA 7 asks
-// (common practice in reports): three decimals without a leading zero,
-// "p < .001" below that and "p > .999" above (the full value stays in the
-// figures and the tables).
+// PValue writes "p = .018", "p < .001" or "p > .999": p as display.PValue
+// shows it (APA 7), after "p" in prose and in the result line.
 func PValue(p float64) string {
-	switch {
-	case p < 0.001:
-		return "p < .001"
-	case p > 0.999:
-		return "p > .999"
+	shown := display.PValue.Format(p)
+	if strings.HasPrefix(shown, "<") || strings.HasPrefix(shown, ">") {
+		return "p " + shown
 	}
-	return "p = " + strings.TrimPrefix(strconv.FormatFloat(p, 'f', 3, 64), "0")
+	return "p = " + shown
 }

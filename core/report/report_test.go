@@ -15,8 +15,8 @@ func TestDecision(t *testing.T) {
 		saysNot []string
 	}{
 		{"significant", func(*Facts) {},
-			[]string{"3 groups (North, South and East; 21 values in all)", `on "minutes"`, "H = 7.123 with 2 degrees of freedom and p = .028",
-				"is statistically significant", "does not say which groups differ", "ε² = 0.356 is large",
+			[]string{"3 groups (North, South and East; 21 values in all)", `on "minutes"`, "H = 7.12 with 2 degrees of freedom and p = .028",
+				"is statistically significant", "does not say which groups differ", "ε² = 0.36 is large",
 				"Group East has fewer than 5 values", "similar shape", Caution},
 			[]string{"not statistically significant"}},
 		{"not significant", func(f *Facts) { f.P = 0.31 },
@@ -30,7 +30,7 @@ func TestDecision(t *testing.T) {
 			[]string{"no arrangement of the ranks is rare enough"}, nil},
 		{"Monte Carlo straddling alpha", func(f *Facts) {
 			f.Method, f.P, f.Resamples, f.Seed, f.Low, f.High = "monte-carlo", 0.049, 1000, 3, 0.034, 0.067
-		}, []string{"1,000 resamples, random reshuffles of the ranks among the groups (seed 3)", "from 0.034 to 0.067", "not firm"}, []string{"approximation behind p"}},
+		}, []string{"1,000 resamples, random reshuffles of the ranks among the groups (seed 3)", "from .034 to .067", "not firm"}, []string{"approximation behind p"}},
 	}
 	for _, tt := range tests {
 		f := base

@@ -73,21 +73,21 @@ type groupRow struct {
 // figureColumns are the test's figures: a table of one row, which the page
 // and the reports show as a list of figures.
 var figureColumns = []column[*core.Result]{
-	{Column{"h", "H, corrected for ties", NoUnit, display.Figure}, func(r *core.Result) any { return r.H }},
+	{Column{"h", "H, corrected for ties", NoUnit, display.Statistic}, func(r *core.Result) any { return r.H }},
 	{Column{"df", "Degrees of freedom", NoUnit, display.Count}, func(r *core.Result) any { return r.DF }},
 	{Column{"p_value", "p-value", NoUnit, display.PValue}, func(r *core.Result) any { return r.PValue }},
 	{Column{"p_method", "How p was found", NoUnit, display.Text}, func(r *core.Result) any { return words{r.PMethod, methodWords[r.PMethod]} }},
 	{Column{"p_interval", "99% interval for p", NoUnit, display.PValue}, pInterval},
 	{Column{"alpha", "Chosen level (alpha)", NoUnit, display.Figure}, func(r *core.Result) any { return r.Alpha }},
 	{Column{"significant", "Significant at that level", NoUnit, display.Flag}, func(r *core.Result) any { return r.Significant }},
-	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, display.Figure}, func(r *core.Result) any { return r.CriticalValue }},
-	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, display.Figure}, exactCritical},
-	{Column{"epsilon_squared", "Effect size ε²", NoUnit, display.Figure}, func(r *core.Result) any { return r.EpsilonSquared }},
+	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, display.Statistic}, func(r *core.Result) any { return r.CriticalValue }},
+	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, display.Statistic}, exactCritical},
+	{Column{"epsilon_squared", "Effect size ε²", NoUnit, display.Effect}, func(r *core.Result) any { return r.EpsilonSquared }},
 	{Column{"epsilon_squared_size", "ε² in words", NoUnit, display.Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
-	{Column{"eta_squared", "Effect size η²(H), the alternative", NoUnit, display.Figure}, func(r *core.Result) any { return optional(r.EtaSquared) }},
+	{Column{"eta_squared", "Effect size η²(H), the alternative", NoUnit, display.Effect}, func(r *core.Result) any { return optional(r.EtaSquared) }},
 	{Column{"eta_squared_size", "η²(H) in words", NoUnit, display.Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
 	{Column{"tie_correction", "Tie correction C", NoUnit, display.Figure}, func(r *core.Result) any { return r.TieCorrection }},
-	{Column{"h_uncorrected", "H before the correction", NoUnit, display.Figure}, func(r *core.Result) any { return r.HUncorrected }},
+	{Column{"h_uncorrected", "H before the correction", NoUnit, display.Statistic}, func(r *core.Result) any { return r.HUncorrected }},
 }
 
 // groupColumns are the groups table's columns.
@@ -127,12 +127,12 @@ var levelColumns = []column[levelRow]{
 var pairColumns = []column[core.PairResult]{
 	{Column{"first", "First", NoUnit, display.Text}, func(p core.PairResult) any { return p.A }},
 	{Column{"second", "Second", NoUnit, display.Text}, func(p core.PairResult) any { return p.B }},
-	{Column{"statistic", "Statistic", NoUnit, display.Figure}, func(p core.PairResult) any { return optional(p.Statistic) }},
+	{Column{"statistic", "Statistic", NoUnit, display.Statistic}, func(p core.PairResult) any { return optional(p.Statistic) }},
 	{Column{"p", "p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.P) }},
 	{Column{"p_adjusted", "Adjusted p", NoUnit, display.PValue}, func(p core.PairResult) any { return optional(p.PAdjusted) }},
 	{Column{"significant", "Differ", NoUnit, display.Flag}, func(p core.PairResult) any { return p.Significant }},
-	{Column{"probability_of_superiority", "Chance first is higher", NoUnit, display.Share}, func(p core.PairResult) any { return p.ProbSuperiority }},
-	{Column{"cliffs_delta", "Cliff's δ", NoUnit, display.Share}, func(p core.PairResult) any { return p.CliffsDelta }},
+	{Column{"probability_of_superiority", "Chance first is higher", NoUnit, display.Effect}, func(p core.PairResult) any { return p.ProbSuperiority }},
+	{Column{"cliffs_delta", "Cliff's δ", NoUnit, display.Effect}, func(p core.PairResult) any { return p.CliffsDelta }},
 	{Column{"hodges_lehmann", "Shift", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.Shift }},
 	{Column{"hodges_lehmann_low", "Interval from", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.ShiftLow }},
 	{Column{"hodges_lehmann_high", "Interval to", MeasureUnit, display.Figure}, func(p core.PairResult) any { return p.ShiftHigh }},

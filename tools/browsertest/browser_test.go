@@ -259,9 +259,10 @@ func (b *browser) screenshot(t *testing.T, name string) {
 	t.Logf("screenshot for review: %s", path)
 }
 
-// shown formats a figure by the core's display policy, which the page shows.
+// shown formats a statistic by the core's display policy, which the page
+// shows.
 func shown(v float64) string {
-	return display.Figure.Format(v)
+	return display.Statistic.Format(v)
 }
 
 // smokeTest is what every way of hosting the page must pass: the demo
