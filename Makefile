@@ -30,10 +30,11 @@ edge-deps:
 # test: every check that must pass before a change lands
 test: fmt-check vet check-core test-deps test-go test-wasm test-arm64
 
-# test-deps: install what the tests run on when it is missing (Debian's chromium, Node.js, qemu-user, the
-# edge runtime)
+# test-deps: install what the tests run on when it is missing (Debian's chromium, poppler-utils for the
+# printed PDF's text, Node.js, qemu-user, the edge runtime)
 test-deps:
 	@command -v chromium >/dev/null 2>&1 || { apt-get update && apt-get install -y chromium; }
+	@command -v pdftotext >/dev/null 2>&1 || { apt-get update && apt-get install -y --no-install-recommends poppler-utils; }
 	@command -v qemu-aarch64 >/dev/null 2>&1 || { apt-get update && apt-get install -y --no-install-recommends qemu-user; }
 	@command -v node >/dev/null 2>&1 || { apt-get update && apt-get install -y nodejs npm; }
 	@$(MAKE) --no-print-directory edge-deps

@@ -11,6 +11,7 @@ import (
 	"cmp"
 	"context"
 	"fmt"
+	"midrank/core/bootstrap"
 	"slices"
 	"sync"
 
@@ -60,42 +61,45 @@ type RankedValue struct {
 // Result is the complete outcome of an analysis. Its JSON form never holds
 // NaN or Infinity: undefined figures are pointers, and null when nil.
 type Result struct {
-	Version            string        `json:"version"`
-	N                  int           `json:"n"`
-	K                  int           `json:"k"`
-	Missing            int           `json:"missing"`
-	Alpha              float64       `json:"alpha"`
-	Input              Input         `json:"input"`
-	Groups             []Group       `json:"groups"`
-	Levels             *Levels       `json:"levels"` // a table of counts' groups level by level, null otherwise
-	H                  float64       `json:"h"`
-	HUncorrected       float64       `json:"h_uncorrected"`
-	TieCorrection      float64       `json:"tie_correction"`
-	DF                 int           `json:"df"`
-	PAsymptotic        float64       `json:"p_asymptotic"`
-	PExact             *float64      `json:"p_exact"`
-	PMonteCarlo        *float64      `json:"p_monte_carlo"`
-	PValue             float64       `json:"p_value"`
-	PMethod            string        `json:"p_method"`
-	PMethodReason      string        `json:"p_method_reason"`
-	CriticalValue      float64       `json:"critical_value"`
-	ExactCriticalValue *float64      `json:"exact_critical_value"` // smallest attained H with P(H ≥ h) ≤ alpha
-	ExactAttainedAlpha *float64      `json:"exact_attained_alpha"` // P(H ≥ exact_critical_value)
-	MonteCarlo         *MonteCarlo   `json:"monte_carlo"`
-	Significant        bool          `json:"significant"`
-	EpsilonSquared     float64       `json:"epsilon_squared"`
-	EpsilonSquaredSize string        `json:"epsilon_squared_size"`
-	EtaSquared         *float64      `json:"eta_squared"`
-	EtaSquaredSize     *string       `json:"eta_squared_size"`
-	QuantileMethod     string        `json:"quantile_method"`
-	Ranks              []RankedValue `json:"ranks"`
-	RanksComplete      bool          `json:"ranks_complete"` // false: ranks is empty, ask Page for them
-	Ties               []rank.Tie    `json:"ties"`
-	TiesTotal          int           `json:"ties_total"`
-	TiesComplete       bool          `json:"ties_complete"` // false: ties is empty, ask Page for them
-	PostHoc            *PostHoc      `json:"posthoc"`       // null when no post-hoc method was asked for
-	Warnings           []string      `json:"warnings"`
-	Decision           string        `json:"decision"`
+	Version            string      `json:"version"`
+	N                  int         `json:"n"`
+	K                  int         `json:"k"`
+	Missing            int         `json:"missing"`
+	Alpha              float64     `json:"alpha"`
+	Input              Input       `json:"input"`
+	Groups             []Group     `json:"groups"`
+	Levels             *Levels     `json:"levels"` // a table of counts' groups level by level, null otherwise
+	H                  float64     `json:"h"`
+	HUncorrected       float64     `json:"h_uncorrected"`
+	TieCorrection      float64     `json:"tie_correction"`
+	DF                 int         `json:"df"`
+	PAsymptotic        float64     `json:"p_asymptotic"`
+	PExact             *float64    `json:"p_exact"`
+	PMonteCarlo        *float64    `json:"p_monte_carlo"`
+	PValue             float64     `json:"p_value"`
+	PMethod            string      `json:"p_method"`
+	PMethodReason      string      `json:"p_method_reason"`
+	CriticalValue      float64     `json:"critical_value"`
+	ExactCriticalValue *float64    `json:"exact_critical_value"` // smallest attained H with P(H ≥ h) ≤ alpha
+	ExactAttainedAlpha *float64    `json:"exact_attained_alpha"` // P(H ≥ exact_critical_value)
+	MonteCarlo         *MonteCarlo `json:"monte_carlo"`
+	Significant        bool        `json:"significant"`
+	EpsilonSquared     float64     `json:"epsilon_squared"`
+	EpsilonSquaredSize string      `json:"epsilon_squared_size"`
+	// EpsilonSquaredInterval is ε²'s percentile bootstrap interval, nil
+	// when there are more values than EffectBudget allows.
+	EpsilonSquaredInterval *bootstrap.Interval `json:"epsilon_squared_interval"`
+	EtaSquared             *float64            `json:"eta_squared"`
+	EtaSquaredSize         *string             `json:"eta_squared_size"`
+	QuantileMethod         string              `json:"quantile_method"`
+	Ranks                  []RankedValue       `json:"ranks"`
+	RanksComplete          bool                `json:"ranks_complete"` // false: ranks is empty, ask Page for them
+	Ties                   []rank.Tie          `json:"ties"`
+	TiesTotal              int                 `json:"ties_total"`
+	TiesComplete           bool                `json:"ties_complete"` // false: ties is empty, ask Page for them
+	PostHoc                *PostHoc            `json:"posthoc"`       // null when no post-hoc method was asked for
+	Warnings               []string            `json:"warnings"`
+	Decision               string              `json:"decision"`
 	// ResultLine is the result in one line, as reports write it:
 	// "H(2) = 7.99, p = .018, ε² = 0.28, N = 30" (see report.ResultLine)
 	ResultLine string `json:"result_line"`
@@ -193,6 +197,13 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	r.Significant = report.Significant(r.PValue, s.alpha)
 	r.EpsilonSquared = kruskal.EpsilonSquared(test.H, r.N)
 	r.EpsilonSquaredSize = kruskal.Size(r.EpsilonSquared)
+	if b := effectResamples(r.N); b > 0 {
+		interval, err := bootstrap.EpsilonSquared(ctx, ranking, b, s.seed)
+		if err != nil {
+			return nil, err
+		}
+		r.EpsilonSquaredInterval = &interval
+	}
 	if eta, ok := kruskal.EtaSquared(test.H, r.N, r.K); ok {
 		size := kruskal.Size(eta)
 		r.EtaSquared, r.EtaSquaredSize = &eta, &size
@@ -219,7 +230,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	facts := report.Facts{
 		Labels: t.Labels, Sizes: sizes, Measure: t.Measure, Left: r.Input.LeftLabels(),
 		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
-		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize,
+		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize, EpsilonInterval: r.EpsilonSquaredInterval,
 		Unreachable: r.PMethod == string(PValueExact) && r.ExactCriticalValue == nil,
 	}
 	if len(r.Groups) <= MaxNamedGroups {

@@ -73,6 +73,19 @@ func Encode(r *Result) ([]byte, error) {
 	w.BoolMember("significant", r.Significant)
 	w.FloatMember("epsilon_squared", r.EpsilonSquared)
 	w.StringMember("epsilon_squared_size", r.EpsilonSquaredSize)
+	w.Key("epsilon_squared_interval")
+	if ci := r.EpsilonSquaredInterval; ci == nil {
+		w.Null()
+	} else {
+		w.BeginObject()
+		w.FloatMember("low", ci.Low)
+		w.FloatMember("high", ci.High)
+		w.FloatMember("level", ci.Level)
+		w.IntMember("resamples", ci.Resamples)
+		w.Key("seed")
+		w.Uint(ci.Seed)
+		w.EndObject()
+	}
 	w.OptFloatMember("eta_squared", r.EtaSquared)
 	w.Key("eta_squared_size")
 	w.OptString(r.EtaSquaredSize)

@@ -11,7 +11,8 @@ import { dataText, setText, wireInput } from "./js/input.js";
 import { renderPreview } from "./js/preview.js";
 import { NO_EDITS, UNDO_KEPT, editGroups, renderEditor, undoEdit, whenEdited } from "./js/editor.js";
 import { renderResults, setStale } from "./js/results.js";
-import { renderPictures, wirePictures } from "./js/pictures.js";
+import { renderPictures } from "./js/pictures.js";
+import { wirePictures } from "./js/savepicture.js";
 import { renderLevels } from "./js/levels.js";
 import { renderRanks, wireRanks } from "./js/ranks.js";
 import { wireReports } from "./js/reports.js";
@@ -43,8 +44,17 @@ let started = false;
 const LIVE_LIMIT = 20000; // characters: larger texts wait for a longer pause in typing
 let typingTimer = 0;
 
+// datePrinted puts the version and today's date in the printed pages'
+// margin (style.css, @page).
+function datePrinted() {
+  const line = "Midrank " + $("version").textContent + " \u00b7 printed " + new Date().toISOString().slice(0, 10);
+  document.documentElement.style.setProperty("--printed", JSON.stringify(line));
+}
+addEventListener("beforeprint", datePrinted);
+
 function moduleReady(m) {
   $("version").textContent = m.version;
+  datePrinted();
   update({ defaults: m.defaults, limits: m.limits, menus: m.menus });
   fillMenus(m.menus);
   document.documentElement.dataset.moduleReadyMs = String(Math.round(m.ms));

@@ -4,6 +4,7 @@ package report
 
 import (
 	"fmt"
+	"midrank/core/bootstrap"
 	"midrank/core/display"
 	"strings"
 )
@@ -29,6 +30,8 @@ type Facts struct {
 	Left            []string // groups left out of the data by request
 	Epsilon         float64  // ε²
 	Size            string   // ε² in words
+	// EpsilonInterval is ε²'s bootstrap interval, nil when not computed
+	EpsilonInterval *bootstrap.Interval
 
 	// exact method: no arrangement of the ranks is rare enough for alpha
 	Unreachable bool
@@ -110,7 +113,7 @@ func Decision(f Facts) string {
 		fmt.Fprintf(&b, "At the chosen significance level of %s this is not statistically significant: the data give no clear evidence that the groups' distributions differ. That is not proof that they are the same; small groups can miss real differences. ",
 			Number(f.Alpha))
 	}
-	fmt.Fprintf(&b, "The effect size ε² = %s is %s by common benchmarks. ", display.Effect.Format(f.Epsilon), f.Size)
+	fmt.Fprintf(&b, "The effect size ε² = %s%s is %s by common benchmarks. ", display.Effect.Format(f.Epsilon), EpsilonInterval(f.EpsilonInterval), f.Size)
 	if f.PairMethod != "" {
 		writePairs(&b, f)
 	}
@@ -161,6 +164,15 @@ func writePairs(b *strings.Builder, f Facts) {
 	case rest > 1:
 		fmt.Fprintf(b, "The other %d pairs show no significant difference. ", rest)
 	}
+}
+
+// EpsilonInterval writes ε²'s interval after the figure, " (95% bootstrap
+// interval 0.34 to 0.71)", or "" when there is none.
+func EpsilonInterval(ci *bootstrap.Interval) string {
+	if ci == nil {
+		return ""
+	}
+	return fmt.Sprintf(" (%s%% bootstrap interval %s to %s)", display.Figure.Format(100*ci.Level), display.Effect.Format(ci.Low), display.Effect.Format(ci.High))
 }
 
 // ResultLine is the result in one line, as reports write it:

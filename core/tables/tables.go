@@ -83,6 +83,7 @@ var figureColumns = []column[*core.Result]{
 	{Column{"critical_value", "H needed for significance (chi-square)", NoUnit, display.Statistic}, func(r *core.Result) any { return r.CriticalValue }},
 	{Column{"exact_critical_value", "H needed for significance (exact)", NoUnit, display.Statistic}, exactCritical},
 	{Column{"epsilon_squared", "Effect size ε²", NoUnit, display.Effect}, func(r *core.Result) any { return r.EpsilonSquared }},
+	{Column{"epsilon_squared_interval", "95% interval for ε² (bootstrap)", NoUnit, display.Effect}, epsilonInterval},
 	{Column{"epsilon_squared_size", "ε² in words", NoUnit, display.Text}, func(r *core.Result) any { return r.EpsilonSquaredSize }},
 	{Column{"eta_squared", "Effect size η²(H), the alternative", NoUnit, display.Effect}, func(r *core.Result) any { return optional(r.EtaSquared) }},
 	{Column{"eta_squared_size", "η²(H) in words", NoUnit, display.Text}, func(r *core.Result) any { return optional(r.EtaSquaredSize) }},
@@ -150,6 +151,14 @@ func exactCritical(r *core.Result) any {
 		return words{"", "none reachable"}
 	}
 	return *r.ExactCriticalValue
+}
+
+// epsilonInterval is ε²'s bootstrap interval, or why there is none.
+func epsilonInterval(r *core.Result) any {
+	if ci := r.EpsilonSquaredInterval; ci != nil {
+		return words{"", display.Effect.Format(ci.Low) + " to " + display.Effect.Format(ci.High)}
+	}
+	return words{"", fmt.Sprintf("not computed (more than %s values)", display.Thousands(core.EffectBudget/core.MinEffectResamples))}
 }
 
 // pInterval is the Monte Carlo estimate's 99% interval, or why there is none.

@@ -41,13 +41,39 @@ export function download(name, type, content) {
 
 // copyText puts text on the clipboard and says so; when the browser
 // refuses, the status says what to do instead.
-export async function copyText(text, what, instead) {
+export function copyText(text, what, instead) {
+  return copyAs({ "text/plain": text }, what, instead);
+}
+
+// copyAs puts one thing on the clipboard in several forms ({type: text}),
+// so that a word processor takes the HTML and a plain editor the text. The
+// Clipboard API needs a secure origin; on a plain http intranet address the
+// browser's copy command is used instead.
+export async function copyAs(forms, what, instead) {
   try {
-    await navigator.clipboard.writeText(text);
+    if (navigator.clipboard?.write && typeof ClipboardItem === "function") {
+      await navigator.clipboard.write([new ClipboardItem(Object.fromEntries(
+        Object.entries(forms).map(([type, text]) => [type, new Blob([text], { type })])))]);
+    } else if (!copyCommand(forms)) {
+      throw new Error("refused");
+    }
     setStatus(what + " is on the clipboard.");
   } catch {
     setStatus("Copying was refused by the browser; " + instead);
     return false;
   }
   return true;
+}
+
+// copyCommand copies through the browser's copy command, filling the copy
+// event's data with every form.
+function copyCommand(forms) {
+  const fill = (event) => {
+    for (const [type, text] of Object.entries(forms)) event.clipboardData.setData(type, text);
+    event.preventDefault();
+  };
+  document.addEventListener("copy", fill, { once: true });
+  const done = document.execCommand("copy");
+  document.removeEventListener("copy", fill);
+  return done;
 }

@@ -26,6 +26,9 @@ async function showRanks() {
     row([v.line, v.group, String(v.value), String(v.rank), v.shared], v.shared > 1 ? "tied" : "")));
   const last = Math.min(offset + PAGE_ROWS, r.n);
   $("page-info").textContent = "Rows " + (offset + 1) + "–" + last + " of " + r.n;
+  $("print-rank-note").textContent = last - offset === r.n ? "All " + r.n.toLocaleString("en") + " values are listed."
+    : "Printed here: rows " + (offset + 1) + "–" + last + " of " + r.n.toLocaleString("en")
+      + ", the rows on screen when this was printed; the page shows the others " + PAGE_ROWS + " at a time.";
   $("prev-page").disabled = offset === 0;
   $("next-page").disabled = last >= r.n;
 }

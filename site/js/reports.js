@@ -3,7 +3,7 @@
 import { $, download } from "./dom.js";
 import { state } from "./state.js";
 import { formOptions } from "./settings.js";
-import { svgSource } from "./pictures.js";
+import { svgSource } from "./savepicture.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
 
 // groupEditsText says which groups were shown under another name and which

@@ -12,7 +12,7 @@ export function setStale(stale) {
   stale = stale && !results.hidden;
   results.classList.toggle("stale", stale);
   $("stale-note").hidden = !stale;
-  for (const el of results.children) if (el.id !== "stale-note") el.inert = stale;
+  for (const el of results.querySelectorAll(".headline > :not(#stale-note), .details")) el.inert = stale;
 }
 
 export function renderResults(state, changed) {

@@ -1,8 +1,9 @@
 // Sharing: a link that carries the data and settings (sealed with a
 // passphrase when one is given), the passphrase form of a sealed link, and
-// the decision paragraph copied.
-import { $, copyText, setStatus, showProblem } from "./dom.js";
+// the result line, the decision paragraph and the tables copied.
+import { $, copyAs, copyText, setStatus, showProblem } from "./dom.js";
 import { state } from "./state.js";
+import { htmlOf, plainOf } from "./tableview.js";
 import { dataText } from "./input.js";
 import { formOptions } from "./settings.js";
 import { seal, unseal } from "./seal.js";
@@ -50,6 +51,12 @@ export function wireShare(ask, opened) {
     copyText($("result-line").textContent, "The result line", "select the line and copy it by hand."));
   $("copy-decision").addEventListener("click", () =>
     copyText($("decision").textContent, "The paragraph", "select the paragraph and copy it by hand."));
+  $("copy-tables").addEventListener("click", () => {
+    if (!state.result) return;
+    const tables = Object.values(state.tables);
+    copyAs({ "text/html": tables.map(htmlOf).join(""), "text/plain": tables.map(plainOf).join("\n") },
+      "Every table", "download the report instead and copy the tables from it.");
+  });
   $("unlock").addEventListener("submit", async (event) => {
     event.preventDefault();
     setStatus("Opening the link…");

@@ -86,15 +86,32 @@ export function htmlOf(table) {
     + rows.map((r) => "<tr>" + r.map((c) => "<td>" + escapeHTML(c) + "</td>").join("") + "</tr>").join("") + "</tbody></table>";
 }
 
-// mdText makes text literal in Markdown: every character that Markdown,
-// its table and autolink extensions or the HTML inside it give a meaning is
-// escaped with a backslash (CommonMark 0.31, §2.4, backslash escapes; ":",
-// "." and "@" stop addresses from becoming links), and a line break becomes
-// a space, so that a label can neither start a link, an image or a tag nor
-// break a table row. A number is written as it is.
+// plainOf is a table as plain text, its cells separated by tabs so that it
+// pastes into a spreadsheet's cells: the title, the note, the headings and
+// the rows as shown.
+export function plainOf(table) {
+  const { head, rows } = rowsOf(table);
+  const line = (cells) => cells.map((c) => String(c).replace(/[\t\r\n]+/g, " ")).join("\t");
+  return [table.title, ...(table.note ? [table.note] : []), line(head), ...rows.map(line)].join("\n") + "\n";
+}
+
+// mdText makes text literal in Markdown (CommonMark 0.31 with the GFM
+// table, strikethrough and autolink extensions): a line break becomes a
+// space; the characters that mean something wherever they stand (\ ` * _
+// [ ] < > | ~ & ! $) get a backslash (§2.4, backslash escapes); a mark that
+// means something only at the start of a line (# + - = and "1." or "1)")
+// gets one there; and an address that would become a link ("www.",
+// "http://", "a@b") is broken by a backslash before its "." , ":" or "@".
+// Ordinary prose keeps its full stops, colons and brackets as they are.
 export function mdText(v) {
   if (/^-?[0-9][0-9.]*(e-?[0-9]+)?$/.test(v)) return v;
-  return String(v).replace(/\r\n|\r|\n/g, " ").replace(/[\\`*_{}\[\]()#+\-.!|<>~&:@$]/g, "\\$&");
+  return String(v).replace(/\r\n|\r|\n/g, " ")
+    .replace(/[\\`*_\[\]<>|~&!$]/g, "\\$&")
+    .replace(/^(\s*)([#+\-=])/, "$1\\$2")
+    .replace(/^(\s*\d+)([.)])/, "$1\\$2")
+    .replace(/(www)\./gi, "$1\\.")
+    .replace(/:\/\//g, "\\://")
+    .replace(/(\w)@(?=\w)/g, "$1\\@");
 }
 
 // markdownOf is a table as Markdown lines.

@@ -5,11 +5,11 @@
 package browsertest
 
 import (
-	"bytes"
 	"context"
 	"crypto/rand"
 	"fmt"
 	"html"
+	"math"
 	"net/http/httptest"
 	"os"
 	"os/exec"
@@ -259,6 +259,31 @@ func (b *browser) screenshot(t *testing.T, name string) {
 	t.Logf("screenshot for review: %s", path)
 }
 
+// pdfText is the text of a PDF file, its spaces and line breaks as single
+// spaces, read by poppler's pdftotext (Debian's
+// poppler-utils, which make test installs).
+func pdfText(t *testing.T, path string) string {
+	t.Helper()
+	out, err := exec.Command("pdftotext", path, "-").Output()
+	if err != nil {
+		t.Fatalf("pdftotext (make test installs Debian's poppler-utils): %v", err)
+	}
+	return strings.Join(strings.Fields(string(out)), " ") // a heading wrapped over lines reads as one
+}
+
+// hasWords reports whether every word of heading is in text: a heading
+// printed over two lines of its cell is read out of the PDF with other
+// cells' words between its own, in an order that depends on the layout.
+// That each heading prints whole is checked in the page with print styles.
+func hasWords(text, heading string) bool {
+	for _, word := range strings.Fields(heading) {
+		if !strings.Contains(text, word) {
+			return false
+		}
+	}
+	return true
+}
+
 // shown formats a statistic by the core's display policy, which the page
 // shows.
 func shown(v float64) string {
@@ -360,10 +385,24 @@ func TestPage(t *testing.T) {
 				if csv, ok := csvs[tab.Name]; ok && !strings.Contains(strings.SplitN(csv, "\r\n", 2)[0], c.Key) {
 					t.Errorf("%s: column %q is not in the CSV file's header %q", tab.Name, c.Key, strings.SplitN(csv, "\r\n", 2)[0])
 				}
-				if row := tab.Rows[0]; tab.Name != "figures" && !strings.Contains(md, "| "+row[0].Text+" |") {
-					t.Errorf("%s: the first row (%s) is not in the Markdown report", tab.Name, row[0].Text)
-				} else if tab.Name == "figures" && !strings.Contains(md, "| "+c.Heading+" | "+row[i].Text+" |") {
-					t.Errorf("figures: %q is not shown as %q in the Markdown report", c.Heading, row[i].Text)
+				if tab.Name == "figures" && !strings.Contains(md, "| "+c.Heading+" | "+tab.Rows[0][i].Text+" |") {
+					t.Errorf("figures: %q is not shown as %q in the Markdown report", c.Heading, tab.Rows[0][i].Text)
+				}
+			}
+			// every row as the core shows it (its digits by the display policy), in both reports
+			for _, row := range tab.Rows {
+				if tab.Name == "figures" {
+					break
+				}
+				texts, cells := make([]string, len(row)), make([]string, len(row))
+				for i, c := range row {
+					texts[i], cells[i] = c.Text, "<td>"+html.EscapeString(c.Text)+"</td>"
+				}
+				if !strings.Contains(md, "| "+strings.Join(texts, " | ")+" |") {
+					t.Errorf("%s: the row %q is not in the Markdown report as shown", tab.Name, texts)
+				}
+				if !strings.Contains(report, "<tr>"+strings.Join(cells, "")+"</tr>") {
+					t.Errorf("%s: the row %q is not in the HTML report as shown", tab.Name, texts)
 				}
 			}
 		}
@@ -387,7 +426,7 @@ func TestPage(t *testing.T) {
 
 	t.Run("screenshot", func(t *testing.T) { b.screenshot(t, "midrank-results.png") })
 
-	t.Run("prints the results on several A4 pages", func(t *testing.T) {
+	t.Run("prints the results on A4 with every heading, tables within the paper and page numbers", func(t *testing.T) {
 		printPDF := func(ctx context.Context, target *chromedp.Target) ([]byte, error) {
 			res, err := cdp.Call(ctx, target, page.PrintToPDF, page.PrintToPDFParams{PaperWidth: 8.27, PaperHeight: 11.69}) // A4, in inches
 			return res.Data, err
@@ -400,10 +439,112 @@ func TestPage(t *testing.T) {
 		if err := os.WriteFile(path, pdf, 0o644); err != nil {
 			t.Fatal(err)
 		}
-		if pages := bytes.Count(pdf, []byte("/Type /Page\n")) + bytes.Count(pdf, []byte("/Type /Page ")) + bytes.Count(pdf, []byte("/Type /Page>")); pages < 2 {
-			t.Errorf("the printed results have %d pages (%s)", pages, path)
-		}
 		t.Logf("printed results for review: %s", path)
+		text := pdfText(t, path)
+		for _, tab := range tables.Of(want) {
+			for _, c := range tab.Columns {
+				if !hasWords(text, c.Heading) {
+					t.Errorf("the printed results lack the %s table's heading %q", tab.Name, c.Heading)
+				}
+			}
+		}
+		for _, s := range []string{"Page 1 of ", "Page 2 of ", "printed " + time.Now().UTC().Format("2006-01-02"), "All 41 values are listed."} {
+			if !strings.Contains(text, s) {
+				t.Errorf("the printed results lack %q", s)
+			}
+		}
+		for _, s := range []string{"Download", "Copy this line", "Passphrase"} {
+			if strings.Contains(text, s) {
+				t.Errorf("the printed results show the control %q", s)
+			}
+		}
+		// A4 is 210 mm wide; less the page's margins of 14 mm a side, 182 mm are printed
+		const printable = 182 / 25.4 * 96 // CSS pixels
+		media := func(m string) chromedp.Action[chromedp.Void] {
+			return chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+				_, err := cdp.Call(ctx, tg, emulation.SetEmulatedMedia, emulation.SetEmulatedMediaParams{Media: m})
+				return err
+			})
+		}
+		if err := chromedp.Do(b.ctx, media("print"), chromedp.EmulateViewport(int64(math.Floor(printable)), 1000)); err != nil {
+			t.Fatal(err)
+		}
+		wide, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#results table, #results figure, #results dl")]
+			.filter((el) => el.checkVisibility()).filter((el) => el.getBoundingClientRect().width > `+strconv.Itoa(int(math.Floor(printable)))+` + 0.5)
+			.map((el) => (el.id || el.className) + " " + Math.round(el.getBoundingClientRect().width) + " px")`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(wide) > 0 {
+			t.Errorf("printed wider than the paper's %.0f px: %q", printable, wide)
+		}
+		headings, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#results th, #results dt")]
+			.filter((el) => el.checkVisibility() && el.getBoundingClientRect().width > 0 && el.scrollWidth <= el.clientWidth + 1).map((el) => el.textContent)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, tab := range tables.Of(want) {
+			for _, c := range tab.Columns {
+				if !slices.ContainsFunc(headings, func(h string) bool { return strings.HasPrefix(h, c.Heading) }) {
+					t.Errorf("with print styles the %s table's heading %q is hidden or cut", tab.Name, c.Heading)
+				}
+			}
+		}
+		if err := chromedp.Do(b.ctx, media(""), chromedp.EmulateViewport(1200, 900)); err != nil {
+			t.Fatal(err)
+		}
+	})
+
+	t.Run("the headline is in view after the first analysis at 1280 by 800, and pictures keep their text size at 390 px", func(t *testing.T) {
+		if err := chromedp.Do(b.ctx, chromedp.EmulateViewport(1280, 800)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.querySelector("#plot-values svg").getAttribute("width") > 720`)
+		below, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`scrollTo(0, 0), ["result-line", "decision", "plot-values"]
+			.filter((id) => document.getElementById(id).getBoundingClientRect().bottom > innerHeight)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(below) > 0 {
+			t.Errorf("at 1280 by 800 these are below the first screen: %q", below)
+		}
+		b.screenshot(t, "midrank-first-screen.png")
+		if err := chromedp.Do(b.ctx, chromedp.EmulateViewport(390, 800)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.querySelector("#plot-values svg").getAttribute("width") < 400`)
+		small, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#results svg text")]
+			.filter((t) => t.getBoundingClientRect().height > 0 && parseFloat(getComputedStyle(t).fontSize) * t.closest("svg").getBoundingClientRect().width / t.closest("svg").viewBox.baseVal.width < 11)
+			.map((t) => t.textContent)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(small) > 0 {
+			t.Errorf("at 390 px these pictures' texts are smaller than 11 px: %q", small)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.EmulateViewport(1200, 900)); err != nil {
+			t.Fatal(err)
+		}
+	})
+
+	t.Run("the tables copy as HTML and as text", func(t *testing.T) {
+		catch := `navigator.clipboard.write = async (items) => { window.copied = items; }; document.getElementById("copy-tables").click(); true`
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](catch)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `window.copied !== undefined`)
+		forms, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`Promise.all(["text/html", "text/plain"].map((type) => window.copied[0].getType(type).then((blob) => blob.text())))`, chromedp.EvalAwaitPromise))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := strings.Count(forms[0], "<table>"); got != len(tables.Of(want)) {
+			t.Errorf("the copied HTML holds %d tables, want %d:\n%.300s", got, len(tables.Of(want)), forms[0])
+		}
+		for _, g := range want.Groups {
+			if !strings.Contains(forms[1], "\n"+g.Label+"\t") {
+				t.Errorf("the copied text has no row for %s, its cells separated by tabs:\n%.600s", g.Label, forms[1])
+			}
+		}
 	})
 
 	t.Run("a pasted case shows the command line's H", func(t *testing.T) {
@@ -477,8 +618,8 @@ func TestPage(t *testing.T) {
 		}
 		b.waitFor(t, `document.getElementById("data").value.startsWith("block") && document.getElementById("status").textContent.startsWith("Done")`)
 		// R 4.2.2: kruskal.test(yield ~ block, npk): chi-squared = 8.3684, df = 5 (testdata/reading/expected.tsv)
-		if h, df := b.text(t, `[data-result="h"]`), b.text(t, `[data-result="df"]`); h != "8.368" || df != "5" {
-			t.Errorf("npk from the spreadsheet: H %s on %s df, want R's 8.368 on 5", h, df)
+		if h, df := b.text(t, `[data-result="h"]`), b.text(t, `[data-result="df"]`); h != "8.37" || df != "5" {
+			t.Errorf("npk from the spreadsheet: H %s on %s df, want R's 8.37 on 5", h, df)
 		}
 		b.screenshot(t, "midrank-spreadsheet.png")
 	})
@@ -504,6 +645,9 @@ func TestPage(t *testing.T) {
 	})
 
 	t.Run("an exact p-value is shown with its method", func(t *testing.T) {
+		// midranks A 3.5, 5, 6; B 7, 8, 9; C 1, 2, 3.5 (a tie at 3): the most extreme split of the
+		// scores, reached by its 3! relabellings × 2 placings of the tied pair = 12 of the
+		// 9!/(3!)³ = 1,680 deals, so p = 12/1680 = 0.00714 (complete enumeration, by hand)
 		data := "A,B,C\n3,8,2\n5,6,1\n4,9,3\n"
 		r, err := core.Analyze([]byte(data), core.Options{})
 		if err != nil {
@@ -513,7 +657,7 @@ func TestPage(t *testing.T) {
 		if got := b.text(t, `[data-result="p_method"]`); got != "exact permutation" || r.PMethod != "exact" {
 			t.Errorf("method shown as %q (core: %s), want exact permutation", got, r.PMethod)
 		}
-		if got, want := b.text(t, `[data-result="p_value"]`), strconv.FormatFloat(r.PValue, 'g', 3, 64); got != want {
+		if got, want := b.text(t, `[data-result="p_value"]`), display.PValue.Format(r.PValue); got != want || r.PValue > 0.0072 || r.PValue < 0.0071 {
 			t.Errorf("p shown as %q, want %q", got, want)
 		}
 	})
@@ -859,7 +1003,7 @@ func TestPage(t *testing.T) {
 		}
 		md := b.saved(t, "save-markdown")
 		if unescaped.MatchString(md) || strings.Contains(md, "two\nlines") || !strings.Contains(md, `\<script\>x\</script\>`) ||
-			!strings.Contains(md, `\!\[\]\(http\://t/p\.png\)`) || !strings.Contains(md, "two lines") {
+			!strings.Contains(md, `\!\[\](http\://t/p.png)`) || !strings.Contains(md, "two lines") {
 			t.Errorf("the Markdown report does not escape the labels:\n%s", md)
 		}
 		html := b.saved(t, "save-html")

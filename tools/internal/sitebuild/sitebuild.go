@@ -50,12 +50,13 @@ type Result struct {
 // every build to it. Raised from 4 MiB raw and 1.1 MiB gzip when the
 // tables of results (0.11 MiB raw) and the reading of real tables (the
 // spreadsheet reader, number formats, counts and units: 0.29 MiB raw)
-// moved into the core.
+// moved into the core, and again (to 4.6 MiB raw, 1.3 MiB gzip, 0.95 MiB
+// brotli) for ε²'s bootstrap interval (0.04 MiB raw, 0.01 MiB gzip).
 const (
-	BudgetModule       = 45 * (1 << 20) / 10
-	BudgetModuleGzip   = 125 * (1 << 20) / 100
-	BudgetModuleBrotli = 92 * (1 << 20) / 100
-	BudgetFirstVisit   = 13 * (1 << 20) / 10
+	BudgetModule       = 46 * (1 << 20) / 10
+	BudgetModuleGzip   = 130 * (1 << 20) / 100
+	BudgetModuleBrotli = 95 * (1 << 20) / 100
+	BudgetFirstVisit   = 135 * (1 << 20) / 100
 )
 
 // asset is one file of the site on its way out.

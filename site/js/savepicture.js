@@ -1,0 +1,63 @@
+// A picture as a file that stands alone: SVG or PNG with its title, its
+// styles and its caption.
+import { $, download } from "./dom.js";
+import { svgEl, svgText } from "./svg.js";
+
+const TITLE_HEIGHT = 28; // pixels above the picture for its visible title
+
+// standalone copies a drawn picture with what it needs outside the page:
+// the colours and font the page's styles give it, its title drawn above
+// it, and its caption as its <title>.
+function standalone(id) {
+  const drawn = $(id).querySelector("svg");
+  const box = drawn.viewBox.baseVal;
+  const width = box.width, height = box.height + TITLE_HEIGHT;
+  const svg = svgEl("svg", { viewBox: `0 0 ${width} ${height}`, width, height,
+    role: "img", color: getComputedStyle($(id)).color });
+  const style = svgEl("style", {}, svg);
+  style.textContent = ".grid { stroke: " + getComputedStyle(drawn.querySelector(".grid") ?? $(id)).stroke + "; } "
+    + "text { font-family: system-ui, -apple-system, 'Segoe UI', Roboto, 'Helvetica Neue', Arial, sans-serif; }";
+  svgEl("title", {}, svg).textContent = $(id + "-caption").textContent;
+  svgText(svg, 8, 19, drawn.dataset.title, { "font-size": 15, "font-weight": 600 });
+  const body = svgEl("g", { transform: `translate(0 ${TITLE_HEIGHT})` }, svg);
+  body.append(...[...drawn.childNodes].map((n) => n.cloneNode(true)));
+  return svg;
+}
+
+// svgSource is a drawn picture as a standalone SVG file.
+export function svgSource(id) {
+  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(standalone(id));
+}
+
+// savePNG draws a picture at twice its size on white and saves it as PNG.
+function savePNG(id) {
+  const svg = standalone(id);
+  const box = svg.viewBox.baseVal;
+  const image = new Image();
+  const url = URL.createObjectURL(new Blob([new XMLSerializer().serializeToString(svg)], { type: "image/svg+xml" }));
+  image.onload = () => {
+    const canvas = document.createElement("canvas");
+    canvas.width = box.width * 2;
+    canvas.height = box.height * 2;
+    const ctx = canvas.getContext("2d");
+    ctx.fillStyle = "#ffffff";
+    ctx.fillRect(0, 0, canvas.width, canvas.height);
+    ctx.drawImage(image, 0, 0, canvas.width, canvas.height);
+    URL.revokeObjectURL(url);
+    canvas.toBlob((png) => download("midrank-" + id + ".png", "image/png", png), "image/png");
+  };
+  image.src = url;
+}
+
+// wirePictures connects the download buttons; shown() tells whether
+// results are on screen.
+export function wirePictures(shown) {
+  for (const button of document.querySelectorAll(".save-svg")) {
+    button.addEventListener("click", () => {
+      if (shown()) download("midrank-" + button.dataset.plot + ".svg", "image/svg+xml", svgSource(button.dataset.plot));
+    });
+  }
+  for (const button of document.querySelectorAll(".save-png")) {
+    button.addEventListener("click", () => { if (shown()) savePNG(button.dataset.plot); });
+  }
+}
