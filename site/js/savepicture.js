@@ -5,19 +5,24 @@ import { svgEl, svgText } from "./svg.js";
 
 const TITLE_HEIGHT = 28; // pixels above the picture for its visible title
 
+// PAPER are the colours a picture is saved in, whatever the screen's theme:
+// the light theme's ink and grid on white (style.css), so that a picture
+// saved in dark mode still reads on a white page.
+const PAPER = { ink: "#1f2328", grid: "#d9d4c7", background: "#ffffff" };
+
 // standalone copies a drawn picture with what it needs outside the page:
-// the colours and font the page's styles give it, its title drawn above
-// it, and its caption as its <title>.
+// its colours on a white background, a font, its title drawn above it, and
+// its caption as its <title>.
 function standalone(id) {
   const drawn = $(id).querySelector("svg");
   const box = drawn.viewBox.baseVal;
   const width = box.width, height = box.height + TITLE_HEIGHT;
-  const svg = svgEl("svg", { viewBox: `0 0 ${width} ${height}`, width, height,
-    role: "img", color: getComputedStyle($(id)).color });
+  const svg = svgEl("svg", { viewBox: `0 0 ${width} ${height}`, width, height, role: "img", color: PAPER.ink });
   const style = svgEl("style", {}, svg);
-  style.textContent = ".grid { stroke: " + getComputedStyle(drawn.querySelector(".grid") ?? $(id)).stroke + "; } "
+  style.textContent = ".grid { stroke: " + PAPER.grid + "; } "
     + "text { font-family: system-ui, -apple-system, 'Segoe UI', Roboto, 'Helvetica Neue', Arial, sans-serif; }";
   svgEl("title", {}, svg).textContent = $(id + "-caption").textContent;
+  svgEl("rect", { width, height, fill: PAPER.background }, svg);
   svgText(svg, 8, 19, drawn.dataset.title, { "font-size": 15, "font-weight": 600 });
   const body = svgEl("g", { transform: `translate(0 ${TITLE_HEIGHT})` }, svg);
   body.append(...[...drawn.childNodes].map((n) => n.cloneNode(true)));
@@ -29,7 +34,7 @@ export function svgSource(id) {
   return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(standalone(id));
 }
 
-// savePNG draws a picture at twice its size on white and saves it as PNG.
+// savePNG draws a picture at twice its size and saves it as PNG.
 function savePNG(id) {
   const svg = standalone(id);
   const box = svg.viewBox.baseVal;
@@ -39,10 +44,7 @@ function savePNG(id) {
     const canvas = document.createElement("canvas");
     canvas.width = box.width * 2;
     canvas.height = box.height * 2;
-    const ctx = canvas.getContext("2d");
-    ctx.fillStyle = "#ffffff";
-    ctx.fillRect(0, 0, canvas.width, canvas.height);
-    ctx.drawImage(image, 0, 0, canvas.width, canvas.height);
+    canvas.getContext("2d").drawImage(image, 0, 0, canvas.width, canvas.height);
     URL.revokeObjectURL(url);
     canvas.toBlob((png) => download("midrank-" + id + ".png", "image/png", png), "image/png");
   };
