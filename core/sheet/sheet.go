@@ -168,15 +168,14 @@ func number(stored []byte) []byte {
 	return strconv.AppendFloat(nil, v, 'g', -1, 64)
 }
 
-// isoDate writes a day count from the epoch given as days since
+// appendISODate appends a day count from the epoch given as days since
 // 1970-01-01 of the spreadsheet's day zero, and its fraction of a day, as
 // "YYYY-MM-DD" or, with a time, "YYYY-MM-DD hh:mm:ss" (rounded to the second).
-func isoDate(days float64) []byte {
+func appendISODate(b []byte, days float64) []byte {
 	secs := math.Round(days * 86400)
 	day := math.Floor(secs / 86400)
 	rest := int64(secs - day*86400)
 	y, m, d := civil(int64(day))
-	b := make([]byte, 0, 19)
 	b = appendDigits(b, y, 4)
 	b = appendDigits(append(b, '-'), int64(m), 2)
 	b = appendDigits(append(b, '-'), int64(d), 2)

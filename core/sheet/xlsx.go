@@ -1,6 +1,7 @@
 package sheet
 
 import (
+	"bytes"
 	"fmt"
 	"path"
 	"strconv"
@@ -77,6 +78,7 @@ type xlsxShared struct {
 	strings   [][]byte
 	dateStyle []bool // by cell style index: the style shows a date or time
 	epoch1904 bool
+	date      []byte // the last date written, reused from cell to cell
 }
 
 func (x *xlsxShared) load(a *archive) error {
@@ -205,13 +207,13 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 		}
 		switch {
 		case t.is("row") && !t.end:
-			r, _ := t.attr("r")
-			if n, err := strconv.Atoi(r); err == nil && n > rowNumber {
-				rowNumber = n
-			} else {
-				rowNumber++
+			next := rowNumber + 1
+			for key, v, i, ok := t.nextAttr(0); ok; key, v, i, ok = t.nextAttr(i) {
+				if string(key) == "r" && wholeNumber(v) > rowNumber {
+					next = wholeNumber(v)
+				}
 			}
-			col = 0
+			rowNumber, col = next, 0
 		case t.is("row"):
 			w.endRow()
 			if w.err != nil {
@@ -254,8 +256,8 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 func (x *xlsxShared) cellText(cellType string, style int, value []byte) []byte {
 	switch cellType {
 	case "s":
-		i, err := strconv.Atoi(strings.TrimSpace(string(value)))
-		if err != nil || i < 0 || i >= len(x.strings) {
+		i := wholeNumber(bytes.TrimSpace(value))
+		if i < 0 || i >= len(x.strings) {
 			return nil
 		}
 		return x.strings[i]
@@ -280,7 +282,8 @@ func (x *xlsxShared) cellText(cellType string, style int, value []byte) []byte {
 	if style >= 0 && style < len(x.dateStyle) && x.dateStyle[style] {
 		serial, err := strconv.ParseFloat(string(value), 64)
 		if err == nil {
-			return isoDate(x.daysSince1970(serial))
+			x.date = appendISODate(x.date[:0], x.daysSince1970(serial))
+			return x.date
 		}
 	}
 	return number(value)
@@ -300,7 +303,8 @@ func (x *xlsxShared) daysSince1970(serial float64) float64 {
 	return serial - 25569
 }
 
-// wholeNumber reads a style index, -1 when it is not a whole number.
+// wholeNumber reads a style index or a row number, -1 when it is not a
+// whole number.
 func wholeNumber(b []byte) int {
 	n := 0
 	for _, c := range b {
