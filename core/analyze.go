@@ -197,7 +197,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	r.Significant = report.Significant(r.PValue, s.alpha)
 	r.EpsilonSquared = kruskal.EpsilonSquared(test.H, r.N)
 	r.EpsilonSquaredSize = kruskal.Size(r.EpsilonSquared)
-	if b := effectResamples(r.N); b > 0 {
+	if b := effectResamples(r.N, s.effectBudget); b > 0 {
 		interval, err := bootstrap.EpsilonSquared(ctx, ranking, b, s.seed)
 		if err != nil {
 			return nil, err

@@ -6,7 +6,7 @@ package core
 const EffectResamples = 2000
 
 // EffectBudget bounds the work of ε²'s interval: resamples × values (10
-// million take about 0.12 s natively on one core, BenchmarkTenThousand in
+// million take about 0.1 s natively on one core, BenchmarkTenThousand in
 // core/bootstrap). Up to 5,000 values get EffectResamples resamples, up to
 // 10,000 fewer (never under MinEffectResamples), and larger samples no
 // interval, so that an analysis stays quick enough to follow typing.
@@ -16,9 +16,10 @@ const (
 )
 
 // effectResamples is the number of resamples for ε²'s interval with n
-// values, 0 for none.
-func effectResamples(n int) int {
-	b := min(EffectResamples, EffectBudget/n)
+// values within a budget of resamples × values, 0 for none. A single
+// analysis has EffectBudget; the measures of a battery share it.
+func effectResamples(n, budget int) int {
+	b := min(EffectResamples, budget/n)
 	if b < MinEffectResamples {
 		return 0
 	}

@@ -50,7 +50,7 @@ func TestEffectResamples(t *testing.T) {
 	for _, c := range []struct{ n, want int }{
 		{30, 2000}, {5_000, 2000}, {6_250, 1600}, {10_000, 1000}, {10_001, 0}, {1_000_000, 0},
 	} {
-		if got := effectResamples(c.n); got != c.want {
+		if got := effectResamples(c.n, EffectBudget); got != c.want {
 			t.Errorf("effectResamples(%d) = %d, want %d", c.n, got, c.want)
 		}
 	}

@@ -258,11 +258,13 @@ type settings struct {
 	pairs     bool // a pairwise comparison was asked for, by posthoc
 	posthoc   posthoc.Method
 	adjust    adjust.Method
+	// effectBudget bounds the work of ε²'s interval (see EffectBudget)
+	effectBudget int
 }
 
 // validate checks every option and fills in the defaults.
 func (o Options) validate() (settings, error) {
-	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}}
+	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}, effectBudget: EffectBudget}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
 		return s, &OptionError{"layout", o.Layout, "choose auto, wide, long or counts"}

@@ -89,11 +89,19 @@ func (r *resampler) epsilon(g *random.Xoshiro) float64 {
 	clear(r.counts)
 	at := 0
 	for _, m := range r.s.members {
-		for range m {
-			d := m[g.Below(uint32(len(m)))]
-			r.drawn[at] = d
-			r.counts[d]++
-			at++
+		n := uint32(len(m))
+		// two draws from each 64 random bits, each by Lemire's method
+		for k := 0; k < len(m); k += 2 {
+			bits := g.Uint64()
+			for j, half := range [2]uint32{uint32(bits >> 32), uint32(bits)} {
+				if k+j == len(m) {
+					break
+				}
+				d := m[g.Bounded(half, n)]
+				r.drawn[at] = d
+				r.counts[d]++
+				at++
+			}
 		}
 	}
 	var below, tieSum float64

@@ -81,7 +81,7 @@ func ExampleEpsilonSquared() {
 		panic(err)
 	}
 	fmt.Printf("%.0f%% interval for ε² from %d resamples: %.2f to %.2f\n", 100*ci.Level, ci.Resamples, ci.Low, ci.High)
-	// Output: 95% interval for ε² from 2000 resamples: 0.07 to 0.62
+	// Output: 95% interval for ε² from 2000 resamples: 0.07 to 0.63
 }
 
 // BenchmarkTenThousand: the interval of the largest sample that gets all

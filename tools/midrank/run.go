@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"midrank/core"
+	"midrank/core/adjust"
 	"midrank/core/link"
 	"midrank/core/sealed"
 	"midrank/core/table"
@@ -63,7 +64,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	fs.StringVar(&opt.Layout, "layout", "auto", "auto, wide, long or counts (one row per group, a count per level of a scale)")
 	fs.StringVar(&opt.Separator, "separator", "auto", "auto, tab, semicolon or comma")
 	fs.StringVar(&opt.Group, "group", "", "the column of group labels or codes, by its header or its number from 1 (implies one row per value)")
-	fs.StringVar(&opt.Measure, "measure", "", "the column of values, by its header or its number from 1 (implies one row per value)")
+	var measures []string
+	fs.Func("measure", "the column of values, by its header or its number from 1 (implies one row per value); repeat for several measures, or write all for every numeric column", func(v string) error {
+		measures = append(measures, v)
+		return nil
+	})
+	adjustAcross := fs.String("adjust-across", string(core.DefaultAcross), "with several measures: how their p-values are adjusted across the measures, bh (Benjamini–Hochberg) or holm")
 	fs.StringVar(&opt.Count, "count", "", "a column of counts, by its header or its number from 1: each row stands for that many values (implies one row per value)")
 	fs.StringVar(&opt.Sheet, "sheet", "", "of an .xlsx or .ods file: the sheet to read, by its name or its number from 1 (default the first)")
 	fs.StringVar(&opt.Decimal, "decimal", "auto", "auto (decided on every value read), point or comma")
@@ -171,6 +177,15 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	}
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 	defer stop()
+	if len(measures) > 1 || len(measures) == 1 && measures[0] == core.AllMeasures {
+		if *printLink {
+			return fail(exitSettings, errors.New("a link for several measures is not made yet; make one for each measure"))
+		}
+		return runBattery(ctx, data, opt, measures, *adjustAcross, *asJSON, *showRanks, stdout, fail)
+	}
+	if len(measures) == 1 {
+		opt.Measure = measures[0]
+	}
 	bar := newProgressBar(stderr)
 	result, err := core.AnalyzeContext(ctx, data, opt, bar.show)
 	bar.clear()
@@ -203,6 +218,30 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		return exitOK
 	}
 	writeReport(stdout, result, *showRanks)
+	return exitOK
+}
+
+// runBattery analyses several measures and prints the battery: as JSON, or
+// the overview followed by each measure's report.
+func runBattery(ctx context.Context, data []byte, opt core.Options, measures []string, across string, asJSON, showRanks bool,
+	stdout io.Writer, fail func(int, error) int) int {
+	b, err := core.AnalyzeMeasures(ctx, data, opt, measures, adjust.Method(across))
+	var oe *core.OptionError
+	switch {
+	case errors.As(err, &oe):
+		return fail(exitSettings, err)
+	case err != nil:
+		return fail(exitData, err)
+	}
+	if asJSON {
+		out, err := core.EncodeBattery(b)
+		if err != nil {
+			return fail(exitInternal, err)
+		}
+		stdout.Write(out)
+		return exitOK
+	}
+	writeBattery(stdout, b, showRanks)
 	return exitOK
 }
 

@@ -162,3 +162,19 @@ func wrap(text string, width int, indent string) string {
 	b.WriteString(line)
 	return b.String()
 }
+
+// writeBattery prints a battery of measures for people: the overview, then
+// each measure's report, or why it could not be analysed.
+func writeBattery(w io.Writer, b *core.Battery, showRanks bool) {
+	fmt.Fprintf(w, "Midrank %s · Kruskal–Wallis H test on %d measures by %q\n\n", core.Version, len(b.Measures), b.GroupColumn)
+	writeTable(w, tables.Overview(b))
+	for _, m := range b.Measures {
+		fmt.Fprintf(w, "\n%s\n%s\n", m.Measure, strings.Repeat("=", len([]rune(m.Measure))))
+		if m.Result == nil {
+			fmt.Fprintf(w, "Not analysed: %s\n", core.Detail(m.Err).Message)
+			continue
+		}
+		fmt.Fprintf(w, "p adjusted across the measures: %s\n\n", display.PValue.Format(*m.PAdjustedAcross))
+		writeReport(w, m.Result, showRanks)
+	}
+}
