@@ -136,3 +136,20 @@ func BenchmarkBattery60(b *testing.B) {
 		}
 	}
 }
+
+func ExampleAnalyzeMeasures() {
+	data, err := os.ReadFile("../testdata/battery/airquality.csv") // R's airquality
+	if err != nil {
+		panic(err)
+	}
+	b, err := AnalyzeMeasures(context.Background(), data, Options{Group: "Month"}, []string{"Ozone", "Wind"}, adjust.Holm)
+	if err != nil {
+		panic(err)
+	}
+	for _, m := range b.Measures {
+		fmt.Printf("%s: H = %.2f, p = %.3g, Holm across the measures %.3g\n", m.Measure, m.Result.H, m.Result.PValue, *m.PAdjustedAcross)
+	}
+	// Output:
+	// Ozone: H = 29.27, p = 6.9e-06, Holm across the measures 1.38e-05
+	// Wind: H = 12.52, p = 0.0139, Holm across the measures 0.0139
+}

@@ -89,6 +89,7 @@ func TestJSONMatchesGolden(t *testing.T) {
 
 func TestExitStatus(t *testing.T) {
 	const data = "A,B,C\n1,2,3\n4,5,6\n"
+	const battery = "site,wait,stay\nA,3,1\nA,4,2\nB,8,2\nB,9,3\nC,1,5\nC,2,4\n"
 	tests := []struct {
 		args   []string
 		stdin  string
@@ -122,6 +123,11 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"/nonexistent/file.csv"}, "", exitData, "", "cannot read the input"},
 		{[]string{"--json", "-"}, "A,B\n1,x\n", exitData, `"line":2,"column":2`, "line 2, column 2"},
 		{[]string{"-h"}, "", exitOK, "usage: midrank", ""},
+		// several measures: the overview first, each measure's p adjusted across them
+		{[]string{"--group", "site", "--measure", "wait", "--measure", "stay", "-"}, battery, exitOK, "Measures at a glance", ""},
+		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"adjust_across":"holm","measures":[{"measure":"wait","p_adjusted_across":`, ""},
+		{[]string{"--group", "site", "--measure", "all", "--adjust-across", "bonferroni", "-"}, battery, exitSettings, "", "choose bh"},
+		{[]string{"--link", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "not made yet"},
 	}
 	for _, tt := range tests {
 		var stdout, stderr bytes.Buffer

@@ -18,4 +18,5 @@ Rscript tools/reference/padjust.R "$out/padjust.tsv"
 /usr/bin/python3 tools/reference/posthoc.py "$out"
 Rscript tools/reference/wilcox.R "$out"
 /usr/bin/python3 tools/reference/epsilon_bootstrap.py "$out/epsilon_bootstrap.tsv"
+Rscript tools/reference/battery.R testdata/battery
 echo "wrote $out"
