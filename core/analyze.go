@@ -138,11 +138,7 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 // p-values): it stops when ctx is done, returning ctx.Err(), and tells
 // progress, when not nil, how far it is.
 func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Progress) (*Result, error) {
-	s, err := opt.validate()
-	if err != nil {
-		return nil, err
-	}
-	text, sheetName, err := textOf(data, opt.Sheet)
+	s, text, sheetName, err := opt.prepare(data)
 	if err != nil {
 		return nil, err
 	}
@@ -155,6 +151,17 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 		r.Input.Sheet = &sheetName
 	}
 	return r, err
+}
+
+// prepare checks the options and gives the settings, the text to read
+// (data, or the chosen sheet of a spreadsheet file) and the sheet's name.
+func (o Options) prepare(data []byte) (settings, []byte, string, error) {
+	s, err := o.validate()
+	if err != nil {
+		return s, nil, "", err
+	}
+	text, sheetName, err := textOf(data, o.Sheet)
+	return s, text, sheetName, err
 }
 
 // analyzeTable applies the group edits to a table just read and analyses it.

@@ -60,11 +60,7 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, measures []s
 	if !slices.Contains(AcrossMethods, across) {
 		return nil, &OptionError{"adjust_across", string(across), "choose bh (Benjamini–Hochberg) or holm"}
 	}
-	s, err := opt.validate()
-	if err != nil {
-		return nil, err
-	}
-	text, sheetName, err := textOf(data, opt.Sheet)
+	s, text, sheetName, err := opt.prepare(data)
 	if err != nil {
 		return nil, err
 	}

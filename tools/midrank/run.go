@@ -189,12 +189,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	bar := newProgressBar(stderr)
 	result, err := core.AnalyzeContext(ctx, data, opt, bar.show)
 	bar.clear()
-	var oe *core.OptionError
-	switch {
-	case errors.As(err, &oe):
-		return fail(exitSettings, err)
-	case err != nil:
-		return fail(exitData, err)
+	if err != nil {
+		return fail(exitFor(err), err)
 	}
 	if *printLink {
 		var fragment string
@@ -221,17 +217,23 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	return exitOK
 }
 
+// exitFor is the exit status of an analysis that failed: a setting that
+// cannot be used, else data that cannot be analysed.
+func exitFor(err error) int {
+	var oe *core.OptionError
+	if errors.As(err, &oe) {
+		return exitSettings
+	}
+	return exitData
+}
+
 // runBattery analyses several measures and prints the battery: as JSON, or
 // the overview followed by each measure's report.
 func runBattery(ctx context.Context, data []byte, opt core.Options, measures []string, across string, asJSON, showRanks bool,
 	stdout io.Writer, fail func(int, error) int) int {
 	b, err := core.AnalyzeMeasures(ctx, data, opt, measures, adjust.Method(across))
-	var oe *core.OptionError
-	switch {
-	case errors.As(err, &oe):
-		return fail(exitSettings, err)
-	case err != nil:
-		return fail(exitData, err)
+	if err != nil {
+		return fail(exitFor(err), err)
 	}
 	if asJSON {
 		out, err := core.EncodeBattery(b)
