@@ -194,7 +194,7 @@ func Of(r *core.Result) []Table {
 func Figures(r *core.Result) Table {
 	note := "ε² is the headline effect size, in words " + kruskal.SizeRule() + "; η²(H) is the alternative some reports use."
 	if ci := r.EpsilonSquaredInterval; ci != nil {
-		note += fmt.Sprintf(" ε²'s interval is a percentile bootstrap (%s resamples within each group, seed %d). With small groups it is narrower than it should be: in a simulation of three groups of 10 (tools/reference/epsilon_bootstrap.py) the 95%% interval held the true ε² in 85%% of samples.",
+		note += fmt.Sprintf(" ε²'s interval is a percentile bootstrap (%s resamples within each group, seed %d). With small groups it is narrower than it should be: in a simulation of three groups of 10 values the 95%% interval held the true ε² in only 85%% of samples.",
 			display.Thousands(int64(ci.Resamples)), ci.Seed)
 	}
 	return build("figures", "Test figures", note, r.Input.Measure, figureColumns, []*core.Result{r})

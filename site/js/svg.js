@@ -15,7 +15,7 @@ const SVG = "http://www.w3.org/2000/svg";
 // TEXT_SIZE is the pictures' text size in pixels: pictures are drawn at the
 // width they have on screen (see drawAt), so it stays this size on a phone
 // instead of being scaled down with the picture.
-export const TEXT_SIZE = 12;
+const TEXT_SIZE = 12;
 // CHAR_WIDTH is about the width of one character of that text, for laying
 // out labels before they are drawn.
 const CHAR_WIDTH = 7;

@@ -99,16 +99,17 @@ export function plainOf(table) {
 // table, strikethrough and autolink extensions): a line break becomes a
 // space; the characters that mean something wherever they stand (\ ` * _
 // [ ] < > | ~ & ! $) get a backslash (§2.4, backslash escapes); a mark that
-// means something only at the start of a line (# + - = and "1." or "1)")
-// gets one there; and an address that would become a link ("www.",
+// means something only at the start of a line, before a space or the end
+// (# + - and "1." or "1)") or repeated (=== and --- under a line), gets
+// one there; and an address that would become a link ("www.",
 // "http://", "a@b") is broken by a backslash before its "." , ":" or "@".
 // Ordinary prose keeps its full stops, colons and brackets as they are.
 export function mdText(v) {
   if (/^-?[0-9][0-9.]*(e-?[0-9]+)?$/.test(v)) return v;
   return String(v).replace(/\r\n|\r|\n/g, " ")
     .replace(/[\\`*_\[\]<>|~&!$]/g, "\\$&")
-    .replace(/^(\s*)([#+\-=])/, "$1\\$2")
-    .replace(/^(\s*\d+)([.)])/, "$1\\$2")
+    .replace(/^(\s*)([#+\-=])(?=\s|$|\2)/, "$1\\$2")
+    .replace(/^(\s*\d{1,9})([.)])(?=\s|$)/, "$1\\$2")
     .replace(/(www)\./gi, "$1\\.")
     .replace(/:\/\//g, "\\://")
     .replace(/(\w)@(?=\w)/g, "$1\\@");
