@@ -100,6 +100,7 @@ fuzz:
 	$(call fuzz-once,./core/tables,FuzzTables) || $(call fuzz-once,./core/tables,FuzzTables)
 	$(call fuzz-once,./core/sheet,FuzzOpen) || $(call fuzz-once,./core/sheet,FuzzOpen)
 	$(call fuzz-once,./core/sheet,FuzzXML) || $(call fuzz-once,./core/sheet,FuzzXML)
+	$(call fuzz-once,./core/sheet,FuzzPlainCells) || $(call fuzz-once,./core/sheet,FuzzPlainCells)
 
 # bench: the speed and memory benchmarks
 bench:

@@ -39,8 +39,9 @@ func SheetText(data []byte, ref string) (*Sheets, error) {
 	return &Sheets{Format: book.Format, Names: book.Names, Chosen: i, Text: text}, nil
 }
 
-// JSON writes {"format", "sheets", "sheet", "text"}: the sheets' names, the
-// 1-based number of the one given, and its text.
+// JSON writes {"format", "sheets", "sheet"}: the file's format, the
+// sheets' names and the 1-based number of the one given (its text goes
+// beside it as bytes).
 func (s *Sheets) JSON() []byte {
 	var w jsonlite.Writer
 	w.BeginObject()
@@ -52,7 +53,6 @@ func (s *Sheets) JSON() []byte {
 	}
 	w.EndArray()
 	w.IntMember("sheet", s.Chosen+1)
-	w.StringMember("text", string(s.Text))
 	w.EndObject()
 	return w.Bytes()
 }

@@ -4,7 +4,9 @@
 // data, options, edits} (answered by the module's workspace),
 // {id, kind: "page", list, offset, count},
 // {id, kind: "link", data, options, edits}, {id, kind: "open-link",
-// fragment} and {id, kind: "sheet", bytes, sheet}; replies: {id, json}, and for an analysis that answered
+// fragment} and {id, kind: "sheet", bytes, sheet}; replies: {id, json}, for a sheet
+// {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
+// copied), and for an analysis that answered
 // {id, json, tables} with the module's tables of results of that very
 // analysis. For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
@@ -45,7 +47,7 @@ onmessage = async (event) => {
     begin(q.module);
     return;
   }
-  let json, tables;
+  let json, tables, text;
   try {
     const m = await ready;
     switch (q.kind) {
@@ -58,9 +60,12 @@ onmessage = async (event) => {
       case "open-link":
         json = m.openLink(q.fragment);
         break;
-      case "sheet":
-        json = m.sheet(q.bytes, q.sheet);
+      case "sheet": { // the sheet's text comes as bytes beside the JSON, or an error as JSON alone
+        const answer = m.sheet(q.bytes, q.sheet);
+        if (typeof answer === "string") json = answer;
+        else ({ json, text } = answer);
         break;
+      }
       default:
         json = m.workspace(new TextEncoder().encode(q.data), request(q),
           (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
@@ -73,5 +78,5 @@ onmessage = async (event) => {
     postMessage({ id: q.id, kind: "failed", message: String(err && err.message || err) });
     return;
   }
-  postMessage({ id: q.id, kind: q.kind, json, tables });
+  postMessage({ id: q.id, kind: q.kind, json, tables, text }, text ? [text.buffer] : []);
 };

@@ -9,6 +9,7 @@
 //	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
+//	globalThis.midrank.sheet(bytes[, sheet]) → {json: '{"format", "sheets", "sheet"}', text: Uint8Array}
 //	globalThis.midrank.version
 //	globalThis.midrank.defaults → the default settings as options JSON
 //	globalThis.midrank.limits → {"text": bytes of the largest text read, "link": characters of the longest link}
@@ -85,7 +86,7 @@ func limits() string {
 // guarded wraps a function of the API so that whatever goes wrong inside
 // (a bug, a callback that throws) comes back as an error answer instead of
 // stopping the module, which would need a reload of the page.
-func guarded(fn func([]js.Value) (string, error)) js.Func {
+func guarded[T string | js.Value](fn func([]js.Value) (T, error)) js.Func {
 	return js.FuncOf(func(_ js.Value, args []js.Value) (out any) {
 		defer func() {
 			if p := recover(); p != nil {
@@ -223,16 +224,18 @@ func openLink(args []js.Value) (string, error) {
 	return string(w.Bytes()), nil
 }
 
-// sheetText opens a spreadsheet file (a Uint8Array) and gives one sheet as
-// text: {"format", "sheets", "sheet", "text"} (see core.Sheets.JSON).
-func sheetText(args []js.Value) (string, error) {
+// sheetText opens a spreadsheet file (a Uint8Array) and gives one sheet:
+// {json: '{"format", "sheets", "sheet"}' (see core.Sheets.JSON), text: a
+// Uint8Array of the sheet's UTF-8 text}, the text as bytes because a sheet
+// can make tens of megabytes, which JSON would escape and parse again.
+func sheetText(args []js.Value) (js.Value, error) {
 	const call = "sheet(bytes[, sheet])"
 	if len(args) < 1 {
-		return "", fmt.Errorf("%s needs the file's bytes", call)
+		return js.Value{}, fmt.Errorf("%s needs the file's bytes", call)
 	}
 	data, err := bytesOf(call, args[0])
 	if err != nil {
-		return "", err
+		return js.Value{}, err
 	}
 	ref := ""
 	if len(args) > 1 && args[1].Type() == js.TypeString {
@@ -240,9 +243,14 @@ func sheetText(args []js.Value) (string, error) {
 	}
 	s, err := core.SheetText(data, ref)
 	if err != nil {
-		return "", err
+		return js.Value{}, err
 	}
-	return string(s.JSON()), nil
+	text := js.Global().Get("Uint8Array").New(len(s.Text))
+	js.CopyBytesToJS(text, s.Text)
+	answer := js.Global().Get("Object").New()
+	answer.Set("json", string(s.JSON()))
+	answer.Set("text", text)
+	return answer, nil
 }
 
 // inputOf reads the data in args[0] and the options in args[1] of call.

@@ -176,9 +176,14 @@ func appendISODate(b []byte, days float64) []byte {
 	day := math.Floor(secs / 86400)
 	rest := int64(secs - day*86400)
 	y, m, d := civil(int64(day))
-	b = appendDigits(b, y, 4)
-	b = appendDigits(append(b, '-'), int64(m), 2)
-	b = appendDigits(append(b, '-'), int64(d), 2)
+	if y >= 0 && y <= 9999 { // written at once: one append rather than three calls
+		b = append(b, byte('0'+y/1000), byte('0'+y/100%10), byte('0'+y/10%10), byte('0'+y%10),
+			'-', byte('0'+m/10), byte('0'+m%10), '-', byte('0'+d/10), byte('0'+d%10))
+	} else {
+		b = appendDigits(b, y, 4)
+		b = appendDigits(append(b, '-'), int64(m), 2)
+		b = appendDigits(append(b, '-'), int64(d), 2)
+	}
 	if rest != 0 {
 		b = appendDigits(append(b, ' '), rest/3600, 2)
 		b = appendDigits(append(b, ':'), rest/60%60, 2)

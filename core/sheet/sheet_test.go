@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -225,6 +226,71 @@ func FuzzOpen(f *testing.F) {
 			if err == nil && len(text) > MaxText+1<<20 {
 				t.Fatalf("sheet %d makes %d bytes", i, len(text))
 			}
+		}
+	})
+}
+
+// prefixed gives an XML part with a namespace prefix on every element
+// name, which the readers of a cell's usual form leave to the general tag
+// reader.
+func prefixed(part string) string { return elementName.ReplaceAllString(part, "<${1}x:$2") }
+
+var elementName = regexp.MustCompile(`<(/?)([A-Za-z_])`)
+
+// sheetOf makes the text of a worksheet part with the shared strings and
+// date styles of TestXLSXCells's workbook.
+func sheetOf(part string) ([]byte, error) {
+	x := &xlsxShared{strings: [][]byte{[]byte("Site"), []byte("North ward")}, dateStyle: []bool{false, true}}
+	return x.sheetText([]byte(part))
+}
+
+// TestPlainCells: a sheet whose rows and cells are in the usual forms,
+// which are read without the general tag reader, and in forms that leave
+// them to it (white space, single quotes, empty cells, other attributes,
+// a reference in a value, an attribute given twice, tags that begin like
+// <c>), gives the same text as the same sheet read wholly by the general
+// reader.
+func TestPlainCells(t *testing.T) {
+	for _, part := range []string{
+		`<sheetData><row r="1"><c r="A1" t="s"><v>0</v></c><c r="B1" s="1"><v>45352</v></c></row></sheetData>`,
+		"<sheetData>\n  <row r='2' spans='1:3' x14ac:dyDescent='0.25'>\n    <c r='B2' s='0' t='n'><v>1.5</v></c>\n    <c r='C2'/>\n  </row>\n</sheetData>",
+		`<cols><col min="1" max="2"/></cols><sheetData><row r="3"><c r="A3"><v>1&amp;2</v></c><c r="B3" r="D3"><v>7</v></c><c r="C3" x:r="E3"><v>8</v></c></row></sheetData>`,
+		`<sheetData><row r="&#52;"><c r="A4"><f>1+1</f><v>2</v></c><c><v>3</v></c><c t="inlineStr"><is><t>North</t></is></c></row><row/><row r="9"><c r="B9"><v> 4 </v></c></row></sheetData>`,
+	} {
+		plain, err := sheetOf(part)
+		if err != nil {
+			t.Fatal(err)
+		}
+		general, err := sheetOf(prefixed(part))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if string(plain) != string(general) {
+			t.Errorf("%s:\nread %q\nthe general reader %q", part, plain, general)
+		}
+	}
+}
+
+// FuzzPlainCells: whatever the order of well-formed pieces of a sheet
+// (each fuzz byte picks one), reading the usual forms of rows and cells at
+// once gives the same text as the general tag reader.
+func FuzzPlainCells(f *testing.F) {
+	pieces := []string{
+		`<row r="2">`, `<row>`, `<row r='1' spans="1:2"/>`, `</row>`, " ", "\n\t",
+		`<c r="B2" t="s">`, `<c s="1">`, `<c r='C3' s='0' t='n'>`, `<c>`, `<c/>`, `<c r="A9"/>`, `<c t="b" r="D2">`, `</c>`,
+		`<v>1</v>`, `<v>45352.5</v>`, `<v>a&amp;b</v>`, `<v> 7 </v>`, `<v/>`, `<f>1+1</f>`, `<is><t>a</t></is>`, `<is>`, `<t>`, `</t>`,
+		`<col min="1"/>`, `<cols>`, `<c r="A1"><v>0</v></c>`, `<c r="E5" s="1"><v>45000</v></c>`,
+	}
+	f.Add([]byte{0, 26, 27, 3, 1, 6, 14, 13, 10, 3})
+	f.Fuzz(func(t *testing.T, picks []byte) {
+		var part strings.Builder
+		for _, p := range picks {
+			part.WriteString(pieces[int(p)%len(pieces)])
+		}
+		plain, err1 := sheetOf(part.String())
+		general, err2 := sheetOf(prefixed(part.String()))
+		if string(plain) != string(general) || (err1 == nil) != (err2 == nil) {
+			t.Fatalf("%s: read %q (%v), the general reader %q (%v)", part.String(), plain, err1, general, err2)
 		}
 	})
 }

@@ -195,6 +195,32 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 	var value []byte
 	inValue, inInline := false, false
 	for {
+		if !inValue { // the usual row and cell forms, read without the general tag reader
+			if v, ok := s.plainCell(); ok {
+				if v.ref != nil {
+					if n, ok := columnOf(v.ref); ok {
+						col = n
+					}
+				}
+				// what the general reader would have kept of the cell
+				cellType, style, value = string(v.kind), styleOf(v.style), append(value[:0], v.value...)
+				if v.hasValue {
+					w.cell(rowNumber, col, x.cellText(cellType, style, value))
+				}
+				col++
+				continue
+			}
+			if s.plainEnd("row") {
+				if w.endRow(); w.err != nil {
+					return nil, w.err
+				}
+				continue
+			}
+			if ref, ok := s.plainRowStart(); ok {
+				rowNumber, col = nextRow(rowNumber, ref), 0
+				continue
+			}
+		}
 		var t tag
 		var ok bool
 		if inValue {
@@ -207,13 +233,8 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 		}
 		switch {
 		case t.is("row") && !t.end:
-			next := rowNumber + 1
-			for key, v, i, ok := t.nextAttr(0); ok; key, v, i, ok = t.nextAttr(i) {
-				if string(key) == "r" && wholeNumber(v) > rowNumber {
-					next = wholeNumber(v)
-				}
-			}
-			rowNumber, col = next, 0
+			ref, _ := t.attr("r")
+			rowNumber, col = nextRow(rowNumber, []byte(ref)), 0
 		case t.is("row"):
 			w.endRow()
 			if w.err != nil {
@@ -236,9 +257,6 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 			value = value[:0]
 			if t.empty {
 				col++
-			} else if s.plainValue(&value) { // <v>…</v></c>, the usual cell, read at once
-				w.cell(rowNumber, col, x.cellText(cellType, style, value))
-				col++
 			}
 		case t.is("c"):
 			w.cell(rowNumber, col, x.cellText(cellType, style, value))
@@ -250,6 +268,167 @@ func (x *xlsxShared) sheetText(data []byte) ([]byte, error) {
 		}
 	}
 	return w.out, w.err
+}
+
+// plainCellForm is a cell in its usual form, "<c r="B7" s="1" t="s"><v>3</v></c>"
+// or "<c r="B7"/>": its reference, style index and type (each nil when
+// absent) and its value as written, which holds no reference to decode.
+type plainCellForm struct {
+	ref, style, kind, value []byte
+	hasValue                bool
+}
+
+// plainCell reads, when the scanner stands (after white space) at a cell
+// in its usual form, the whole cell in one pass and moves past it; it
+// reports false, leaving the scanner where it was, for any other form
+// (a formula, inline text, an escaped value, another tag), which the
+// general tag reader reads. It does the work of most of a sheet, so it
+// scans bytes itself rather than calling helpers.
+func (s *xmlScanner) plainCell() (plainCellForm, bool) {
+	var c plainCellForm
+	attrs, end, ok := s.plainStart("c")
+	if !ok {
+		return c, false
+	}
+	c.ref, c.style, c.kind = attrs[0], attrs[1], attrs[2]
+	b, i := s.b, end
+	if b[i-2] == '/' { // <c …/>
+		s.i = i
+		return c, true
+	}
+	if i+3 > len(b) || b[i] != '<' || b[i+1] != 'v' || b[i+2] != '>' {
+		return c, false
+	}
+	start := i + 3
+	for i = start; i < len(b) && b[i] != '<'; i++ {
+		if b[i] == '&' {
+			return c, false
+		}
+	}
+	const closing = "</v></c>"
+	if i+len(closing) > len(b) || string(b[i:i+len(closing)]) != closing {
+		return c, false
+	}
+	c.value, c.hasValue = b[start:i], true
+	s.i = i + len(closing)
+	return c, true
+}
+
+// plainRowStart reads, when the scanner stands (after white space) at a
+// row's start tag with plain attributes, its r attribute (nil when absent)
+// and moves past it.
+func (s *xmlScanner) plainRowStart() ([]byte, bool) {
+	attrs, end, ok := s.plainStart("row")
+	if !ok || s.b[end-2] == '/' {
+		return nil, false
+	}
+	s.i = end
+	return attrs[0], true
+}
+
+// plainStart reads, when the scanner stands (after white space) at the
+// start tag <name …> or <name …/> without a namespace prefix, in which
+// every attribute is key="value" or key='value' without references and
+// none of r, s and t is given twice, the values of its attributes r, s and
+// t (nil when absent) and where the tag ends (just past its '>'), without
+// moving the scanner.
+func (s *xmlScanner) plainStart(name string) (attrs [3][]byte, end int, ok bool) {
+	b, i := s.b, s.i
+	for i < len(b) && (b[i] == ' ' || b[i] == '\n' || b[i] == '\r' || b[i] == '\t') {
+		i++
+	}
+	n := len(name)
+	if i+n+1 >= len(b) || b[i] != '<' || string(b[i+1:i+1+n]) != name {
+		return attrs, 0, false
+	}
+	afterName := i + 1 + n
+	for i = afterName; i < len(b); {
+		switch b[i] {
+		case ' ', '\t', '\r', '\n':
+			i++
+			continue
+		case '>':
+			return attrs, i + 1, true
+		case '/':
+			if i+1 < len(b) && b[i+1] == '>' {
+				return attrs, i + 2, true
+			}
+			return attrs, 0, false
+		}
+		if i == afterName { // the name goes on: another tag, such as <col> for <c>
+			return attrs, 0, false
+		}
+		key := i
+		for i < len(b) && b[i] != '=' && b[i] != '>' && b[i] != ' ' {
+			i++
+		}
+		if i+1 >= len(b) || b[i] != '=' || b[i+1] != '"' && b[i+1] != '\'' {
+			return attrs, 0, false
+		}
+		k, quote := localName(b[key:i]), b[i+1]
+		i += 2
+		value := i
+		for i < len(b) && b[i] != quote {
+			if b[i] == '&' { // a reference to decode: the general reader's work
+				return attrs, 0, false
+			}
+			i++
+		}
+		if i >= len(b) {
+			return attrs, 0, false
+		}
+		j := -1
+		if len(k) == 1 {
+			switch k[0] {
+			case 'r':
+				j = 0
+			case 's':
+				j = 1
+			case 't':
+				j = 2
+			}
+		}
+		if j >= 0 {
+			if attrs[j] != nil { // given twice: the general reader decides
+				return attrs, 0, false
+			}
+			attrs[j] = b[value:i]
+		}
+		i++
+	}
+	return attrs, 0, false
+}
+
+// plainEnd moves past the end tag </name> when the scanner stands at it
+// (after white space), and reports whether it did.
+func (s *xmlScanner) plainEnd(name string) bool {
+	b, i := s.b, s.i
+	for i < len(b) && (b[i] == ' ' || b[i] == '\n' || b[i] == '\r' || b[i] == '\t') {
+		i++
+	}
+	n := len(name)
+	if i+n+3 > len(b) || b[i] != '<' || b[i+1] != '/' || string(b[i+2:i+2+n]) != name || b[i+2+n] != '>' {
+		return false
+	}
+	s.i = i + n + 3
+	return true
+}
+
+// nextRow is the number of the row after row number prev whose r
+// attribute is ref: ref when it is a later row, else the next.
+func nextRow(prev int, ref []byte) int {
+	if n := wholeNumber(ref); n > prev {
+		return n
+	}
+	return prev + 1
+}
+
+// styleOf reads a cell's style index, -1 when there is none.
+func styleOf(v []byte) int {
+	if v == nil {
+		return -1
+	}
+	return wholeNumber(v)
 }
 
 // cellText is a cell's value as text, by its type (§18.18.11).
@@ -280,7 +459,10 @@ func (x *xlsxShared) cellText(cellType string, style int, value []byte) []byte {
 		return nil
 	}
 	if style >= 0 && style < len(x.dateStyle) && x.dateStyle[style] {
-		serial, err := strconv.ParseFloat(string(value), 64)
+		serial, err := float64(wholeNumber(value)), error(nil) // a day without a time, read at once
+		if serial < 0 {
+			serial, err = strconv.ParseFloat(string(value), 64)
+		}
 		if err == nil {
 			x.date = appendISODate(x.date[:0], x.daysSince1970(serial))
 			return x.date

@@ -69,24 +69,6 @@ func (s *xmlScanner) next(text *[]byte) (tag, bool) {
 	}
 }
 
-// plainValue reads, when the scanner stands before "<v>text</v></c>", the
-// text into value and moves past it: a cell's usual form, read without a
-// tag at a time. It reports false, and leaves the scanner where it was,
-// for any other form.
-func (s *xmlScanner) plainValue(value *[]byte) bool {
-	rest := s.b[s.i:]
-	if !bytes.HasPrefix(rest, []byte("<v>")) {
-		return false
-	}
-	end := bytes.IndexByte(rest[3:], '<')
-	if end < 0 || !bytes.HasPrefix(rest[3+end:], []byte("</v></c>")) {
-		return false
-	}
-	*value = appendText((*value)[:0], rest[3:3+end])
-	s.i += 3 + end + len("</v></c>")
-	return true
-}
-
 // skipPast moves past the next occurrence of end, or to the end.
 func (s *xmlScanner) skipPast(end string) {
 	k := bytes.Index(s.b[s.i:], []byte(end))

@@ -19,7 +19,7 @@ export async function openSpreadsheet(file, ask, newText) {
 }
 
 async function showSheet(sheet, ask, newText) {
-  const { body } = await ask({ kind: "sheet", bytes: book.bytes, sheet });
+  const { body, text } = await ask({ kind: "sheet", bytes: book.bytes, sheet });
   if (body.error) {
     showProblem({ ...body.error, message: book.name + ": " + body.error.message });
     return;
@@ -30,7 +30,7 @@ async function showSheet(sheet, ask, newText) {
   $("sheet-note").textContent = "of " + book.name + " (" + body.sheets.length + (body.sheets.length === 1 ? " sheet" : " sheets")
     + "): each row of the sheet is a line of the text, numbers with every digit stored";
   $("sheet-row").hidden = false;
-  newText(body.text);
+  newText(new TextDecoder().decode(text));
 }
 
 // forgetSpreadsheet hides the sheet menu when the text comes from elsewhere.
