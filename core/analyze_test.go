@@ -127,6 +127,9 @@ func TestOptions(t *testing.T) {
 		{Options{Resamples: -5}, "resamples"},
 		{Options{Resamples: MaxResamples + 1}, "resamples"},
 		{Options{Seed: &tooLarge}, "seed"},
+		{Options{AdjustAcross: "holm"}, ""},
+		{Options{AdjustAcross: "bonferroni"}, "adjust_across"},
+		{Options{Measure: "A", Measures: []string{"B"}}, "measures"},
 	}
 	for _, tt := range tests {
 		_, err := Analyze([]byte("A,B\n1,2\n3,4\n"), tt.opt)
@@ -300,6 +303,7 @@ func FuzzDecodeOptions(f *testing.F) {
 	f.Add([]byte(`{"seed":-1}`))
 	f.Add([]byte(`{"resamples":1e9}`))
 	f.Add([]byte(`{"order":["C","A"],"exclude":["B"],"rename":{"A":"x","C":"y"}}`))
+	f.Add([]byte(`{"measures":["2","3"],"adjust_across":"holm"}`))
 	f.Fuzz(func(t *testing.T, options []byte) {
 		opt, err := DecodeOptions(options)
 		if err != nil {

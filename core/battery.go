@@ -1,9 +1,9 @@
 package core
 
 import (
+	"cmp"
 	"context"
 	"runtime"
-	"slices"
 	"strconv"
 	"sync"
 
@@ -46,29 +46,22 @@ type Measured struct {
 	PAdjustedAcross *float64
 }
 
-// AnalyzeMeasures runs the test on each of several measure columns of a
-// long table, by header or 1-based number, or on every numeric column
-// when measures is {AllMeasures}, against the same group column
-// (opt.Group, or the one the reading finds), and adjusts the p-values
-// across the measures by across. The measures run in parallel. Errors that
+// AnalyzeMeasures runs the test on each of the measure columns
+// opt.Measures of a long table, by header or 1-based number, or on every
+// numeric column when they are {AllMeasures}, against the same group
+// column (opt.Group, or the one the reading finds), and adjusts the
+// p-values across the measures by opt.AdjustAcross (DefaultAcross when
+// empty). The measures run in parallel; progress, when not nil, is told
+// ("measures", done, total) as each measure is done. Errors that
 // stop the whole battery are *OptionError or *table.Error; a measure that
 // cannot be analysed keeps its error in its Measured.
-func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, measures []string, across adjust.Method) (*Battery, error) {
-	if across == "" {
-		across = DefaultAcross
-	}
-	if !slices.Contains(AcrossMethods, across) {
-		return nil, &OptionError{"adjust_across", string(across), "choose bh (Benjamini–Hochberg) or holm"}
-	}
+func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Progress) (*Battery, error) {
+	across, measures := cmp.Or(adjust.Method(opt.AdjustAcross), DefaultAcross), opt.Measures
 	s, text, sheetName, err := opt.prepare(data)
 	if err != nil {
 		return nil, err
 	}
-	first := s.read
-	if len(measures) > 0 && measures[0] != AllMeasures {
-		first.Measure = measures[0]
-	}
-	t, err := table.Parse(text, first)
+	t, err := table.Parse(text, s.read)
 	if err != nil {
 		return nil, err
 	}
@@ -84,6 +77,8 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, measures []s
 	}
 	b := &Battery{GroupColumn: t.Profile.Columns[t.GroupColumn-1].Name, AdjustAcross: across, Measures: make([]Measured, len(measures))}
 	var wg sync.WaitGroup
+	var mu sync.Mutex // over done and progress
+	done := 0
 	work := make(chan int)
 	for range min(runtime.GOMAXPROCS(0), len(measures)) {
 		wg.Go(func() {
@@ -102,6 +97,12 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, measures []s
 				}
 				m.Err = err
 				b.Measures[i] = m
+				if progress != nil {
+					mu.Lock()
+					done++
+					progress("measures", done, len(measures))
+					mu.Unlock()
+				}
 			}
 		})
 	}

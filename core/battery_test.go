@@ -46,7 +46,7 @@ func TestBatteryAgainstR(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, across := range AcrossMethods {
-			b, err := AnalyzeMeasures(context.Background(), data, Options{Group: groups[dataset], PValue: "asymptotic"}, measures, across)
+			b, err := AnalyzeMeasures(context.Background(), data, Options{Group: groups[dataset], PValue: "asymptotic", Measures: measures, AdjustAcross: string(across)}, nil)
 			if err != nil {
 				t.Fatalf("%s: %v", dataset, err)
 			}
@@ -72,7 +72,7 @@ func near(got, want float64) bool { return math.Abs(got-want) <= 1e-9*math.Max(m
 // row, and the JSON holds each measure's result with its adjusted p.
 func TestBatteryAll(t *testing.T) {
 	data := []byte("id,team,score,same,wait\n1,A,3,5,12\n2,A,4,5,15\n3,B,8,5,NA\n4,B,9,5,30\n5,C,1,5,7\n6,C,2,5,9\n")
-	b, err := AnalyzeMeasures(context.Background(), data, Options{Group: "team"}, []string{AllMeasures}, "")
+	b, err := AnalyzeMeasures(context.Background(), data, Options{Group: "team", Measures: []string{AllMeasures}}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -131,7 +131,7 @@ func BenchmarkBattery60(b *testing.B) {
 	}
 	data := []byte(text.String())
 	for b.Loop() {
-		if _, err := AnalyzeMeasures(context.Background(), data, Options{Group: "group"}, []string{AllMeasures}, ""); err != nil {
+		if _, err := AnalyzeMeasures(context.Background(), data, Options{Group: "group", Measures: []string{AllMeasures}}, nil); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -142,7 +142,7 @@ func ExampleAnalyzeMeasures() {
 	if err != nil {
 		panic(err)
 	}
-	b, err := AnalyzeMeasures(context.Background(), data, Options{Group: "Month"}, []string{"Ozone", "Wind"}, adjust.Holm)
+	b, err := AnalyzeMeasures(context.Background(), data, Options{Group: "Month", Measures: []string{"Ozone", "Wind"}, AdjustAcross: "holm"}, nil)
 	if err != nil {
 		panic(err)
 	}

@@ -17,20 +17,25 @@ import (
 // keys of the WebAssembly module and of share links; the command line's
 // flags carry the same names. Zero values mean the defaults.
 type Options struct {
-	Layout    string  `json:"layout,omitempty"`    // auto (default), wide, long, counts
-	Separator string  `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
-	Decimal   string  `json:"decimal,omitempty"`   // auto (default), point, comma
-	Thousands string  `json:"thousands,omitempty"` // auto (default), none, comma, point, space, apostrophe
-	Group     string  `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
-	Measure   string  `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
-	Count     string  `json:"count,omitempty"`     // a column of counts: each row stands for that many values; implies long
-	Sheet     string  `json:"sheet,omitempty"`     // a spreadsheet file's sheet, by name or 1-based number; default the first
-	Alpha     float64 `json:"alpha,omitempty"`     // significance level, default 0.05
-	PValue    string  `json:"pvalue,omitempty"`    // auto (default), asymptotic, exact, monte-carlo
-	Resamples int     `json:"resamples,omitempty"` // Monte Carlo resamples, default 100,000
-	Seed      *uint64 `json:"seed,omitempty"`      // Monte Carlo seed, default 1
-	PostHoc   string  `json:"posthoc,omitempty"`   // dunn (default), conover, dscf, mann-whitney, none
-	Adjust    string  `json:"adjust,omitempty"`    // holm (default), bonferroni, sidak, hochberg, bh, by, none
+	Layout    string `json:"layout,omitempty"`    // auto (default), wide, long, counts
+	Separator string `json:"separator,omitempty"` // auto (default), tab, semicolon, comma
+	Decimal   string `json:"decimal,omitempty"`   // auto (default), point, comma
+	Thousands string `json:"thousands,omitempty"` // auto (default), none, comma, point, space, apostrophe
+	Group     string `json:"group,omitempty"`     // the column of group labels (header or 1-based number); implies long
+	Measure   string `json:"measure,omitempty"`   // the column of values (header or 1-based number); implies long
+	// Measures are several measure columns (headers or 1-based numbers), or
+	// {AllMeasures}: each is analysed against the same groups (see
+	// AnalyzeMeasures); one name alone is the same as Measure.
+	Measures     []string `json:"measures,omitempty"`
+	AdjustAcross string   `json:"adjust_across,omitempty"` // with several measures: bh (default) or holm
+	Count        string   `json:"count,omitempty"`         // a column of counts: each row stands for that many values; implies long
+	Sheet        string   `json:"sheet,omitempty"`         // a spreadsheet file's sheet, by name or 1-based number; default the first
+	Alpha        float64  `json:"alpha,omitempty"`         // significance level, default 0.05
+	PValue       string   `json:"pvalue,omitempty"`        // auto (default), asymptotic, exact, monte-carlo
+	Resamples    int      `json:"resamples,omitempty"`     // Monte Carlo resamples, default 100,000
+	Seed         *uint64  `json:"seed,omitempty"`          // Monte Carlo seed, default 1
+	PostHoc      string   `json:"posthoc,omitempty"`       // dunn (default), conover, dscf, mann-whitney, none
+	Adjust       string   `json:"adjust,omitempty"`        // holm (default), bonferroni, sidak, hochberg, bh, by, none
 
 	// Group edits, each naming groups by their labels as written in the data
 	// (see table.Edits): the groups to put first, in order; the groups to
@@ -50,6 +55,12 @@ const (
 	// so that a seed survives the page, its links and its JSON unchanged.
 	MaxSeed = 1<<53 - 1
 )
+
+// Several reports whether the options ask for several measures (a
+// battery, see AnalyzeMeasures) rather than one.
+func (o Options) Several() bool {
+	return len(o.Measures) > 1 || len(o.Measures) == 1 && o.Measures[0] == AllMeasures
+}
 
 // ForLabels drops the group edits that name labels not among labels (see
 // table.Edits.For).
@@ -105,7 +116,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			continue
 		}
 		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "count": &o.Count, "sheet": &o.Sheet,
-			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust}
+			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust, "adjust_across": &o.AdjustAcross}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
 				return fmt.Errorf("%q must be a string", name)
@@ -114,6 +125,14 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			continue
 		}
 		switch name {
+		case "measures":
+			if v.Kind != jsonlite.List {
+				return fmt.Errorf("%q must be an array of column names or numbers", name)
+			}
+			o.Measures = v.Items
+			if len(o.Measures) == 0 {
+				o.Measures = nil // as when left out
+			}
 		case "order", "exclude":
 			if v.Kind != jsonlite.List {
 				return fmt.Errorf("%q must be an array of group labels", name)
@@ -222,7 +241,11 @@ func (o Options) write(w *jsonlite.Writer) {
 		w.Key("seed")
 		w.Uint(*o.Seed)
 	}
-	for _, f := range []struct{ name, v string }{{"posthoc", o.PostHoc}, {"adjust", o.Adjust}} {
+	if len(o.Measures) > 0 {
+		w.Key("measures")
+		w.Strings(o.Measures)
+	}
+	for _, f := range []struct{ name, v string }{{"adjust_across", o.AdjustAcross}, {"posthoc", o.PostHoc}, {"adjust", o.Adjust}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -271,6 +294,15 @@ func (o Options) validate() (settings, error) {
 	}
 	s.read.Layout = layout
 	s.read.Group, s.read.Measure, s.read.Count = o.Group, o.Measure, o.Count
+	if len(o.Measures) > 0 && o.Measures[0] != AllMeasures {
+		if o.Measure != "" && len(o.Measures) == 1 && o.Measure != o.Measures[0] {
+			return s, &OptionError{"measures", o.Measures[0], "give the measure column once, as measure or as measures"}
+		}
+		s.read.Measure = o.Measures[0] // the reading and the preview follow the first
+	}
+	if o.AdjustAcross != "" && !slices.Contains(AcrossMethods, adjust.Method(o.AdjustAcross)) {
+		return s, &OptionError{"adjust_across", o.AdjustAcross, "choose bh (Benjamini–Hochberg) or holm"}
+	}
 	switch o.Separator {
 	case "", "auto":
 	case "tab":

@@ -22,7 +22,8 @@
 // Carlo p-value is computed, at most once per percent. page serves the
 // per-value ranking in text order ("ranks") or by rank ("ranked") or the tie table ("ties") of the last analysis
 // in pieces, for inputs too large to list in one response. tables gives the
-// last analysis's tables of results as core/tables defines and shows them,
+// last analysis's tables of results as core/tables defines and shows them
+// (for several measures, the request key measures, as tables.EncodeBattery writes them),
 // which the page renders from (and nothing when the last call failed). preview gives
 // core.Preview: the text as a grid, how it was read, its groups as written
 // and every cell that could not be read. workspace is what the page uses:
@@ -53,8 +54,12 @@ func main() {
 	select {} // keep the module alive for later calls
 }
 
-// last is the most recent successful analysis, which page reads from.
-var last *core.Result
+// last is the most recent successful analysis, which page reads from, or
+// lastBattery when that was of several measures.
+var (
+	last        *core.Result
+	lastBattery *core.Battery
+)
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
@@ -128,15 +133,33 @@ func workspace(args []js.Value) (string, error) {
 	if err != nil {
 		return "", err
 	}
+	if opt.Several() { // a battery: the preview follows the first measure
+		onPreview(string(core.EncodePreview(core.PreviewOf(data, opt))))
+		return batteryAnswer(core.AnalyzeMeasures(context.Background(), data, opt, progress))
+	}
 	return answer(core.Workspace(context.Background(), data, opt,
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
+}
+
+// batteryAnswer is the JSON of a battery of measures, kept for tables.
+func batteryAnswer(b *core.Battery, err error) (string, error) {
+	last, lastBattery = nil, nil
+	if err != nil {
+		return "", err
+	}
+	out, err := core.EncodeBattery(b)
+	if err != nil {
+		return "", err
+	}
+	lastBattery = b
+	return string(out), nil
 }
 
 // answer is the JSON of an analysis, kept for page and tables; a failure
 // forgets the previous analysis, which is not of the data just given.
 func answer(r *core.Result, err error) (string, error) {
+	last, lastBattery = nil, nil
 	if err != nil {
-		last = nil
 		return "", err
 	}
 	b, err := core.Encode(r)
@@ -180,10 +203,16 @@ func page(args []js.Value) (string, error) {
 }
 
 func resultTables([]js.Value) (string, error) {
-	if last == nil {
+	var b []byte
+	var err error
+	switch {
+	case lastBattery != nil:
+		b, err = tables.EncodeBattery(lastBattery)
+	case last != nil:
+		b, err = tables.Encode(tables.Of(last))
+	default:
 		return "", errors.New("tables: there is no analysis of the data last given")
 	}
-	b, err := tables.Encode(tables.Of(last))
 	return string(b), err
 }
 

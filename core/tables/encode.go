@@ -3,6 +3,7 @@ package tables
 import (
 	"fmt"
 
+	"midrank/core"
 	"midrank/core/jsonlite"
 )
 
@@ -26,42 +27,76 @@ func Encode(tables []Table) ([]byte, error) {
 	w.BeginObject()
 	for _, t := range tables {
 		w.Key(t.Name)
+		writeTable(&w, t)
+	}
+	w.EndObject()
+	return w.Bytes(), w.Err()
+}
+
+// writeTable writes one table as Encode describes it.
+func writeTable(w *jsonlite.Writer, t Table) {
+	w.BeginObject()
+	w.StringMember("title", t.Title)
+	w.StringMember("note", t.Note)
+	w.Key("columns")
+	w.BeginArray()
+	for _, c := range t.Columns {
 		w.BeginObject()
-		w.StringMember("title", t.Title)
-		w.StringMember("note", t.Note)
-		w.Key("columns")
-		w.BeginArray()
-		for _, c := range t.Columns {
-			w.BeginObject()
-			w.StringMember("key", c.Key)
-			w.StringMember("heading", c.Heading)
-			w.StringMember("unit", unitNames[c.Unit])
-			w.StringMember("show", c.Show.String())
-			w.EndObject()
-		}
-		w.EndArray()
-		w.Key("values")
-		w.BeginArray()
-		for _, row := range t.Rows {
-			w.BeginArray()
-			for _, c := range row {
-				writeValue(&w, c.Value)
-			}
-			w.EndArray()
-		}
-		w.EndArray()
-		w.Key("text")
-		w.BeginArray()
-		for _, row := range t.Rows {
-			w.BeginArray()
-			for _, c := range row {
-				w.String(c.Text)
-			}
-			w.EndArray()
-		}
-		w.EndArray()
+		w.StringMember("key", c.Key)
+		w.StringMember("heading", c.Heading)
+		w.StringMember("unit", unitNames[c.Unit])
+		w.StringMember("show", c.Show.String())
 		w.EndObject()
 	}
+	w.EndArray()
+	w.Key("values")
+	w.BeginArray()
+	for _, row := range t.Rows {
+		w.BeginArray()
+		for _, c := range row {
+			writeValue(w, c.Value)
+		}
+		w.EndArray()
+	}
+	w.EndArray()
+	w.Key("text")
+	w.BeginArray()
+	for _, row := range t.Rows {
+		w.BeginArray()
+		for _, c := range row {
+			w.String(c.Text)
+		}
+		w.EndArray()
+	}
+	w.EndArray()
+	w.EndObject()
+}
+
+// EncodeBattery writes the tables of a battery of measures:
+//
+//	{"overview": table, "measures": [tables, …]}
+//
+// with each measure's tables as Encode writes them, in the battery's
+// order, or null for a measure that could not be analysed.
+func EncodeBattery(b *core.Battery) ([]byte, error) {
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.Key("overview")
+	writeTable(&w, Overview(b))
+	w.Key("measures")
+	w.BeginArray()
+	for _, m := range b.Measures {
+		if m.Result == nil {
+			w.Null()
+			continue
+		}
+		one, err := Encode(Of(m.Result))
+		if err != nil {
+			return nil, err
+		}
+		w.Raw(one)
+	}
+	w.EndArray()
 	w.EndObject()
 	return w.Bytes(), w.Err()
 }

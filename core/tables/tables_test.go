@@ -1,6 +1,7 @@
 package tables
 
 import (
+	"context"
 	"encoding/json"
 	"math"
 	"os"
@@ -142,4 +143,29 @@ func FuzzTables(f *testing.F) {
 			}
 		}
 	})
+}
+
+// TestEncodeBattery: a battery's tables hold the overview, one row per
+// measure, and each measure's own tables, null for a measure that could
+// not be analysed.
+func TestEncodeBattery(t *testing.T) {
+	data := []byte("site,wait,note\nA,3,x\nA,4,y\nB,8,z\nB,9,x\nC,1,y\nC,2,z\n")
+	b, err := core.AnalyzeMeasures(context.Background(), data, core.Options{Group: "site", Measures: []string{"wait", "note"}}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := EncodeBattery(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var got struct {
+		Overview struct{ Values [][]any }
+		Measures []map[string]struct{ Values [][]any }
+	}
+	if err := json.Unmarshal(out, &got); err != nil {
+		t.Fatalf("%v\n%s", err, out)
+	}
+	if len(got.Overview.Values) != 2 || len(got.Measures) != 2 || got.Measures[1] != nil || len(got.Measures[0]["groups"].Values) != 3 {
+		t.Errorf("battery tables %s", out)
+	}
 }

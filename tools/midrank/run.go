@@ -13,7 +13,6 @@ import (
 	"strings"
 
 	"midrank/core"
-	"midrank/core/adjust"
 	"midrank/core/link"
 	"midrank/core/sealed"
 	"midrank/core/table"
@@ -174,20 +173,26 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		data, opt = []byte(req.Data), req.Options
 	} else if data, err = readInput(fs.Arg(0), stdin); err != nil {
 		return fail(exitData, err)
+	} else {
+		if len(measures) == 1 && measures[0] != core.AllMeasures {
+			opt.Measure = measures[0]
+		} else {
+			opt.Measures = measures
+		}
+		if given["adjust-across"] {
+			opt.AdjustAcross = *adjustAcross
+		}
 	}
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
 	defer stop()
-	if len(measures) > 1 || len(measures) == 1 && measures[0] == core.AllMeasures {
-		if *printLink {
-			return fail(exitSettings, errors.New("a link for several measures is not made yet; make one for each measure"))
-		}
-		return runBattery(ctx, data, opt, measures, *adjustAcross, *asJSON, *showRanks, stdout, fail)
-	}
-	if len(measures) == 1 {
-		opt.Measure = measures[0]
-	}
+	var result *core.Result
+	var battery *core.Battery
 	bar := newProgressBar(stderr)
-	result, err := core.AnalyzeContext(ctx, data, opt, bar.show)
+	if opt.Several() {
+		battery, err = core.AnalyzeMeasures(ctx, data, opt, bar.show)
+	} else {
+		result, err = core.AnalyzeContext(ctx, data, opt, bar.show)
+	}
 	bar.clear()
 	if err != nil {
 		return fail(exitFor(err), err)
@@ -206,14 +211,23 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		return exitOK
 	}
 	if *asJSON {
-		b, err := core.Encode(result)
+		var b []byte
+		if battery != nil {
+			b, err = core.EncodeBattery(battery)
+		} else {
+			b, err = core.Encode(result)
+		}
 		if err != nil {
 			return fail(exitInternal, err)
 		}
 		stdout.Write(b)
 		return exitOK
 	}
-	writeReport(stdout, result, *showRanks)
+	if battery != nil {
+		writeBattery(stdout, battery, *showRanks)
+	} else {
+		writeReport(stdout, result, *showRanks)
+	}
 	return exitOK
 }
 
@@ -225,26 +239,6 @@ func exitFor(err error) int {
 		return exitSettings
 	}
 	return exitData
-}
-
-// runBattery analyses several measures and prints the battery: as JSON, or
-// the overview followed by each measure's report.
-func runBattery(ctx context.Context, data []byte, opt core.Options, measures []string, across string, asJSON, showRanks bool,
-	stdout io.Writer, fail func(int, error) int) int {
-	b, err := core.AnalyzeMeasures(ctx, data, opt, measures, adjust.Method(across))
-	if err != nil {
-		return fail(exitFor(err), err)
-	}
-	if asJSON {
-		out, err := core.EncodeBattery(b)
-		if err != nil {
-			return fail(exitInternal, err)
-		}
-		stdout.Write(out)
-		return exitOK
-	}
-	writeBattery(stdout, b, showRanks)
-	return exitOK
 }
 
 // sealLink is a share link encrypted under a passphrase (package sealed).

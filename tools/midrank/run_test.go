@@ -127,7 +127,6 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--group", "site", "--measure", "wait", "--measure", "stay", "-"}, battery, exitOK, "Measures at a glance", ""},
 		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"adjust_across":"holm","measures":[{"measure":"wait","p_adjusted_across":`, ""},
 		{[]string{"--group", "site", "--measure", "all", "--adjust-across", "bonferroni", "-"}, battery, exitSettings, "", "choose bh"},
-		{[]string{"--link", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "not made yet"},
 	}
 	for _, tt := range tests {
 		var stdout, stderr bytes.Buffer
@@ -191,24 +190,32 @@ func wideUntied(k, n int) string {
 	return b.String()
 }
 
-// TestLinkRoundTrip: --link prints a link that --open analyses to the same JSON.
+// TestLinkRoundTrip: --link prints a link that --open analyses to the same
+// JSON, for one measure and for several.
 func TestLinkRoundTrip(t *testing.T) {
-	const data = "A,B,C\n1,2,3\n4,5,6\n7,8,9\n"
-	var link, direct, reopened, stderr bytes.Buffer
-	if code := run([]string{"--link", "--link-base", "http://intranet/midrank/", "--alpha", "0.1", "--posthoc", "dscf", "-"}, strings.NewReader(data), &link, &stderr); code != exitOK {
-		t.Fatalf("--link: exit %d: %s", code, stderr.String())
+	for _, tt := range []struct {
+		data     string
+		settings []string
+	}{
+		{"A,B,C\n1,2,3\n4,5,6\n7,8,9\n", []string{"--alpha", "0.1", "--posthoc", "dscf"}},
+		{"site,wait,stay\nA,3,1\nA,4,2\nB,8,2\nB,9,3\nC,1,5\nC,2,4\n", []string{"--group", "site", "--measure", "all", "--adjust-across", "holm"}},
+	} {
+		var link, direct, reopened, stderr bytes.Buffer
+		if code := run(append(append([]string{"--link", "--link-base", "http://intranet/midrank/"}, tt.settings...), "-"), strings.NewReader(tt.data), &link, &stderr); code != exitOK {
+			t.Fatalf("--link: exit %d: %s", code, stderr.String())
+		}
+		if !strings.HasPrefix(link.String(), "http://intranet/midrank/#r1.") {
+			t.Fatalf("link %q", link.String())
+		}
+		run(append(append([]string{"--json"}, tt.settings...), "-"), strings.NewReader(tt.data), &direct, &stderr)
+		if code := run([]string{"--json", "--open", strings.TrimSpace(link.String())}, nil, &reopened, &stderr); code != exitOK {
+			t.Fatalf("--open: exit %d: %s", code, stderr.String())
+		}
+		if direct.String() != reopened.String() || direct.Len() == 0 {
+			t.Errorf("%v: the reopened link analyses differently:\n%.200s\n%.200s", tt.settings, direct.String(), reopened.String())
+		}
 	}
-	if !strings.HasPrefix(link.String(), "http://intranet/midrank/#r1.") {
-		t.Fatalf("link %q", link.String())
-	}
-	run([]string{"--json", "--alpha", "0.1", "--posthoc", "dscf", "-"}, strings.NewReader(data), &direct, &stderr)
-	if code := run([]string{"--json", "--open", strings.TrimSpace(link.String())}, nil, &reopened, &stderr); code != exitOK {
-		t.Fatalf("--open: exit %d: %s", code, stderr.String())
-	}
-	if direct.String() != reopened.String() {
-		t.Errorf("the reopened link analyses differently:\n%.200s\n%.200s", direct.String(), reopened.String())
-	}
-	var out bytes.Buffer
+	var out, stderr bytes.Buffer
 	if code := run([]string{"--open", "#r1.$$$"}, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "cannot be opened") {
 		t.Errorf("a broken link: exit %d, %q", code, stderr.String())
 	}
