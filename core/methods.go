@@ -50,6 +50,7 @@ var Menus = []Menu{
 	{"pvalue", choices(PValueMethods, func(m PValueMethod) string { return pvalueLabels[m] })},
 	{"posthoc", append(choices(posthoc.Methods, posthoc.Method.Label), Choice{NoPairs, "no pairwise comparison"})},
 	{"adjust", choices(adjust.Methods, adjust.Method.Label)},
+	{"adjust_across", choices(AcrossMethods, adjust.Method.Label)},
 }
 
 func choices[M ~string](methods []M, label func(M) string) []Choice {

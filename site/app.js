@@ -11,6 +11,7 @@ import { dataText, setText, wireInput } from "./js/input.js";
 import { renderPreview } from "./js/preview.js";
 import { NO_EDITS, UNDO_KEPT, editGroups, renderEditor, undoEdit, whenEdited } from "./js/editor.js";
 import { renderResults, setStale } from "./js/results.js";
+import { renderBattery, wireBattery } from "./js/battery.js";
 import { renderPictures } from "./js/pictures.js";
 import { wirePictures } from "./js/savepicture.js";
 import { renderLevels } from "./js/levels.js";
@@ -31,13 +32,13 @@ const bridge = createBridge(
     preview: (preview) => update({ preview }),
     progress: (stage, done, total) => {
       const pct = Math.floor(100 * done / total);
-      setStatus((stage === "exact" ? "Exact distribution" : "Resamples") + ": " + pct + "%");
+      setStatus(({ exact: "Exact distribution", measures: "Measures analysed" }[stage] ?? "Resamples") + ": " + pct + "%");
       $("progress").value = pct;
       $("progress").hidden = false;
     },
   });
 
-for (const view of [renderPreview, renderEditor, renderResults, renderLevels, renderPictures, renderRanks]) onUpdate(view);
+for (const view of [renderPreview, renderEditor, renderResults, renderBattery, renderLevels, renderPictures, renderRanks]) onUpdate(view);
 
 let started = false;
 // Small inputs are analysed again as you type, once typing pauses.
@@ -170,18 +171,23 @@ async function analyse() {
   if (body.error) {
     // results of another text (or of none) must not stay on screen
     setStale(false);
-    update({ result: null, tables: null });
+    update({ result: null, tables: null, battery: null, batteryTables: null, drill: null });
     showProblem(body.error);
     return;
   }
   $("problem").hidden = true;
-  for (const [name, table] of Object.entries(tables)) table.name = name;
   const answered = performance.now();
-  update({ result: body, tables });
+  if (body.measures) {
+    tables.overview.name = "overview";
+    update({ result: null, tables: null, battery: body, batteryTables: tables, drill: null });
+  } else {
+    for (const [name, table] of Object.entries(tables)) table.name = name;
+    update({ result: body, tables, battery: null, batteryTables: null, drill: null });
+  }
   setStale(false);
   // how long the last analysis took, for the browser tests' notes
   document.documentElement.dataset.analysisMs = Math.round(answered - began) + "+" + Math.round(performance.now() - answered);
-  setStatus("Done: " + body.n + " values in " + body.k + " groups.");
+  setStatus(body.measures ? "Done: " + body.measures.length + " measures." : "Done: " + body.n + " values in " + body.k + " groups.");
 }
 
 function cancel() {
@@ -216,12 +222,13 @@ wireInput((text) => {
 wirePictures(() => state.result !== null);
 wireRanks(bridge.ask);
 wireReports();
+wireBattery();
 wireShare(bridge.ask, openLink);
 $("analyse").addEventListener("click", analyse);
 $("cancel").addEventListener("click", cancel);
 $("data").addEventListener("input", () => { $("demo-note").hidden = true; keep(); reanalyseSoon(400); });
 // a changed setting counts at once; a new way of reading the text also shows its preview
-for (const f of fields) $(f).addEventListener("change", () => { keep(); reanalyseSoon(0); });
+for (const f of [...fields, "measures-box"]) $(f).addEventListener("change", () => { keep(); reanalyseSoon(0); });
 $("undo").addEventListener("click", () => undoEdit(state));
 $("reset-edits").addEventListener("click", () => editGroups(state, NO_EDITS));
 $("forget").addEventListener("click", () => {

@@ -2,7 +2,7 @@
 // freezes. The page compiles the module once and sends it to every worker it
 // starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
 // data, options, edits} (answered by the module's workspace),
-// {id, kind: "page", list, offset, count},
+// {id, kind: "page", list, offset, count[, measure]} (measure: the index of a battery's measure),
 // {id, kind: "link", data, options, edits}, {id, kind: "open-link",
 // fragment} and {id, kind: "sheet", bytes, sheet}; replies: {id, json}, for a sheet
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
@@ -52,7 +52,7 @@ onmessage = async (event) => {
     const m = await ready;
     switch (q.kind) {
       case "page":
-        json = m.page(q.list, q.offset, q.count);
+        json = q.measure === null || q.measure === undefined ? m.page(q.list, q.offset, q.count) : m.page(q.list, q.offset, q.count, q.measure);
         break;
       case "link":
         json = m.link(q.data, request(q));

@@ -5,7 +5,7 @@
 //	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
 //	globalThis.midrank.preview(data, optionsJSON) → previewJSON
 //	globalThis.midrank.workspace(data, optionsJSON, onPreview[, onProgress]) → responseJSON
-//	globalThis.midrank.page(list, offset, count) → pageJSON
+//	globalThis.midrank.page(list, offset, count[, measure]) → pageJSON
 //	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
@@ -21,7 +21,7 @@
 // given, is called as onProgress(stage, done, total) while an exact or Monte
 // Carlo p-value is computed, at most once per percent. page serves the
 // per-value ranking in text order ("ranks") or by rank ("ranked") or the tie table ("ties") of the last analysis
-// in pieces, for inputs too large to list in one response. tables gives the
+// in pieces, for inputs too large to list in one response (of measure i of a battery with the fourth argument). tables gives the
 // last analysis's tables of results as core/tables defines and shows them
 // (for several measures, the request key measures, as tables.EncodeBattery writes them),
 // which the page renders from (and nothing when the last call failed). preview gives
@@ -116,7 +116,7 @@ func analyze(args []js.Value) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	return answer(core.AnalyzeContext(context.Background(), data, opt, progress))
+	return one(core.AnalyzeContext(context.Background(), data, opt, progress))
 }
 
 func workspace(args []js.Value) (string, error) {
@@ -135,40 +135,36 @@ func workspace(args []js.Value) (string, error) {
 	}
 	if opt.Several() { // a battery: the preview follows the first measure
 		onPreview(string(core.EncodePreview(core.PreviewOf(data, opt))))
-		return batteryAnswer(core.AnalyzeMeasures(context.Background(), data, opt, progress))
+		b, err := core.AnalyzeMeasures(context.Background(), data, opt, progress)
+		return answer(nil, b, err)
 	}
-	return answer(core.Workspace(context.Background(), data, opt,
+	return one(core.Workspace(context.Background(), data, opt,
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
 }
 
-// batteryAnswer is the JSON of a battery of measures, kept for tables.
-func batteryAnswer(b *core.Battery, err error) (string, error) {
+// answer is the JSON of an analysis of one measure (r) or of several (b),
+// kept for page and tables; a failure forgets the previous analysis, which
+// is not of the data just given.
+func answer(r *core.Result, b *core.Battery, err error) (string, error) {
 	last, lastBattery = nil, nil
 	if err != nil {
 		return "", err
 	}
-	out, err := core.EncodeBattery(b)
+	var out []byte
+	if b != nil {
+		out, err = core.EncodeBattery(b)
+	} else {
+		out, err = core.Encode(r)
+	}
 	if err != nil {
 		return "", err
 	}
-	lastBattery = b
-	return string(out), nil
+	last, lastBattery = r, b
+	return unsafe.String(unsafe.SliceData(out), len(out)), nil
 }
 
-// answer is the JSON of an analysis, kept for page and tables; a failure
-// forgets the previous analysis, which is not of the data just given.
-func answer(r *core.Result, err error) (string, error) {
-	last, lastBattery = nil, nil
-	if err != nil {
-		return "", err
-	}
-	b, err := core.Encode(r)
-	if err != nil {
-		return "", err
-	}
-	last = r
-	return unsafe.String(unsafe.SliceData(b), len(b)), nil
-}
+// one is answer for an analysis of one measure.
+func one(r *core.Result, err error) (string, error) { return answer(r, nil, err) }
 
 func preview(args []js.Value) (string, error) {
 	data, opt, err := inputOf("preview(data, optionsJSON)", args)
@@ -179,8 +175,16 @@ func preview(args []js.Value) (string, error) {
 }
 
 func page(args []js.Value) (string, error) {
-	const call = "page(list, offset, count)"
-	if last == nil {
+	const call = "page(list, offset, count[, measure])"
+	r := last
+	if lastBattery != nil && len(args) > 3 { // the measure's 0-based index in the battery
+		i, err := wholeOf(call, "measure", args[3])
+		if err != nil || i >= len(lastBattery.Measures) {
+			return "", cmp.Or(err, fmt.Errorf("page: the battery has %d measures", len(lastBattery.Measures)))
+		}
+		r = lastBattery.Measures[i].Result
+	}
+	if r == nil {
 		return "", errors.New("page: there is no analysis yet; call analyze first")
 	}
 	if len(args) < 3 || args[0].Type() != js.TypeString {
@@ -198,7 +202,7 @@ func page(args []js.Value) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	b, err := core.EncodePage(last.Page(list, offset, count))
+	b, err := core.EncodePage(r.Page(list, offset, count))
 	return string(b), err
 }
 

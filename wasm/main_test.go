@@ -191,3 +191,28 @@ func TestTablesFollowTheLastAnalysis(t *testing.T) {
 		t.Errorf("tables after a failed analysis = %.300s, want an error", got)
 	}
 }
+
+// TestBattery: with several measures the workspace answers with the
+// battery, tables() gives its overview and each measure's tables, and
+// page() serves a measure's ranking by its index.
+func TestBattery(t *testing.T) {
+	m := module()
+	data := "site,wait,stay\nA,3,1\nA,4,2\nB,8,2\nB,9,3\nC,1,5\nC,2,4\n"
+	var previews int
+	onPreview := js.FuncOf(func(js.Value, []js.Value) any { previews++; return nil })
+	defer onPreview.Release()
+	got := m.Call("workspace", data, `{"group":"site","measures":["wait","stay"],"adjust_across":"holm"}`, onPreview).String()
+	if previews != 1 || !strings.Contains(got, `"adjust_across":"holm","measures":[{"measure":"wait","p_adjusted_across":`) {
+		t.Fatalf("workspace with two measures (%d previews) = %.300s", previews, got)
+	}
+	tables := m.Call("tables").String()
+	if !strings.Contains(tables, `"overview":{"title":"Measures at a glance"`) || strings.Count(tables, `"groups":{"title":"Groups"`) != 2 {
+		t.Errorf("battery tables = %.400s", tables)
+	}
+	if page := m.Call("page", "ranks", 0, 10, 1).String(); !strings.Contains(page, `"ranks":[{`) {
+		t.Errorf("page of the second measure = %.300s", page)
+	}
+	if page := m.Call("page", "ranks", 0, 10, 2).String(); !strings.Contains(page, `"error"`) {
+		t.Errorf("page of a third measure of two = %.300s, want an error", page)
+	}
+}

@@ -5,6 +5,7 @@ import { $, row } from "./dom.js";
 const PAGE_ROWS = 200;
 let ask = null; // the bridge's ask, for pages the answer does not hold
 let shown = null; // the analysis whose ranks are on screen
+let measure = null; // its index in the battery of measures it belongs to, null for one measure
 let offset = 0;
 
 // listPage gives a page of "ranks", "ranked" or "ties": from the result when
@@ -12,7 +13,7 @@ let offset = 0;
 async function listPage(r, list, from) {
   const complete = list === "ranks" ? r.ranks_complete : list === "ties" ? r.ties_complete : false;
   if (complete) return r[list].slice(from, from + PAGE_ROWS);
-  const { body } = await ask({ kind: "page", list, offset: from, count: PAGE_ROWS });
+  const { body } = await ask({ kind: "page", list, offset: from, count: PAGE_ROWS, measure });
   return body[list === "ranked" ? "ranks" : list] || [];
 }
 
@@ -46,6 +47,7 @@ async function showTies() {
 export function renderRanks(state, changed) {
   if (!changed.has("result") || !state.result) return;
   shown = state.result;
+  measure = state.drill;
   offset = 0;
   showTies();
   showRanks();

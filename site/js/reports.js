@@ -5,6 +5,7 @@ import { state } from "./state.js";
 import { formOptions } from "./settings.js";
 import { svgSource } from "./savepicture.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
+import { differing } from "./battery.js";
 
 // groupEditsText says which groups were shown under another name and which
 // were left out, for the reports ("" when the groups are as in the text).
@@ -17,46 +18,89 @@ function groupEditsText(r) {
   return parts.join(" ");
 }
 
-// tablesInOrder are the tables a report shows, in the core's order.
-function tablesInOrder() {
-  return Object.values(state.tables);
+// picture is an on-screen picture and its caption for the HTML report.
+function picture(id) {
+  return svgSource(id).replace(/^<\?xml[^>]*>\n/, "") + "<p class=\"note\">" + escapeHTML($(id + "-caption").textContent) + "</p>";
+}
+
+// htmlPage wraps a report's body: it runs nothing and loads nothing,
+// wherever it is opened.
+function htmlPage(title, version, body) {
+  const settings = formOptions();
+  return ["<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">",
+    "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">",
+    "<title>" + escapeHTML(title) + "</title>",
+    "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1f2328}",
+    "table{border-collapse:collapse;margin:.5rem 0 1rem}th,td{border-bottom:1px solid #d9d4c7;padding:.2rem .6rem;text-align:right}",
+    "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
+    "<h1>" + escapeHTML(title) + "</h1>",
+    "<p class=\"note\">Made with Midrank " + escapeHTML(version) + " on " + new Date().toISOString().slice(0, 10) +
+      ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
+    ...body, "</body></html>\n"].join("");
+}
+
+// htmlAnalysis is one measure's analysis: the plain words, its tables and
+// its notes, with headings from level down.
+function htmlAnalysis(r, tables, level) {
+  const h = (text) => "<h" + level + ">" + escapeHTML(text) + "</h" + level + ">";
+  const parts = [groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
+    h("In plain words") + "<p><strong>" + escapeHTML(r.result_line) + "</strong></p><p>" + escapeHTML(r.decision) + "</p>",
+    ...Object.values(tables).map((t) => htmlOf(t, level) + (t.name === "figures" ? "<p class=\"note\">" + escapeHTML(r.p_method_reason) + "</p>" : ""))];
+  if (r.warnings.length) parts.push(h("Take note") + "<ul>" + r.warnings.map((w) => "<li>" + escapeHTML(w) + "</li>").join("") + "</ul>");
+  return parts;
 }
 
 function htmlReport() {
   const r = state.result;
-  const settings = formOptions();
-  const picture = (id) => svgSource(id).replace(/^<\?xml[^>]*>\n/, "") + "<p class=\"note\">" + escapeHTML($(id + "-caption").textContent) + "</p>";
-  const parts = [
-    "<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">",
-    // the report runs nothing and loads nothing, wherever it is opened
-    "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">",
-    "<title>Kruskal–Wallis report</title>",
-    "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1f2328}",
-    "table{border-collapse:collapse;margin:.5rem 0 1rem}th,td{border-bottom:1px solid #d9d4c7;padding:.2rem .6rem;text-align:right}",
-    "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
-    "<h1>Kruskal–Wallis H test</h1>",
-    "<p class=\"note\">Made with Midrank " + escapeHTML(r.version) + " on " + new Date().toISOString().slice(0, 10) +
-      ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
-    groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
-    "<h2>In plain words</h2><p><strong>" + escapeHTML(r.result_line) + "</strong></p><p>" + escapeHTML(r.decision) + "</p>",
-    ...tablesInOrder().map((t) => htmlOf(t) + (t.name === "figures" ? "<p class=\"note\">" + escapeHTML(r.p_method_reason) + "</p>" : "")),
-    "<h2>Pictures</h2>" + (state.result.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks"),
-  ];
-  if (r.warnings.length) parts.push("<h2>Take note</h2><ul>" + r.warnings.map((w) => "<li>" + escapeHTML(w) + "</li>").join("") + "</ul>");
-  parts.push("</body></html>\n");
-  return parts.join("");
+  return htmlPage("Kruskal–Wallis H test", r.version, [...htmlAnalysis(r, state.tables, 2),
+    "<h2>Pictures</h2>" + (r.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks")]);
+}
+
+// markdownAnalysis is htmlAnalysis in Markdown.
+function markdownAnalysis(r, tables, level) {
+  const lines = [...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), "**" + mdText(r.result_line) + "**", "", mdText(r.decision)];
+  for (const t of Object.values(tables)) {
+    lines.push("", ...markdownOf(t, level));
+    if (t.name === "figures") lines.push("", mdText(r.p_method_reason));
+  }
+  if (r.warnings.length) lines.push("", "#".repeat(level) + " Take note", "", ...r.warnings.map((w) => "- " + mdText(w)));
+  return lines;
 }
 
 function markdownReport() {
   const r = state.result;
-  const lines = ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    ...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), "**" + mdText(r.result_line) + "**", "", mdText(r.decision)];
-  for (const t of tablesInOrder()) {
-    lines.push("", ...markdownOf(t));
-    if (t.name === "figures") lines.push("", mdText(r.p_method_reason));
-  }
-  if (r.warnings.length) lines.push("", "## Take note", "", ...r.warnings.map((w) => "- " + mdText(w)));
-  return lines.join("\n") + "\n";
+  return ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
+    ...markdownAnalysis(r, state.tables, 2)].join("\n") + "\n";
+}
+
+// inFull are the battery's measures its reports show in full, with their
+// tables: every one analysed, or only those that differ.
+function inFull() {
+  const b = state.battery, only = $("battery-report").value === "differ" ? differing(b) : b.measures;
+  return b.measures.flatMap((m, i) => m.error || !only.includes(m) ? [] : [{ m, tables: named(state.batteryTables.measures[i]) }]);
+}
+
+function named(tables) {
+  for (const [name, table] of Object.entries(tables)) table.name = name;
+  return tables;
+}
+
+function batteryHTML() {
+  const b = state.battery, shown = inFull();
+  return htmlPage("Kruskal–Wallis H test, " + b.measures.length + " measures", b.version, [
+    "<p><strong>" + escapeHTML($("battery-summary").textContent) + "</strong></p>",
+    htmlOf(state.batteryTables.overview), picture("plot-battery"),
+    "<p class=\"note\">" + (shown.length === b.measures.length ? "Every measure follows in full."
+      : shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures.") + "</p>",
+    ...shown.flatMap(({ m, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(m, tables, 3)])]);
+}
+
+function batteryMarkdown() {
+  const b = state.battery, shown = inFull();
+  return ["# Kruskal–Wallis H test, " + b.measures.length + " measures", "", "Midrank " + b.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
+    "**" + mdText($("battery-summary").textContent) + "**", "", ...markdownOf(state.batteryTables.overview), "",
+    shown.length === b.measures.length ? "Every measure follows in full." : shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures.",
+    ...shown.flatMap(({ m, tables }) => ["", "## " + mdText(m.measure), "", ...markdownAnalysis(m, tables, 3)])].join("\n") + "\n";
 }
 
 // wireReports connects the download buttons; nothing is saved while no
@@ -68,4 +112,8 @@ export function wireReports() {
   when("save-groups", () => download("midrank-groups.csv", "text/csv", csvOf(state.tables.groups)));
   when("save-pairs", () => { if (state.tables.pairs) download("midrank-pairs.csv", "text/csv", csvOf(state.tables.pairs)); });
   when("save-levels", () => { if (state.tables.levels) download("midrank-levels.csv", "text/csv", csvOf(state.tables.levels)); });
+  const whenBattery = (id, make) => $(id).addEventListener("click", () => { if (state.battery) make(); });
+  whenBattery("save-battery-html", () => download("midrank-measures-report.html", "text/html", batteryHTML()));
+  whenBattery("save-battery-markdown", () => download("midrank-measures-report.md", "text/markdown", batteryMarkdown()));
+  whenBattery("save-overview", () => download("midrank-overview.csv", "text/csv", csvOf(state.batteryTables.overview)));
 }

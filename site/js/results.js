@@ -8,11 +8,13 @@ import { update } from "./state.js";
 // now on the page (or clears the mark): greyed out, with a note, and nothing
 // in them can be copied, downloaded or linked until a new analysis answers.
 export function setStale(stale) {
-  const results = $("results");
-  stale = stale && !results.hidden;
-  results.classList.toggle("stale", stale);
-  $("stale-note").hidden = !stale;
-  for (const el of results.querySelectorAll(".headline > :not(#stale-note), .details")) el.inert = stale;
+  const results = $("results"), battery = $("battery");
+  const resultsStale = stale && !results.hidden, batteryStale = stale && !battery.hidden;
+  results.classList.toggle("stale", resultsStale);
+  $("stale-note").hidden = !resultsStale;
+  for (const el of results.querySelectorAll(".headline > :not(#stale-note), .details")) el.inert = resultsStale;
+  battery.classList.toggle("stale", batteryStale);
+  battery.inert = batteryStale;
 }
 
 export function renderResults(state, changed) {

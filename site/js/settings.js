@@ -4,17 +4,45 @@ import { $ } from "./dom.js";
 export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
 const numeric = new Set(["alpha", "resamples", "seed"]);
 
+// Several measures: the columns ticked, kept by key while the text's
+// columns are not known yet (a kept workspace, a link).
+let wantedMeasures = [];
+
+// measuresChosen are the request's measures: ["all"], two or more
+// columns' keys, or none (one measure, from the measure menu).
+function measuresChosen() {
+  if ($("measures-all").checked) return ["all"];
+  const ticked = [...$("measures-list").querySelectorAll("input:checked")].map((c) => c.value);
+  if (ticked.length >= 2) return ticked;
+  return wantedMeasures.length >= 2 ? wantedMeasures : []; // asked for before the columns are known
+}
+
 // formOptions reads the settings as the module's options.
 export function formOptions() {
   const options = {};
   for (const f of fields) options[f] = numeric.has(f) ? Number($(f).value) : $(f).value;
+  const measures = measuresChosen();
+  if (measures.length) {
+    options.measures = measures;
+    options.adjust_across = $("adjust_across").value;
+  }
   return options;
+}
+
+// setMeasures ticks the measures of a request (none: one measure).
+function setMeasures(measures, across) {
+  wantedMeasures = measures[0] === "all" ? [] : measures;
+  $("measures-all").checked = measures[0] === "all";
+  for (const c of $("measures-list").querySelectorAll("input")) c.checked = wantedMeasures.includes(c.value);
+  if (across) $("adjust_across").value = across;
+  if (measures.length) $("measures-box").open = true;
 }
 
 // setOptions puts settings on the form; a setting not given takes its
 // value from fallback (the module's defaults), or stays as it is. A column
 // chosen before the text's columns are known is kept as a choice of its own.
 export function setOptions(options, fallback = {}) {
+  setMeasures(options.measures ?? [], options.adjust_across);
   for (const f of fields) {
     const v = options[f] ?? fallback[f];
     if (v === undefined) continue;
@@ -40,6 +68,21 @@ export function fillColumns(columns) {
     select.replaceChildren(new Option("as read", ""), ...choices);
     select.value = chosen;
   }
+  // the checklist of measures: the columns that hold numbers
+  const ticked = new Set([...wantedMeasures, ...[...$("measures-list").querySelectorAll("input:checked")].map((c) => c.value)]);
+  wantedMeasures = [];
+  $("measures-list").replaceChildren(...columns.list.flatMap((c, i) => {
+    const key = columns.header ? c.name : String(i + 1);
+    if (c.numbers === 0 || key === $("group").value) return [];
+    const box = document.createElement("input");
+    box.type = "checkbox";
+    box.value = key;
+    box.checked = ticked.has(key);
+    const label = document.createElement("label");
+    label.className = "inline";
+    label.append(box, " " + c.name);
+    return [label];
+  }));
 }
 
 // chooseAlternative sets the reading's settings to another reading the

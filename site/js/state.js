@@ -11,6 +11,10 @@ export const state = {
   edits: { order: [], exclude: [], rename: {} }, // group edits beside the text
   undoable: [], // earlier edits, newest last
   pairsSorted: false, // the pairs sorted by adjusted p
+  battery: null, // the last analysis when it was of several measures (the module's JSON), else null
+  batteryTables: null, // its tables: {overview, measures: [tables of each measure, or null]}
+  batterySort: null, // the overview's order: null (the columns'), "p" or "effect"
+  drill: null, // the index of the battery's measure shown in full in the results, null for the overview
 };
 
 const views = [];

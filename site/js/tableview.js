@@ -79,9 +79,9 @@ function rowsOf(table) {
 }
 
 // htmlOf is a table as HTML, its text escaped.
-export function htmlOf(table) {
+export function htmlOf(table, level = 2) {
   const { head, rows } = rowsOf(table);
-  return "<h2>" + escapeHTML(table.title) + "</h2>" + (table.note ? "<p class=\"note\">" + escapeHTML(table.note) + "</p>" : "")
+  return "<h" + level + ">" + escapeHTML(table.title) + "</h" + level + ">" + (table.note ? "<p class=\"note\">" + escapeHTML(table.note) + "</p>" : "")
     + "<table><thead><tr>" + head.map((h) => "<th>" + escapeHTML(h) + "</th>").join("") + "</tr></thead><tbody>"
     + rows.map((r) => "<tr>" + r.map((c) => "<td>" + escapeHTML(c) + "</td>").join("") + "</tr>").join("") + "</tbody></table>";
 }
@@ -116,9 +116,9 @@ export function mdText(v) {
 }
 
 // markdownOf is a table as Markdown lines.
-export function markdownOf(table) {
+export function markdownOf(table, level = 2) {
   const { head, rows } = rowsOf(table);
   const line = (cells) => "| " + cells.map(mdText).join(" | ") + " |";
-  return ["## " + mdText(table.title), "", ...(table.note ? [mdText(table.note), ""] : []),
+  return ["#".repeat(level) + " " + mdText(table.title), "", ...(table.note ? [mdText(table.note), ""] : []),
     line(head), "|" + " --- |".repeat(head.length), ...rows.map(line)];
 }

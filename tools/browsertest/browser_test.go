@@ -598,6 +598,102 @@ func TestPage(t *testing.T) {
 		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && document.querySelector('[data-result="df"]').textContent === "11"`)
 	})
 
+	t.Run("several measures: the overview as the core shows it, each measure in full and back, reports, CSV and a link of the whole battery", func(t *testing.T) {
+		// R's airquality (testdata/battery, written by tools/reference/battery.R): four measures by Month,
+		// whose H, p and adjusted p core/battery_test.go checks against R's kruskal.test and p.adjust
+		data, err := os.ReadFile("../../testdata/battery/airquality.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("status").textContent = "";
+			document.getElementById("group").value = "Month";
+			document.getElementById("measures-box").open = true;
+			for (const c of document.querySelectorAll("#measures-list input")) c.checked = ["Ozone", "Solar.R", "Wind", "Temp"].includes(c.value);
+			document.getElementById("measures-box").dispatchEvent(new Event("change", { bubbles: true })); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("status").textContent === "Done: 4 measures."`)
+		want, err := core.AnalyzeMeasures(context.Background(), data, core.Options{Group: "Month", Measures: []string{"Ozone", "Solar.R", "Wind", "Temp"}}, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		overview := tables.Overview(want)
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[[][]string](`[...document.querySelectorAll("#battery-table tbody tr")].map((tr) => [...tr.cells].map((td) => td.textContent))`))
+		if err != nil || len(rows) != len(overview.Rows) {
+			t.Fatalf("overview rows %q (%v), want %d", rows, err, len(overview.Rows))
+		}
+		for i, row := range overview.Rows {
+			for j, cell := range row {
+				if rows[i][j] != cell.Text {
+					t.Errorf("overview row %d column %s: %q, want the core's %q", i+1, overview.Columns[j].Key, rows[i][j], cell.Text)
+				}
+			}
+		}
+		if got := b.text(t, "#battery-summary"); !strings.Contains(got, "3 differ (Ozone, Wind, Temp)") {
+			t.Errorf("summary %q, want three measures named as differing", got)
+		}
+		cells, _ := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#plot-battery svg g[tabindex] title").length`))
+		if cells != 4*5 {
+			t.Errorf("the picture has %d cells with their values, want 4 measures × 5 months", cells)
+		}
+		// sorted by effect size: Temp (the largest ε²) first
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("battery-sort-effect").click(); true`)); err != nil {
+			t.Fatal(err)
+		}
+		if first := b.text(t, "#battery-table tbody tr td"); first != "Temp" {
+			t.Errorf("sorted by effect size, the first measure is %q, want Temp", first)
+		}
+		b.screenshot(t, "midrank-measures.png")
+		// one measure in full, then back
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`[...document.querySelectorAll("#battery-table button")].find((x) => x.textContent === "Wind").click(); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `!document.getElementById("results").hidden && document.getElementById("battery").hidden`)
+		if got, w := b.text(t, `[data-result="h"]`), display.Statistic.Format(want.Measures[2].Result.H); got != w {
+			t.Errorf("Wind in full: H %q, want %q", got, w)
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("back-to-battery").click(); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("results").hidden && !document.getElementById("battery").hidden`)
+		// the reports: the overview, then each measure in full (or only those that differ)
+		report := b.saved(t, "save-battery-html")
+		for _, m := range want.Measures {
+			if !strings.Contains(report, "<h2>"+m.Measure+"</h2>") || !strings.Contains(report, html.EscapeString(m.Result.ResultLine)) {
+				t.Errorf("the HTML report lacks %s in full", m.Measure)
+			}
+		}
+		if _, err := chromedp.Run(b.ctx, chromedp.SetValue("#battery-report", "differ")); err != nil {
+			t.Fatal(err)
+		}
+		md := b.saved(t, "save-battery-markdown")
+		if strings.Contains(md, "## Solar.R") || !strings.Contains(md, "## Ozone") || !strings.Contains(md, "3 of the 4 measures follow in full") {
+			t.Errorf("the Markdown report of the measures that differ:\n%.600s", md)
+		}
+		keep(t, "midrank-measures-report.md", md)
+		if csv := b.saved(t, "save-overview"); strings.Count(csv, "\r\n") != 5 || !strings.HasPrefix(csv, "measure,values,groups,h,") {
+			t.Errorf("overview CSV:\n%s", csv)
+		}
+		// a link carries the whole battery
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("link-passphrase").value = ""; document.getElementById("make-link").click(); true`)); err != nil {
+			t.Fatal(err)
+		}
+		b.waitFor(t, `document.getElementById("link-text").value.includes("#r1.") && document.getElementById("battery").contains(document.getElementById("link-box"))`)
+		url, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("link-text").value`))
+		r := open(t, url, b.origin)
+		r.waitFor(t, `document.getElementById("status").textContent === "Done: 4 measures."`)
+		if got := r.text(t, "#battery-summary"); !strings.Contains(got, "3 differ (Ozone, Wind, Temp)") {
+			t.Errorf("the reopened battery says %q", got)
+		}
+		// back to one measure for the tests that follow
+		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("measures-all").checked = false;
+			for (const c of document.querySelectorAll("#measures-list input")) c.checked = false;
+			document.getElementById("group").value = ""; document.getElementById("measures-box").open = false; true`)); err != nil {
+			t.Fatal(err)
+		}
+	})
+
 	t.Run("a spreadsheet opens in the tab, its sheets in a menu", func(t *testing.T) {
 		// R's npk written by openpyxl behind a sheet of notes (testdata/sheets, tools/reference/sheets.py)
 		file, err := filepath.Abs("../../testdata/sheets/npk.xlsx")
