@@ -75,7 +75,7 @@ func (o Options) ForLabels(labels []string) Options {
 func Defaults() Options {
 	seed := uint64(DefaultSeed)
 	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Thousands: "auto", Alpha: DefaultAlpha, PValue: Keys("pvalue")[0],
-		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0]}
+		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0], AdjustAcross: Keys("adjust_across")[0]}
 }
 
 // OptionError is a setting that cannot be used.

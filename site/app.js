@@ -219,7 +219,7 @@ wireInput((text) => {
   keep();
   analyse();
 }, bridge.ask);
-wirePictures(() => state.result !== null);
+wirePictures(() => state.result !== null || state.battery !== null);
 wireRanks(bridge.ask);
 wireReports();
 wireBattery();

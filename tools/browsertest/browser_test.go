@@ -675,6 +675,9 @@ func TestPage(t *testing.T) {
 		if csv := b.saved(t, "save-overview"); strings.Count(csv, "\r\n") != 5 || !strings.HasPrefix(csv, "measure,values,groups,h,") {
 			t.Errorf("overview CSV:\n%s", csv)
 		}
+		if svg := b.saved(t, "save-battery-svg"); !strings.Contains(svg, "Where each group lies on each measure") || strings.Count(svg, "<title>") < 20 {
+			t.Errorf("the battery's picture as SVG:\n%.300s", svg)
+		}
 		// a link carries the whole battery
 		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("link-passphrase").value = ""; document.getElementById("make-link").click(); true`)); err != nil {
 			t.Fatal(err)
