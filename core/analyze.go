@@ -138,11 +138,7 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 // p-values): it stops when ctx is done, returning ctx.Err(), and tells
 // progress, when not nil, how far it is.
 func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Progress) (*Result, error) {
-	s, text, sheetName, err := opt.prepare(data)
-	if err != nil {
-		return nil, err
-	}
-	t, err := table.Parse(text, s.read)
+	s, t, _, sheetName, err := opt.readTable(data)
 	if err != nil {
 		return nil, err
 	}
@@ -153,15 +149,23 @@ func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Prog
 	return r, err
 }
 
-// prepare checks the options and gives the settings, the text to read
-// (data, or the chosen sheet of a spreadsheet file) and the sheet's name.
-func (o Options) prepare(data []byte) (settings, []byte, string, error) {
+// readTable checks the options and reads the table: it gives the
+// settings, the table, the text read (data, or the chosen sheet of a
+// spreadsheet file) and the sheet's name.
+func (o Options) readTable(data []byte) (settings, *table.Table, []byte, string, error) {
 	s, err := o.validate()
 	if err != nil {
-		return s, nil, "", err
+		return s, nil, nil, "", err
 	}
 	text, sheetName, err := textOf(data, o.Sheet)
-	return s, text, sheetName, err
+	if err != nil {
+		return s, nil, nil, "", err
+	}
+	t, err := table.Parse(text, s.read)
+	if err != nil {
+		return s, nil, nil, "", err
+	}
+	return s, t, text, sheetName, nil
 }
 
 // analyzeTable applies the group edits to a table just read and analyses it.

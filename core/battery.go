@@ -57,11 +57,7 @@ type Measured struct {
 // cannot be analysed keeps its error in its Measured.
 func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Progress) (*Battery, error) {
 	across, measures := cmp.Or(adjust.Method(opt.AdjustAcross), DefaultAcross), opt.Measures
-	s, text, sheetName, err := opt.prepare(data)
-	if err != nil {
-		return nil, err
-	}
-	t, err := table.Parse(text, s.read)
+	s, t, text, sheetName, err := opt.readTable(data)
 	if err != nil {
 		return nil, err
 	}
