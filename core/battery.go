@@ -9,6 +9,7 @@ import (
 
 	"midrank/core/adjust"
 	"midrank/core/jsonlite"
+	"midrank/core/report"
 	"midrank/core/table"
 )
 
@@ -34,6 +35,9 @@ type Battery struct {
 	GroupColumn  string        // the group column's header
 	AdjustAcross adjust.Method // bh or holm
 	Measures     []Measured    // in the order asked, or the columns' order for "all"
+	// Summary says in plain words which measures differ after the
+	// adjustment across measures (see report.BatterySummary).
+	Summary string
 }
 
 // Measured is one measure of a battery: its analysis, or why it has none.
@@ -44,6 +48,12 @@ type Measured struct {
 	// PAdjustedAcross is the measure's p adjusted across the measures
 	// that were analysed; nil when the measure was not
 	PAdjustedAcross *float64
+}
+
+// DiffersAcross reports whether the measure differs between the groups
+// after its p-value was adjusted across the measures: adjusted p ≤ alpha.
+func (m Measured) DiffersAcross() bool {
+	return m.Result != nil && report.Significant(*m.PAdjustedAcross, m.Result.Alpha)
 }
 
 // AnalyzeMeasures runs the test on each of the measure columns
@@ -120,11 +130,16 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Pro
 	if err != nil {
 		return nil, err
 	}
+	var differ []string
 	for i := range b.Measures {
-		if b.Measures[i].Result != nil {
-			b.Measures[i].PAdjustedAcross, adjusted = &adjusted[0], adjusted[1:]
+		if m := &b.Measures[i]; m.Result != nil {
+			m.PAdjustedAcross, adjusted = &adjusted[0], adjusted[1:]
+			if m.DiffersAcross() {
+				differ = append(differ, m.Measure)
+			}
 		}
 	}
+	b.Summary = report.BatterySummary(len(b.Measures), len(ps), b.GroupColumn, differ, s.alpha, across.Name())
 	return b, nil
 }
 
@@ -142,14 +157,16 @@ func numericColumns(t *table.Table) []string {
 }
 
 // EncodeBattery writes a battery as JSON: {"version", "group_column",
-// "adjust_across", "measures": [{"measure", "p_adjusted_across", …the
-// measure's result as Encode writes it…} or {"measure", "error"}]}.
+// "adjust_across", "summary", "measures": [{"measure", "p_adjusted_across",
+// "differs_across", …the measure's result as Encode writes it…} or
+// {"measure", "error"}]}.
 func EncodeBattery(b *Battery) ([]byte, error) {
 	var w jsonlite.Writer
 	w.BeginObject()
 	w.StringMember("version", Version)
 	w.StringMember("group_column", b.GroupColumn)
 	w.StringMember("adjust_across", string(b.AdjustAcross))
+	w.StringMember("summary", b.Summary)
 	w.Key("measures")
 	w.BeginArray()
 	for _, m := range b.Measures {
@@ -161,6 +178,7 @@ func EncodeBattery(b *Battery) ([]byte, error) {
 			body = EncodeError(m.Err)
 		} else {
 			head.FloatMember("p_adjusted_across", *m.PAdjustedAcross)
+			head.BoolMember("differs_across", m.DiffersAcross())
 			var err error
 			if body, err = Encode(m.Result); err != nil {
 				return nil, err

@@ -60,6 +60,9 @@ func TestBatteryAgainstR(t *testing.T) {
 					t.Errorf("%s %s (%s): H %v p %v adjusted %v; R %v %v %v", dataset, m.Measure, across,
 						m.Result.H, m.Result.PValue, *m.PAdjustedAcross, w.h, w.p, adjusted)
 				}
+				if m.DiffersAcross() != (adjusted <= DefaultAlpha) {
+					t.Errorf("%s %s (%s): differs %v with R's adjusted p %v", dataset, m.Measure, across, m.DiffersAcross(), adjusted)
+				}
 			}
 		}
 	}
@@ -107,6 +110,9 @@ func TestBatteryAll(t *testing.T) {
 	m := decoded.Measures
 	if decoded.AdjustAcross != "bh" || len(m) != 3 || m[0].H == nil || m[0].PAdjustedAcross == nil || m[1].Error == nil || m[2].PAdjustedAcross == nil {
 		t.Errorf("JSON: %s", out)
+	}
+	if !strings.HasPrefix(b.Summary, "3 measures compared across the groups of \u201cteam\u201d: ") || !strings.Contains(b.Summary, "One measure could not be analysed") {
+		t.Errorf("summary %q", b.Summary)
 	}
 }
 

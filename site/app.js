@@ -177,12 +177,14 @@ async function analyse() {
   }
   $("problem").hidden = true;
   const answered = performance.now();
+  // each table knows its name, which the views and reports go by
+  const named = (set) => { for (const [name, table] of Object.entries(set ?? {})) table.name = name; return set; };
   if (body.measures) {
-    tables.overview.name = "overview";
+    named({ overview: tables.overview });
+    tables.measures.forEach(named);
     update({ result: null, tables: null, battery: body, batteryTables: tables, drill: null });
   } else {
-    for (const [name, table] of Object.entries(tables)) table.name = name;
-    update({ result: body, tables, battery: null, batteryTables: null, drill: null });
+    update({ result: body, tables: named(tables), battery: null, batteryTables: null, drill: null });
   }
   setStale(false);
   // how long the last analysis took, for the browser tests' notes

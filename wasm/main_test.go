@@ -202,7 +202,7 @@ func TestBattery(t *testing.T) {
 	onPreview := js.FuncOf(func(js.Value, []js.Value) any { previews++; return nil })
 	defer onPreview.Release()
 	got := m.Call("workspace", data, `{"group":"site","measures":["wait","stay"],"adjust_across":"holm"}`, onPreview).String()
-	if previews != 1 || !strings.Contains(got, `"adjust_across":"holm","measures":[{"measure":"wait","p_adjusted_across":`) {
+	if previews != 1 || !strings.Contains(got, `"adjust_across":"holm","summary":"2 measures compared`) || !strings.Contains(got, `"measures":[{"measure":"wait","p_adjusted_across":`) {
 		t.Fatalf("workspace with two measures (%d previews) = %.300s", previews, got)
 	}
 	tables := m.Call("tables").String()

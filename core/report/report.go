@@ -126,6 +126,34 @@ func Decision(f Facts) string {
 	return b.String()
 }
 
+// BatterySummary says in plain words what a battery of measures found:
+// how many measures were compared across the groups of which column, which
+// of them differ at level alpha after their p-values were adjusted across
+// the measures by the method named (across, in prose), and how many could
+// not be analysed, followed by the Caution.
+func BatterySummary(measures, analysed int, groupColumn string, differ []string, alpha float64, across string) string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "%d measures compared across the groups of \u201c%s\u201d: ", measures, groupColumn)
+	switch len(differ) {
+	case 0:
+		b.WriteString("none differs")
+	case 1:
+		fmt.Fprintf(&b, "one differs (%s)", differ[0])
+	default:
+		fmt.Fprintf(&b, "%d differ (%s)", len(differ), strings.Join(differ, ", "))
+	}
+	fmt.Fprintf(&b, " at the %s level after their p-values were adjusted across the measures by %s. ", Number(alpha), across)
+	switch failed := measures - analysed; failed {
+	case 0:
+	case 1:
+		b.WriteString("One measure could not be analysed (see the overview). ")
+	default:
+		fmt.Fprintf(&b, "%d measures could not be analysed (see the overview). ", failed)
+	}
+	b.WriteString("Read each measure in full before acting on it. ")
+	return b.String() + Caution
+}
+
 // Caution is said wherever a result could inform a decision about people.
 const Caution = "Statistical evidence is not a clinical, legal or employment decision: weigh it with the context, follow local rules, and consult qualified professionals."
 

@@ -98,3 +98,24 @@ func TestResultLine(t *testing.T) {
 		}
 	}
 }
+
+// TestBatterySummary: the battery's sentence names the measures that
+// differ and those that could not be analysed, and ends with the caution.
+func TestBatterySummary(t *testing.T) {
+	tests := []struct {
+		measures, analysed int
+		differ             []string
+		says               string
+	}{
+		{4, 4, nil, "none differs at the 0.05 level"},
+		{4, 4, []string{"Wind"}, "one differs (Wind) at the 0.05 level"},
+		{4, 3, []string{"Ozone", "Temp"}, "2 differ (Ozone, Temp) at the 0.05 level after their p-values were adjusted across the measures by Holm's step-down method (Holm 1979). One measure could not be analysed"},
+		{5, 3, nil, "2 measures could not be analysed"},
+	}
+	for _, tt := range tests {
+		got := BatterySummary(tt.measures, tt.analysed, "Month", tt.differ, 0.05, "Holm's step-down method (Holm 1979)")
+		if !strings.Contains(got, tt.says) || !strings.HasSuffix(got, Caution) {
+			t.Errorf("BatterySummary(%d, %d, %q) = %q, want it to say %q", tt.measures, tt.analysed, tt.differ, got, tt.says)
+		}
+	}
+}

@@ -67,10 +67,7 @@ func (s *xmlScanner) plainRowStart() ([]byte, bool) {
 // t (nil when absent) and where the tag ends (just past its '>'), without
 // moving the scanner.
 func (s *xmlScanner) plainStart(name string) (attrs [3][]byte, end int, ok bool) {
-	b, i := s.b, s.i
-	for i < len(b) && (b[i] == ' ' || b[i] == '\n' || b[i] == '\r' || b[i] == '\t') {
-		i++
-	}
+	b, i := s.b, skipSpace(s.b, s.i)
 	n := len(name)
 	if i+n+1 >= len(b) || b[i] != '<' || string(b[i+1:i+1+n]) != name {
 		return attrs, 0, false
@@ -136,14 +133,20 @@ func (s *xmlScanner) plainStart(name string) (attrs [3][]byte, end int, ok bool)
 // plainEnd moves past the end tag </name> when the scanner stands at it
 // (after white space), and reports whether it did.
 func (s *xmlScanner) plainEnd(name string) bool {
-	b, i := s.b, s.i
-	for i < len(b) && (b[i] == ' ' || b[i] == '\n' || b[i] == '\r' || b[i] == '\t') {
-		i++
-	}
+	b, i := s.b, skipSpace(s.b, s.i)
 	n := len(name)
 	if i+n+3 > len(b) || b[i] != '<' || b[i+1] != '/' || string(b[i+2:i+2+n]) != name || b[i+2+n] != '>' {
 		return false
 	}
 	s.i = i + n + 3
 	return true
+}
+
+// skipSpace gives the index of the first byte at or after i that is not
+// XML white space.
+func skipSpace(b []byte, i int) int {
+	for i < len(b) && isSpace(b[i]) {
+		i++
+	}
+	return i
 }

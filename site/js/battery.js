@@ -6,27 +6,6 @@ import { pageTable } from "./tableview.js";
 import { update } from "./state.js";
 import { drawAt, label, picture, svgEl, svgText, textWidth } from "./svg.js";
 
-// differ lists the measures whose p adjusted across the measures is at or
-// below their significance level.
-export function differing(battery) {
-  return battery.measures.filter((m) => !m.error && m.p_adjusted_across <= m.alpha);
-}
-
-// summary says in a sentence what the battery found.
-function summary(b) {
-  const analysed = b.measures.filter((m) => !m.error);
-  const found = differing(b);
-  const alpha = analysed.length ? analysed[0].alpha : 0.05;
-  const across = b.adjust_across === "holm" ? "Holm's adjustment" : "the Benjamini–Hochberg adjustment (false discovery rate)";
-  let text = b.measures.length + " measures compared across the groups of \u201c" + b.group_column + "\u201d: "
-    + (found.length === 0 ? "none differs" : found.length === 1 ? "one differs (" + found[0].measure + ")"
-      : found.length + " differ (" + found.map((m) => m.measure).join(", ") + ")")
-    + " at the " + alpha + " level after " + across + " across the measures.";
-  const failed = b.measures.length - analysed.length;
-  if (failed) text += " " + (failed === 1 ? "One measure" : failed + " measures") + " could not be analysed (see the table).";
-  return text + " Statistical evidence is not an HR, clinical or legal decision: read each measure in full before acting on it, and follow your organisation's rules.";
-}
-
 // sortOrder is the overview's row order: as the columns came, by adjusted
 // p (smallest first) or by ε² (largest first); rows without a value last.
 function sortOrder(table, by) {
@@ -125,15 +104,21 @@ export function renderBattery(state, changed) {
   const b = state.battery;
   const shown = b !== null && state.drill === null;
   $("battery").hidden = !shown;
-  $("back-to-battery").hidden = b === null || state.drill === null;
+  const drilled = b !== null && state.drill !== null;
+  $("back-to-battery").hidden = $("drill-note").hidden = !drilled;
+  if (drilled) {
+    const overview = state.batteryTables.overview, at = overview.columns.findIndex((c) => c.key === "p_adjusted_across");
+    $("drill-note").textContent = "One of " + b.measures.length + " measures: " + b.measures[state.drill].measure
+      + ". Its p adjusted across the measures: " + overview.text[state.drill][at] + ".";
+  }
   // one link panel, in whichever results are in view; a battery's link carries every measure
   $(shown ? "battery-share-slot" : "results-share-slot").append($("share"));
   if (!shown) return;
-  $("battery-summary").textContent = summary(b);
+  $("battery-summary").textContent = b.summary;
   const overview = state.batteryTables.overview;
   pageTable($("battery-table"), overview, {
     order: sortOrder(overview, state.batterySort),
-    rowClass: (values) => values[0] !== null && differing(b).some((m) => m.measure === values[0]) ? "differ" : "",
+    rowClass: (values) => b.measures.some((m) => m.measure === values[0] && m.differs_across) ? "differ" : "",
   });
   // each measure's name opens its whole analysis
   const rows = $("battery-table").tBodies[0].rows;
@@ -154,10 +139,8 @@ export function renderBattery(state, changed) {
 // drill shows measure i's whole analysis in the results; the overview
 // stays one step back.
 function drill(state, i) {
-  const tables = state.batteryTables.measures[i];
-  for (const [name, table] of Object.entries(tables)) table.name = name;
-  update({ drill: i, result: state.battery.measures[i], tables });
-  $("results-title").focus?.();
+  update({ drill: i, result: state.battery.measures[i], tables: state.batteryTables.measures[i] });
+  $("results-title").scrollIntoView({ block: "start" });
 }
 
 export function wireBattery() {

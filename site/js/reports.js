@@ -5,7 +5,6 @@ import { state } from "./state.js";
 import { formOptions } from "./settings.js";
 import { svgSource } from "./savepicture.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
-import { differing } from "./battery.js";
 
 // groupEditsText says which groups were shown under another name and which
 // were left out, for the reports ("" when the groups are as in the text).
@@ -35,7 +34,7 @@ function htmlPage(title, version, body) {
     "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
     "<h1>" + escapeHTML(title) + "</h1>",
     "<p class=\"note\">Made with Midrank " + escapeHTML(version) + " on " + new Date().toISOString().slice(0, 10) +
-      ". Settings: " + escapeHTML(Object.entries(settings).map(([k, v]) => k + " " + v).join(", ")) + ".</p>",
+      ". Settings: " + escapeHTML(Object.entries(settings).filter(([, v]) => v !== "").map(([k, v]) => k + " " + (Array.isArray(v) ? v.join(" · ") : v)).join(", ")) + ".</p>",
     ...body, "</body></html>\n"].join("");
 }
 
@@ -74,32 +73,29 @@ function markdownReport() {
 }
 
 // inFull are the battery's measures its reports show in full, with their
-// tables: every one analysed, or only those that differ.
+// tables (every one analysed, or only those that differ), and a note that
+// says which.
 function inFull() {
-  const b = state.battery, only = $("battery-report").value === "differ" ? differing(b) : b.measures;
-  return b.measures.flatMap((m, i) => m.error || !only.includes(m) ? [] : [{ m, tables: named(state.batteryTables.measures[i]) }]);
-}
-
-function named(tables) {
-  for (const [name, table] of Object.entries(tables)) table.name = name;
-  return tables;
+  const b = state.battery, onlyDiffering = $("battery-report").value === "differ";
+  const shown = b.measures.flatMap((m, i) => m.error || onlyDiffering && !m.differs_across ? [] : [{ m, tables: state.batteryTables.measures[i] }]);
+  const note = onlyDiffering ? shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures."
+    : "Every measure analysed follows in full.";
+  return { shown, note };
 }
 
 function batteryHTML() {
-  const b = state.battery, shown = inFull();
+  const b = state.battery, { shown, note } = inFull();
   return htmlPage("Kruskal–Wallis H test, " + b.measures.length + " measures", b.version, [
-    "<p><strong>" + escapeHTML($("battery-summary").textContent) + "</strong></p>",
-    htmlOf(state.batteryTables.overview), picture("plot-battery"),
-    "<p class=\"note\">" + (shown.length === b.measures.length ? "Every measure follows in full."
-      : shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures.") + "</p>",
+    "<p><strong>" + escapeHTML(b.summary) + "</strong></p>",
+    htmlOf(state.batteryTables.overview), picture("plot-battery"), "<p class=\"note\">" + escapeHTML(note) + "</p>",
     ...shown.flatMap(({ m, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(m, tables, 3)])]);
 }
 
 function batteryMarkdown() {
-  const b = state.battery, shown = inFull();
+  const b = state.battery, { shown, note } = inFull();
   return ["# Kruskal–Wallis H test, " + b.measures.length + " measures", "", "Midrank " + b.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    "**" + mdText($("battery-summary").textContent) + "**", "", ...markdownOf(state.batteryTables.overview), "",
-    shown.length === b.measures.length ? "Every measure follows in full." : shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures.",
+    "**" + mdText(b.summary) + "**", "", ...markdownOf(state.batteryTables.overview), "",
+    note,
     ...shown.flatMap(({ m, tables }) => ["", "## " + mdText(m.measure), "", ...markdownAnalysis(m, tables, 3)])].join("\n") + "\n";
 }
 

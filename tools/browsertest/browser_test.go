@@ -224,6 +224,25 @@ func (b *browser) saved(t *testing.T, button string) string {
 	return text
 }
 
+// printed prints the page on A4 to a PDF file in the temporary folder, for
+// a person to look at, and gives its text.
+func (b *browser) printed(t *testing.T, name string) string {
+	t.Helper()
+	pdf, err := chromedp.Run(b.ctx, func(ctx context.Context, target *chromedp.Target) ([]byte, error) {
+		res, err := cdp.Call(ctx, target, page.PrintToPDF, page.PrintToPDFParams{PaperWidth: 8.27, PaperHeight: 11.69}) // A4, in inches
+		return res.Data, err
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(os.TempDir(), name)
+	if err := os.WriteFile(path, pdf, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("printed page for review: %s", path)
+	return pdfText(t, path)
+}
+
 // unescaped finds a character that Markdown would read as a tag, a link or
 // an image when no backslash stands before it.
 var unescaped = regexp.MustCompile(`(^|[^\\])[<\[!]`)
@@ -427,20 +446,7 @@ func TestPage(t *testing.T) {
 	t.Run("screenshot", func(t *testing.T) { b.screenshot(t, "midrank-results.png") })
 
 	t.Run("prints the results on A4 with every heading, tables within the paper and page numbers", func(t *testing.T) {
-		printPDF := func(ctx context.Context, target *chromedp.Target) ([]byte, error) {
-			res, err := cdp.Call(ctx, target, page.PrintToPDF, page.PrintToPDFParams{PaperWidth: 8.27, PaperHeight: 11.69}) // A4, in inches
-			return res.Data, err
-		}
-		pdf, err := chromedp.Run(b.ctx, printPDF)
-		if err != nil {
-			t.Fatal(err)
-		}
-		path := filepath.Join(os.TempDir(), "midrank-results.pdf")
-		if err := os.WriteFile(path, pdf, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		t.Logf("printed results for review: %s", path)
-		text := pdfText(t, path)
+		text := b.printed(t, "midrank-results.pdf")
 		for _, tab := range tables.Of(want) {
 			for _, c := range tab.Columns {
 				if !hasWords(text, c.Heading) {
@@ -630,8 +636,8 @@ func TestPage(t *testing.T) {
 				}
 			}
 		}
-		if got := b.text(t, "#battery-summary"); !strings.Contains(got, "3 differ (Ozone, Wind, Temp)") {
-			t.Errorf("summary %q, want three measures named as differing", got)
+		if got := b.text(t, "#battery-summary"); got != want.Summary || !strings.Contains(got, "3 differ (Ozone, Wind, Temp)") {
+			t.Errorf("summary %q, want the core's %q, three measures named as differing", got, want.Summary)
 		}
 		cells, _ := chromedp.Run(b.ctx, chromedp.Evaluate[int](`document.querySelectorAll("#plot-battery svg g[tabindex] title").length`))
 		if cells != 4*5 {
@@ -645,6 +651,19 @@ func TestPage(t *testing.T) {
 			t.Errorf("sorted by effect size, the first measure is %q, want Temp", first)
 		}
 		b.screenshot(t, "midrank-measures.png")
+		fitsAndReads(t, b)
+		// each measure's name is printed in the summary (if it differs), its row of the overview and the picture
+		printed, summary := b.printed(t, "midrank-measures.pdf"), b.text(t, "#battery-summary")
+		for _, m := range want.Measures {
+			if got, w := strings.Count(printed, m.Measure), strings.Count(summary, m.Measure)+2; got != w {
+				t.Errorf("the printed overview names %s %d times, want %d (its row is missing)", m.Measure, got, w)
+			}
+		}
+		for _, s := range []string{"Sort by", "The reports show in full", "Download"} {
+			if strings.Contains(printed, s) {
+				t.Errorf("the printed overview shows the control %q", s)
+			}
+		}
 		// one measure in full, then back
 		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`[...document.querySelectorAll("#battery-table button")].find((x) => x.textContent === "Wind").click(); true`)); err != nil {
 			t.Fatal(err)
@@ -652,6 +671,9 @@ func TestPage(t *testing.T) {
 		b.waitFor(t, `!document.getElementById("results").hidden && document.getElementById("battery").hidden`)
 		if got, w := b.text(t, `[data-result="h"]`), display.Statistic.Format(want.Measures[2].Result.H); got != w {
 			t.Errorf("Wind in full: H %q, want %q", got, w)
+		}
+		if got, w := b.text(t, "#drill-note"), display.PValue.Format(*want.Measures[2].PAdjustedAcross); !strings.Contains(got, "Wind. Its p adjusted across the measures: "+w) {
+			t.Errorf("Wind in full says %q, want its adjusted p %s", got, w)
 		}
 		if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("back-to-battery").click(); true`)); err != nil {
 			t.Fatal(err)
@@ -1237,7 +1259,8 @@ func TestPage(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, data := range []string{string(counts), string(demo)} {
-			fitsAndReads(t, b, data)
+			b.analyse(t, data)
+			fitsAndReads(t, b)
 		}
 	})
 
@@ -1293,11 +1316,10 @@ func TestOfflineFile(t *testing.T) {
 	b.checkRequests(t)
 }
 
-// fitsAndReads analyses data and checks that the page fits 360 px and keeps
+// fitsAndReads checks that the page as it stands fits 360 px and keeps
 // text contrast at 4.5:1, light and dark.
-func fitsAndReads(t *testing.T, b *browser, data string) {
+func fitsAndReads(t *testing.T, b *browser) {
 	t.Helper()
-	b.analyse(t, data)
 	// contrast is the WCAG 2 ratio of each visible text element's colour
 	// and the first opaque background behind it
 	check := `(() => {

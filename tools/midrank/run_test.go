@@ -125,7 +125,8 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"-h"}, "", exitOK, "usage: midrank", ""},
 		// several measures: the overview first, each measure's p adjusted across them
 		{[]string{"--group", "site", "--measure", "wait", "--measure", "stay", "-"}, battery, exitOK, "Measures at a glance", ""},
-		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"adjust_across":"holm","measures":[{"measure":"wait","p_adjusted_across":`, ""},
+		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"adjust_across":"holm","summary":"2 measures compared`, ""},
+		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"measures":[{"measure":"wait","p_adjusted_across":`, ""},
 		{[]string{"--group", "site", "--measure", "all", "--adjust-across", "bonferroni", "-"}, battery, exitSettings, "", "choose bh"},
 	}
 	for _, tt := range tests {

@@ -166,7 +166,7 @@ func wrap(text string, width int, indent string) string {
 // writeBattery prints a battery of measures for people: the overview, then
 // each measure's report, or why it could not be analysed.
 func writeBattery(w io.Writer, b *core.Battery, showRanks bool) {
-	fmt.Fprintf(w, "Midrank %s · Kruskal–Wallis H test on %d measures by %q\n\n", core.Version, len(b.Measures), b.GroupColumn)
+	fmt.Fprintf(w, "Midrank %s · Kruskal–Wallis H test on %d measures by %q\n\n%s\n\n", core.Version, len(b.Measures), b.GroupColumn, wrap(b.Summary, 78, ""))
 	writeTable(w, tables.Overview(b))
 	for _, m := range b.Measures {
 		fmt.Fprintf(w, "\n%s\n%s\n", m.Measure, strings.Repeat("=", len([]rune(m.Measure))))
