@@ -3,6 +3,7 @@ package exact
 import (
 	"context"
 	"fmt"
+	"slices"
 	"testing"
 )
 
@@ -28,6 +29,24 @@ func distinct(n, v int) []Block {
 	return b
 }
 
+// tiedPairs returns the scores of ranks 1 … n (as Scores makes them from
+// doubled midranks) with a tied pair at each rank in at and the one after it,
+// as when a few values are recorded to whole minutes.
+func tiedPairs(n int, at ...int) []Block {
+	var doubled []int64
+	var counts []int
+	for r := 1; r <= n; r++ {
+		if slices.Contains(at, r) {
+			doubled, counts = append(doubled, int64(2*r+1)), append(counts, 2)
+			r++
+			continue
+		}
+		doubled, counts = append(doubled, int64(2*r)), append(counts, 1)
+	}
+	b, _, _ := Scores(doubled, counts)
+	return b
+}
+
 // benchLimits are the budgets of an explicit request (core.ExactCells and
 // core.ExactStates), so that each case runs as it would for a user.
 var benchLimits = Limits{MaxCells: 40_000_000, MaxStates: 4_000_000}
@@ -45,6 +64,16 @@ func BenchmarkPermutation(b *testing.B) {
 		{[]int{4, 4, 4, 4, 4}, untied(20), ""},
 		{[]int{5, 5, 5, 5, 5}, untied(25), ""},
 		{[]int{6, 6, 6, 6}, distinct(24, 5), "-5-tied-values"},
+		// a few tied pairs (issue: within 1.5× of untied data)
+		{[]int{6, 6, 6, 6}, tiedPairs(24, 10), "-1-pair"},
+		{[]int{6, 6, 6, 6}, tiedPairs(24, 3, 11), "-2-pairs"},
+		{[]int{6, 6, 6, 6}, tiedPairs(24, 3, 7, 11, 15, 19), "-5-pairs"},
+		{[]int{8, 8, 8, 8}, tiedPairs(32, 10), "-1-pair"},
+		{[]int{8, 8, 8, 8}, tiedPairs(32, 3, 21), "-2-pairs"},
+		{[]int{15, 15, 15}, tiedPairs(45, 20), "-1-pair"},
+		{[]int{15, 15, 15}, tiedPairs(45, 9, 30), "-2-pairs"},
+		{[]int{15, 15, 15}, tiedPairs(45, 3, 9, 20, 30, 40), "-5-pairs"},
+		{[]int{5, 5, 5, 5, 5}, tiedPairs(25, 10), "-1-pair"},
 	}
 	for _, c := range cases {
 		b.Run(fmt.Sprint(c.sizes, c.name), func(b *testing.B) {

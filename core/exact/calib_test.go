@@ -52,7 +52,7 @@ func TestLayoutIsTight(t *testing.T) {
 		if _, err := Permutation(context.Background(), c.sizes, c.blocks, lim, nil); err != nil {
 			t.Fatal(err)
 		}
-		s, _ := newSpace(c.sizes, countsOf(c.blocks))
+		s, _ := newSpace(c.sizes, countsOf(c.blocks), 0)
 		if err := s.prepare(c.blocks); err != nil {
 			t.Fatal(err)
 		}

@@ -8,7 +8,8 @@
 // a whole number that orders the outcomes exactly as H does, is found
 // without listing them.
 //
-// The scores are dealt in ascending order, one tie block at a time; the state
+// The scores are dealt in ascending order (or all but a few dealt last, see
+// deferred.go), one tie block at a time; the state
 // after a block is, for every group, how many scores it holds and their sum
 // (the last group's pair follows from the totals and is not stored). A block
 // of b equal scores goes to the groups with the multivariate hypergeometric
@@ -34,7 +35,10 @@
 // cells before any is made (budget); layout.go, how a bucket's rows are laid
 // out; layer.go, buckets and layers; deal.go, dealing a tie block (moves and
 // their weights); single.go, dealing a single score, the common case,
-// specialised; table.go, the hash table for sparse buckets.
+// specialised; table.go, the hash table for sparse buckets; deferred.go, the
+// scores of tied pairs and other even-sized tie blocks dealt last, straight
+// into the statistic, so that a few ties cost about what none do, and the
+// choice between that plan and the whole one.
 package exact
 
 import (
@@ -42,7 +46,6 @@ import (
 	"errors"
 	"fmt"
 	"math/bits"
-	"slices"
 	"sort"
 )
 
@@ -187,13 +190,19 @@ type Progress func(done, total int)
 // under one deal of a block fall in one bucket of the next layer, so the
 // work streams through a few arrays with no hashing.
 func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress) (*Distribution, error) {
-	s, err := newSpace(sizes, countsOf(blocks))
+	return permute(ctx, sizes, blocks, lim, progress, cheaper)
+}
+
+// permute is Permutation with the plans chosen by rule.
+func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress, rule planRule) (*Distribution, error) {
+	if err := fits(sizes, blocks); err != nil {
+		return nil, err
+	}
+	p, err := choose(sizes, blocks, lim, rule)
 	if err != nil {
 		return nil, err
 	}
-	if _, err := s.budget(lim, blocks); err != nil {
-		return nil, err
-	}
+	s := p.s
 	s.maxStates, s.maxWork = lim.MaxStates, lim.MaxWork
 	k := len(s.sizes)
 	start := newLayer(s, 0)
@@ -201,7 +210,7 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 	cur := start.list()
 	dealt := 0
 	st := s.newScratch()
-	for bi, b := range blocks {
+	for bi, b := range p.blocks {
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
@@ -212,7 +221,7 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 			}
 			from.p, from.table = nil, nil // free it as soon as it is used
 			if !s.dense && next.reached > lim.MaxStates {
-				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.n)}
+				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.all)}
 			}
 		}
 		cur = next.list()
@@ -220,11 +229,34 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 			layerBuilt(next)
 		}
 		dealt += b.Count
-		if progress != nil && (bi%8 == 7 || bi == len(blocks)-1) {
-			progress(dealt, s.n)
+		if progress != nil && (bi%8 == 7 || bi == len(p.blocks)-1) {
+			progress(dealt, s.all)
 		}
 	}
-	return s.finish(ctx, cur, st)
+	return p.finish(ctx, cur, st, progress)
+}
+
+// fits refuses scores whose statistic T = Σ (L/nᵢ)·sᵢ² could exceed 2⁶²:
+// each group's sum is at most that of the nᵢ largest scores.
+func fits(sizes []int, blocks []Block) error {
+	l, ok := lcmOf(sizes)
+	if !ok {
+		return &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+	}
+	var maxT float64
+	for _, n := range sizes {
+		var top float64 // the sum of the n largest scores
+		for j, left := len(blocks)-1, n; j >= 0 && left > 0; j-- {
+			c := min(left, blocks[j].Count)
+			top += float64(float64(c) * float64(blocks[j].Score))
+			left -= c
+		}
+		maxT += float64(float64(l/int64(n)) * top * top)
+	}
+	if maxT >= 1<<62 {
+		return &TooLargeError{"the statistic would overflow 62 bits"}
+	}
+	return nil
 }
 
 // countsOf lists how many scores each block holds.
@@ -241,37 +273,9 @@ func countsOf(blocks []Block) []int {
 // Permutation would refuse at once for lim (see screen): a cheap first
 // question before the scores are worked out.
 func Screen(sizes []int, counts []int, lim Limits) error {
-	s, err := newSpace(sizes, counts)
+	s, err := newSpace(sizes, counts, 0)
 	if err != nil {
 		return err
 	}
 	return s.screen(lim)
-}
-
-// finish turns the last layer, where every group is full, into the
-// distribution of T.
-func (s *space) finish(ctx context.Context, last []*bucket, st *scratch) (*Distribution, error) {
-	mass := map[int64]float64{}
-	for _, b := range last {
-		err := b.each(ctx, s.prefix[s.n], st.sum, func(p float64) {
-			var t int64
-			for i := range s.sizes {
-				t += s.weight[i] * st.sum[i] * st.sum[i]
-			}
-			mass[t] += p
-		})
-		if err != nil {
-			return nil, err
-		}
-	}
-	d := &Distribution{Stat: make([]int64, 0, len(mass))}
-	for t := range mass {
-		d.Stat = append(d.Stat, t)
-	}
-	slices.Sort(d.Stat)
-	d.Prob = make([]float64, len(d.Stat))
-	for i, t := range d.Stat {
-		d.Prob[i] = mass[t]
-	}
-	return d, nil
 }

@@ -122,13 +122,24 @@ func TestAgainstEnumeration(t *testing.T) {
 }
 
 // matchesEnumeration compares Permutation, with dense arrays where they fit
-// and with hash tables throughout, with complete enumeration to 1e-12.
+// and with hash tables throughout, each with every score dealt in the layers
+// and with the rarer parity's dealt last (when there are at most
+// maxDeferred of them), with complete enumeration to 1e-12.
 func matchesEnumeration(sizes []int, scores []int64) error {
 	want := bruteForce(sizes, scores)
-	for _, lim := range []Limits{{MaxCells: 1 << 22, MaxStates: 1 << 20}, {MaxStates: 1 << 20}} {
-		got, err := Permutation(context.Background(), sizes, blocksOf(scores), lim, nil)
+	for _, c := range []struct {
+		lim  Limits
+		rule planRule
+	}{
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, wholeOnly},
+		{Limits{MaxStates: 1 << 20}, wholeOnly},
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly},
+		{Limits{MaxStates: 1 << 20}, deferredOnly},
+	} {
+		lim := c.lim
+		got, err := permute(context.Background(), sizes, blocksOf(scores), lim, nil, c.rule)
 		if err != nil {
-			return fmt.Errorf("%v %v: %v", sizes, scores, err)
+			return fmt.Errorf("%v %v (plan %d): %v", sizes, scores, c.rule, err)
 		}
 		if len(got.Stat) != len(want) {
 			return fmt.Errorf("%v %v (%+v): %d attained values, enumeration has %d", sizes, scores, lim, len(got.Stat), len(want))
@@ -243,5 +254,47 @@ func TestOverflowRefused(t *testing.T) {
 	_, err := Permutation(context.Background(), []int{2, 2}, huge, Limits{MaxCells: 1 << 20, MaxStates: 1 << 20}, nil)
 	if !errors.Is(err, ErrTooLarge) {
 		t.Errorf("scores near 2³²: error %v, want one that says too large", err)
+	}
+}
+
+// TestTiedPairsDealtLast: with a few tied pairs (midranks ending in ½) the
+// cheaper plan deals them last, and its distribution equals the one that
+// deals every score in its place, beyond the sizes enumeration can check.
+func TestTiedPairsDealtLast(t *testing.T) {
+	for _, c := range []struct {
+		sizes []int
+		at    []int // the first rank of each tied pair
+	}{
+		{[]int{6, 6, 6, 6}, []int{10}},
+		{[]int{6, 6, 6, 6}, []int{3, 11}},
+		{[]int{4, 5, 6}, []int{1, 14}}, // ties at both ends
+		{[]int{15, 15, 15}, []int{20}},
+		{[]int{3, 3, 3, 3, 3}, []int{7}},
+	} {
+		n := 0
+		for _, s := range c.sizes {
+			n += s
+		}
+		blocks := tiedPairs(n, c.at...)
+		p, err := choose(c.sizes, blocks, benchLimits, cheaper)
+		if err != nil || !p.s.deferred {
+			t.Errorf("%v pairs at %v: not dealt last (%v)", c.sizes, c.at, err)
+			continue
+		}
+		whole, err1 := permute(context.Background(), c.sizes, blocks, benchLimits, nil, wholeOnly)
+		late, err2 := permute(context.Background(), c.sizes, blocks, benchLimits, nil, cheaper)
+		if err1 != nil || err2 != nil {
+			t.Fatalf("%v: %v, %v", c.sizes, err1, err2)
+		}
+		if !slices.Equal(whole.Stat, late.Stat) {
+			t.Errorf("%v pairs at %v: %d attained values dealing in place, %d dealing last", c.sizes, c.at, len(whole.Stat), len(late.Stat))
+			continue
+		}
+		for i := range whole.Stat {
+			if u, v := whole.Upper(whole.Stat[i]), late.Upper(late.Stat[i]); math.Abs(u-v) > 1e-12*max(u, 1e-300) && math.Abs(u-v) > 1e-15 {
+				t.Errorf("%v pairs at %v: P(T ≥ %d) = %v in place, %v last", c.sizes, c.at, whole.Stat[i], u, v)
+				break
+			}
+		}
 	}
 }

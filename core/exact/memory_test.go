@@ -27,7 +27,7 @@ func TestPlanBoundsMemory(t *testing.T) {
 		{"yes/no (60,70,80,90)", []int{60, 70, 80, 90}, distinct(300, 2)},
 	}
 	for _, c := range cases {
-		s, err := newSpace(c.sizes, countsOf(c.blocks))
+		s, err := newSpace(c.sizes, countsOf(c.blocks), 0)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -25,6 +25,7 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 	// cells' room each: they serve where the row tables are what is large,
 	// as with many small groups.
 	fig := s.plan(s.boxSize)
+	fig.boxCells = fig.cells
 	if fig.peak >= tooMany {
 		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
 	}
@@ -34,8 +35,9 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 		layable = min(layable, lim.MaxWork/rowCost)
 	}
 	if fig.rows <= layable && !fig.fit(lim) {
-		sh := s.newShape()
+		sh, boxCells := s.newShape(), fig.cells
 		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
+		fig.boxCells = boxCells
 	}
 	switch {
 	case fig.fit(lim):
@@ -56,7 +58,9 @@ func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
 
 // space describes the states: groups sorted by size, and the scores.
 type space struct {
-	n         int
+	n         int // the scores dealt in the layers
+	all       int // the groups' sizes added up: n, or more when some scores are dealt last (see deferred.go)
+	deferred  bool
 	sizes     []int // ascending
 	blocks    []Block
 	class     []int     // first group of the size class of each group
@@ -82,18 +86,19 @@ type space struct {
 	work      int // done in hash tables, in cells' worth (see hashCost)
 }
 
-func newSpace(sizes []int, counts []int) (*space, error) {
-	s := &space{sizes: slices.Sorted(slices.Values(sizes))}
+// newSpace describes the states of groups of these sizes dealt scores in
+// tie blocks of these counts, late more scores being dealt after the layers.
+func newSpace(sizes []int, counts []int, late int) (*space, error) {
+	s := &space{sizes: slices.Sorted(slices.Values(sizes)), deferred: late > 0}
 	for _, c := range counts {
 		s.n += c
 		s.cuts = append(s.cuts, s.n)
 	}
-	total := 0
 	for _, n := range s.sizes {
-		total += n
+		s.all += n
 	}
-	if total != s.n {
-		return nil, fmt.Errorf("exact: sizes add to %d but there are %d scores", total, s.n)
+	if s.all != s.n+late {
+		return nil, fmt.Errorf("exact: sizes add to %d but there are %d scores", s.all, s.n+late)
 	}
 	k := len(s.sizes)
 	if k < 2 {
@@ -112,8 +117,7 @@ func newSpace(sizes []int, counts []int) (*space, error) {
 }
 
 // prepare takes the scores and works out what the planner and the dealing
-// need, in time and memory linear in N: run only after the screen. It
-// refuses scores whose statistic would not fit in 62 bits.
+// need, in time and memory linear in N: run only after the screen.
 func (s *space) prepare(blocks []Block) error {
 	k := len(s.sizes)
 	s.blocks = blocks
@@ -131,17 +135,11 @@ func (s *space) prepare(blocks []Block) error {
 		return &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
 	}
 	s.weight = make([]int64, k)
-	var maxT float64
 	for i, n := range s.sizes {
 		s.weight[i] = l / int64(n)
-		top := float64(s.prefix[s.n] - s.prefix[s.n-n])
-		maxT += float64(float64(s.weight[i]) * top * top)
 		s.countBits[i] = uint(bits.Len(uint(n)))
 	}
-	if maxT >= 1<<62 {
-		return &TooLargeError{"the statistic would overflow 62 bits"}
-	}
-	s.logFact = make([]float64, s.n+1)
+	s.logFact = make([]float64, s.all+1)
 	for a := range s.logFact {
 		s.logFact[a] = dist.LogFactorial(a)
 	}
@@ -260,6 +258,7 @@ type figures struct {
 	layer       int // the cells of the largest layer
 	hashed      int // the largest layer held in hash tables: its states at most (see reachable), its buckets counted at hashBucket states each
 	cells, rows int // of all layers
+	boxCells    int // the cells of all layers by their boxes alone, laid out or not: a measure of work that every plan has (see choose)
 }
 
 // fit tells whether arrays of these figures keep within lim.
@@ -270,42 +269,52 @@ func (f figures) fit(lim Limits) bool {
 // plan adds up size(counts, t), the cells and rows of a bucket, over the
 // buckets of each layer.
 func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
-	k := len(s.sizes)
-	counts := make([]int, k)
 	var fig figures
 	before := 0 // the room of the layer before
 	for dealt, t := range s.cuts {
 		inLayer, layerCells, layerStates, widest := 0, 0, 0.0, 0
-		// every canonical count vector adding up to t: ascending within classes
-		var walk func(i, left int)
-		walk = func(i, left int) {
-			if i == k-1 {
-				if left > s.sizes[i] || (i > s.class[i] && left < counts[i-1]) {
-					return
-				}
-				counts[i] = left
-				c, r := size(counts, t)
-				inLayer, layerCells = min(inLayer+c+2*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
-				layerStates, widest = layerStates+s.reachable(counts, t, dealt+1)+hashBucket, max(widest, r)
-				fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
-				return
-			}
-			from := 0
-			if i > s.class[i] {
-				from = counts[i-1]
-			}
-			for c := from; c <= min(s.sizes[i], left); c++ {
-				counts[i] = c
-				walk(i+1, left-c)
-			}
-		}
-		walk(0, t)
+		s.countVectors(t, func(counts []int) bool {
+			c, r := size(counts, t)
+			inLayer, layerCells = min(inLayer+c+2*r+s.bucketRoom, tooMany), min(layerCells+c, tooMany)
+			layerStates, widest = layerStates+s.reachable(counts, t, dealt+1)+hashBucket, max(widest, r)
+			fig.cells, fig.rows = min(fig.cells+c, tooMany), min(fig.rows+r, tooMany)
+			return true
+		})
 		inLayer = min(inLayer+2*widest, tooMany) // the layer's scratch for laying out its widest bucket
 		fig.peak, fig.layer = max(fig.peak, min(before+inLayer+s.fixedRoom, tooMany)), max(fig.layer, layerCells)
 		fig.hashed = max(fig.hashed, int(min(layerStates, tooMany)))
 		before = inLayer
 	}
 	return fig
+}
+
+// countVectors calls fn with every canonical count vector adding up to t
+// (counts ascending within size classes), until fn says false.
+func (s *space) countVectors(t int, fn func(counts []int) bool) {
+	k := len(s.sizes)
+	counts := make([]int, k)
+	var walk func(i, left int) bool
+	walk = func(i, left int) bool {
+		from := 0
+		if i > s.class[i] {
+			from = counts[i-1]
+		}
+		if i == k-1 {
+			if left > s.sizes[i] || left < from {
+				return true
+			}
+			counts[i] = left
+			return fn(counts)
+		}
+		for c := from; c <= min(s.sizes[i], left); c++ {
+			counts[i] = c
+			if !walk(i+1, left-c) {
+				return false
+			}
+		}
+		return true
+	}
+	walk(0, t)
 }
 
 // reachable bounds the states of a bucket: the stored groups' sums that its
@@ -357,6 +366,10 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 		prefix[i+1] = prefix[i] + x
 	}
 	k := len(sorted)
+	all := 0 // the groups' room: more than n when some scores are dealt last
+	for _, size := range sorted {
+		all += size
+	}
 	worst := 1.0
 	t := 0
 	for levels, b := range blocks[:len(blocks)-1] { // layers exist after each block but the last
@@ -364,7 +377,7 @@ func EstimateStates(sizes []int, blocks []Block) float64 {
 		est := 1.0
 		for i := 0; i < k-1; i++ {
 			pairs := 0.0
-			for c := max(0, t-(n-sorted[i])); c <= min(sorted[i], t); c++ {
+			for c := max(0, t-(all-sorted[i])); c <= min(sorted[i], t); c++ {
 				lo := prefix[c]
 				hi := prefix[t] - prefix[t-c]
 				pairs += min(float64(hi-lo)+1, compositions(c, levels+1)) // the sums a count can have (see reachable)

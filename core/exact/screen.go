@@ -58,8 +58,8 @@ func (s *space) screen(lim Limits) error {
 	}
 	// V(t) for every t, one group at a time: multiplying by 1 + … + x^n is
 	// a moving sum over a window of n+1 coefficients.
-	v := make([]float64, s.n+1)
-	next := make([]float64, s.n+1)
+	v := make([]float64, s.all+1)
+	next := make([]float64, s.all+1)
 	v[0] = 1
 	degree := 0
 	merged := 1.0
