@@ -266,7 +266,7 @@ func (p *plan) finishWork(limit int) (work int, ok bool) {
 func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress Progress) (*Distribution, error) {
 	s := p.s
 	k := len(s.sizes)
-	mass := map[int64]float64{}
+	mass := newTable(1024, nil) // T's probabilities: T < 2⁶² is never the empty key
 	room, x := make([]int, k), make([]int64, k)
 	for j, b := range last {
 		adds := []addition{{sums: make([]int64, k), p: 1}}
@@ -286,7 +286,7 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 					v := x[i] + a.sums[i]
 					t += w * v * v
 				}
-				mass[t] += float64(q * a.p) // no fused multiply-add: the same bytes on every platform
+				mass.add(uint64(t), float64(q*a.p)) // no fused multiply-add: the same bytes on every platform
 			}
 		})
 		if err != nil {
@@ -296,14 +296,16 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 			progress(s.n+(s.all-s.n)*(j+1)/len(last), s.all)
 		}
 	}
-	d := &Distribution{Stat: make([]int64, 0, len(mass))}
-	for t := range mass {
-		d.Stat = append(d.Stat, t)
+	d := &Distribution{Stat: make([]int64, 0, mass.len())}
+	for _, e := range mass.slots {
+		if e.key != empty {
+			d.Stat = append(d.Stat, int64(e.key))
+		}
 	}
 	slices.Sort(d.Stat)
 	d.Prob = make([]float64, len(d.Stat))
 	for i, t := range d.Stat {
-		d.Prob[i] = mass[t]
+		d.Prob[i] = mass.get(uint64(t))
 	}
 	return d, nil
 }

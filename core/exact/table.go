@@ -70,6 +70,19 @@ func (l *table) add(key uint64, p float64) {
 	}
 }
 
+// get is the probability of key, 0 when it has none.
+func (l *table) get(key uint64) float64 {
+	mask := uint64(len(l.slots) - 1)
+	for i := mix(key) >> l.shift; ; i = (i + 1) & mask {
+		switch e := l.slots[i]; e.key {
+		case key:
+			return e.p
+		case empty:
+			return 0
+		}
+	}
+}
+
 // mix is the finaliser of MurmurHash3 (Appleby 2011): every bit of the key
 // moves every bit of the hash, so that keys that differ by a constant, as
 // successors do, do not crowd one stretch of slots.
