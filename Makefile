@@ -5,7 +5,7 @@ FUZZTIME ?= 10s
 # fuzz-once runs one fuzz test of one package for FUZZTIME
 fuzz-once = $(GO) test $(1) -run '^$$' -fuzz '^$(2)$$' -fuzztime $(FUZZTIME) -fuzzminimizetime 2s
 
-.PHONY: build serve edge edge-dev edge-deps test check test-deps test-go test-unit test-wasm test-arm64 vet fmt-check check-core fuzz bench bench-wasm reference clean
+.PHONY: build serve edge edge-dev edge-deps test check test-deps test-go test-unit test-wasm test-arm64 vet fmt-check check-core fuzz bench bench-wasm bench-page reference clean
 
 # build: write the static site and the WebAssembly module to dist/
 build:
@@ -109,6 +109,11 @@ bench:
 # bench-wasm: the core's benchmarks compiled to WebAssembly under Node (20 rounds, so the engine's optimising tier runs)
 bench-wasm:
 	PATH="$(WASMEXEC):$$PATH" GOOS=js GOARCH=wasm $(GO) test ./core/... -run '^$$' -bench . -benchtime 20x -benchmem
+
+# bench-page: the page's own figures in headless Chromium (load to the first result, 100,000 pasted rows, a
+# battery of 60 measures), by its performance marks, medians of 5
+bench-page: test-deps
+	$(GO) test ./tools/browsertest -run '^$$' -bench Page -benchtime 1x -timeout 30m
 
 # reference: regenerate testdata/reference/ with R and scipy (Debian: r-base-core, python3-scipy)
 reference:

@@ -31,7 +31,7 @@ const MaxNamedGroups = 12
 
 // ListLimit is the number of entries up to which the per-value ranking and
 // the tie table are part of the result; larger lists are served in pages by
-// Result.Page.
+// Result.Page. The measures of a battery share it.
 const ListLimit = 200_000
 
 // Group is the summary of one group, in input order.
@@ -226,12 +226,12 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	r.pairsAsked = s.pairs
 
 	r.TiesTotal = len(ranking.Ties)
-	r.RanksComplete = r.N <= ListLimit
+	r.RanksComplete = r.N <= s.listLimit
 	r.Ranks = []RankedValue{}
 	if r.RanksComplete {
 		r.Ranks = r.Page(ListRanks, 0, r.N).Ranks
 	}
-	r.TiesComplete = r.TiesTotal <= ListLimit
+	r.TiesComplete = r.TiesTotal <= s.listLimit
 	r.Ties = []rank.Tie{}
 	if r.TiesComplete && r.TiesTotal > 0 {
 		r.Ties = ranking.Ties

@@ -91,9 +91,10 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Pro
 			for i := range work {
 				one := s
 				one.read.Group, one.read.Measure = strconv.Itoa(t.GroupColumn), measures[i]
-				one.effectBudget = EffectBudget / len(measures) // ε²'s intervals share one analysis's budget
+				// ε²'s intervals and the lists of values share one analysis's budgets (the rest is paged)
+				one.effectBudget, one.listLimit = EffectBudget/len(measures), ListLimit/len(measures)
 				m := Measured{Measure: measures[i]}
-				mt, err := table.Parse(text, one.read)
+				mt, err := t.Remeasure(text, one.read)
 				if err == nil {
 					m.Measure = mt.Measure
 					m.Result, err = analyzeTable(ctx, mt, one, nil)

@@ -283,11 +283,13 @@ type settings struct {
 	adjust    adjust.Method
 	// effectBudget bounds the work of ε²'s interval (see EffectBudget)
 	effectBudget int
+	// listLimit bounds the values and tie blocks listed in the answer (see ListLimit)
+	listLimit int
 }
 
 // validate checks every option and fills in the defaults.
 func (o Options) validate() (settings, error) {
-	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}, effectBudget: EffectBudget}
+	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}, effectBudget: EffectBudget, listLimit: ListLimit}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
 		return s, &OptionError{"layout", o.Layout, "choose auto, wide, long or counts"}

@@ -155,6 +155,7 @@ addEventListener("hashchange", () => {
 // latest request wins.
 async function analyse() {
   const began = performance.now();
+  performance.mark("midrank:asked");
   clearTimeout(typingTimer); // an analysis asked for now makes the one waiting for a pause in typing needless
   setStale(true);
   keep();
@@ -187,8 +188,10 @@ async function analyse() {
     update({ result: body, tables: named(tables), battery: null, batteryTables: null, drill: null });
   }
   setStale(false);
-  // how long the last analysis took, for the browser tests' notes
+  // how long the last analysis took, for the browser tests' notes and make bench-page
   document.documentElement.dataset.analysisMs = Math.round(answered - began) + "+" + Math.round(performance.now() - answered);
+  performance.mark("midrank:shown");
+  performance.measure("midrank:analysis", "midrank:asked", "midrank:shown");
   setStatus(body.measures ? "Done: " + body.measures.length + " measures." : "Done: " + body.n + " values in " + body.k + " groups.");
 }
 

@@ -112,7 +112,18 @@ type Table struct {
 // The text is not copied; the returned Table does not refer to it. When the
 // columns chosen cannot be used, the error comes with a Table holding only
 // how far the reading got: its separator and the profile of its columns.
-func Parse(data []byte, opt Options) (*Table, error) {
+func Parse(data []byte, opt Options) (*Table, error) { return parse(data, opt, nil) }
+
+// Remeasure reads the same text as t again with other options, as for
+// another measure column of a long table, without profiling its columns
+// again (the costly part of a reading of many columns): t's profile is
+// shared, and neither reading changes it.
+func (t *Table) Remeasure(data []byte, opt Options) (*Table, error) {
+	return parse(data, opt, &t.Profile)
+}
+
+// parse is Parse with the columns' profile already made, or nil.
+func parse(data []byte, opt Options, profile *Profile) (*Table, error) {
 	if err := checkSize(data); err != nil {
 		return nil, err
 	}
@@ -132,7 +143,11 @@ func Parse(data []byte, opt Options) (*Table, error) {
 			Fix: "choose different marks"}
 	}
 	plan := planHeader(data, t.Separator)
-	t.Profile = profileOf(data, t.Separator, plan)
+	if profile != nil {
+		t.Profile = *profile
+	} else {
+		t.Profile = profileOf(data, t.Separator, plan)
+	}
 	cols, err := t.chooseColumns(data, opt, plan)
 	if note := plan.note(); note != "" {
 		t.Reason += "; " + note

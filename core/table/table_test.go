@@ -460,3 +460,24 @@ func TestTitlesAndTwoLineHeaders(t *testing.T) {
 		})
 	}
 }
+
+// TestRemeasure: reading another measure column with the profile of an
+// earlier reading gives the same table as reading it afresh.
+func TestRemeasure(t *testing.T) {
+	data := []byte("site,wait,stay,score\nA,12,3,4\nB,15,,5\nA,9,2,4\nC,30,7,1\nB,14,4,\n")
+	first, err := Parse(data, Options{Group: "site", Measure: "wait"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, measure := range []string{"stay", "score", "4"} {
+		opt := Options{Group: "site", Measure: measure}
+		want, err1 := Parse(data, opt)
+		got, err2 := first.Remeasure(data, opt)
+		if err1 != nil || err2 != nil {
+			t.Fatalf("%s: %v, %v", measure, err1, err2)
+		}
+		if !reflect.DeepEqual(got, want) {
+			t.Errorf("%s: remeasured\n%+v\nread afresh\n%+v", measure, got, want)
+		}
+	}
+}

@@ -1,0 +1,102 @@
+package browsertest
+
+import (
+	"slices"
+	"testing"
+
+	"github.com/chromedp/chromedp"
+)
+
+// runs is how many times each figure is taken; the median is reported.
+const runs = 5
+
+// BenchmarkPage measures the page in headless Chromium by its own
+// performance marks (site/app.js: "midrank:asked" when an analysis is asked
+// for, "midrank:shown" when its results are on screen): the median of five
+// runs of each, as a figure (make bench-page), never a pass mark.
+func BenchmarkPage(b *testing.B) {
+	b.Run("load to the demo's first result", func(b *testing.B) {
+		// a fresh browser each time: the module is fetched, compiled and run anew
+		figure(b, "ms/first-result", func() float64 {
+			page := start(b)
+			page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
+			return page.number(b, `performance.getEntriesByName("midrank:shown")[0].startTime`)
+		})
+	})
+	page := start(b)
+	page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
+	b.Run("100,000 rows pasted to results", func(b *testing.B) {
+		figure(b, "ms/result", func() float64 {
+			page.paste(b, `const sites = ["North", "South", "East", "West"];
+				let text = "site,minutes\n";
+				for (let i = 0; i < 100000; i++) text += sites[i % 4] + "," + ((i * 7919) % 240) + "." + (i % 10) + "\n";`)
+			page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
+			return page.number(b, sincePaste)
+		})
+	})
+	b.Run("60 measures × 5,000 rows × 8 groups", func(b *testing.B) {
+		figure(b, "ms/battery", func() float64 {
+			// the columns of numbers come from a fixed arithmetic sequence, so that every run is the same
+			page.paste(b, `let text = "unit," + Array.from({ length: 60 }, (_, j) => "item" + (j + 1)).join(",") + "\n";
+				for (let i = 0; i < 5000; i++) {
+					const row = ["U" + (i % 8 + 1)];
+					for (let j = 0; j < 60; j++) row.push(((i * 7919 + j * 104729) % 1000) / 10 + (i % 8) * (j % 3));
+					text += row.join(",") + "\n";
+				}`)
+			page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
+			page.number(b, `(() => {
+				document.getElementById("status").textContent = "";
+				const all = document.getElementById("measures-all");
+				all.checked = true;
+				all.dispatchEvent(new Event("change", { bubbles: true }));
+				return 0;
+			})()`)
+			page.waitFor(b, `document.getElementById("status").textContent === "Done: 60 measures."`)
+			split, _ := chromedp.Run(page.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.analysisMs`))
+			b.Logf("battery: until the answer + rendering, ms: %s", split)
+			return page.number(b, `performance.getEntriesByName("midrank:analysis").at(-1).duration`)
+		})
+		page.number(b, `document.getElementById("held-clear")?.click(); 0`)
+	})
+}
+
+// sincePaste is the time from the last paste to the results of the
+// analysis it started, by the page's marks.
+const sincePaste = `performance.getEntriesByName("midrank:shown").at(-1).startTime - performance.getEntriesByName("midrank:pasted").at(-1).startTime`
+
+// figure runs measure runs times and reports the median as unit.
+func figure(b *testing.B, unit string, measure func() float64) {
+	var got []float64
+	for range runs {
+		got = append(got, measure())
+	}
+	slices.Sort(got)
+	b.ReportMetric(got[len(got)/2], unit)
+	b.Logf("%s: %v", unit, got)
+}
+
+// number evaluates a JavaScript expression to a number.
+func (b *browser) number(tb testing.TB, expression string) float64 {
+	tb.Helper()
+	v, err := chromedp.Run(b.ctx, chromedp.Evaluate[float64](expression))
+	if err != nil {
+		tb.Fatalf("%s: %v", expression, err)
+	}
+	return v
+}
+
+// paste runs script, which builds a text in the variable text, and pastes
+// that text into the data box as a clipboard event, marking
+// "midrank:pasted" just before, so that the time is the page's, not the
+// driver's.
+func (b *browser) paste(tb testing.TB, script string) {
+	tb.Helper()
+	b.number(tb, `(() => {`+script+`
+		document.getElementById("status").textContent = "";
+		const clipboard = new DataTransfer();
+		clipboard.setData("text/plain", text);
+		performance.mark("midrank:pasted");
+		document.getElementById("data").dispatchEvent(new ClipboardEvent("paste", { clipboardData: clipboard, bubbles: true, cancelable: true }));
+		return text.length;
+	})()`)
+}
