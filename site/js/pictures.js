@@ -48,9 +48,9 @@ function drawValues(r, width, height) {
   }
   const middle = top + (height - top - bottom) / 2;
   label(svg, 14, middle, measure, height - top - bottom, { transform: `rotate(-90 14 ${middle})`, "text-anchor": "middle" });
-  $("plot-values-caption").textContent = "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
-    (drawEach ? "; every value is a marker beside its box, tied values side by side." : " (with " + r.n.toLocaleString() + " values, too many to draw each one).");
-  return svg;
+  const caption = "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
+    (drawEach ? "; every value is a marker beside its box, tied values side by side." : r.ranks_complete ? " (with " + r.n.toLocaleString() + " values, too many to draw each one)." : ".");
+  return { svg, caption };
 }
 
 function drawMeanRanks(r, width) {
@@ -74,14 +74,33 @@ function drawMeanRanks(r, width) {
   });
   svgEl("line", { x1: x(centre), x2: x(centre), y1: top, y2: height - bottom, stroke: "currentColor", "stroke-dasharray": "4 3" }, svg);
   svgText(svg, (left + width - right) / 2, height - 4, "mean rank", { "text-anchor": "middle" });
-  $("plot-ranks-caption").textContent = "Mean rank of each group, drawn from the dashed line at " + centre +
+  const caption = "Mean rank of each group, drawn from the dashed line at " + centre +
     ", the mean rank every group would have if the groups did not differ. Ranks run from 1 (smallest value) to " + r.n + ".";
-  return svg;
+  return { svg, caption };
+}
+
+// REPORT_WIDTH is the width, in pixels, of the pictures drawn for a report
+// rather than the screen.
+const REPORT_WIDTH = 720;
+
+// shownAt draws a picture into box id, its caption beside it.
+function shownAt(id, draw) {
+  drawAt(id, (width, height) => {
+    const { svg, caption } = draw(width, height);
+    $(id + "-caption").textContent = caption;
+    return svg;
+  });
 }
 
 export function renderPictures(state, changed) {
   if (!changed.has("result") || !state.result) return;
   const r = state.result;
-  drawAt("plot-values", (width, height) => drawValues(r, width, height));
-  drawAt("plot-ranks", (width) => drawMeanRanks(r, width));
+  shownAt("plot-values", (width, height) => drawValues(r, width, height));
+  shownAt("plot-ranks", (width) => drawMeanRanks(r, width));
+}
+
+// reportPictures are a result's pictures of its groups, drawn for a report
+// (as for a measure of a battery, which is not on screen): [{svg, caption}].
+export function reportPictures(r) {
+  return [drawValues(r, REPORT_WIDTH, 320), drawMeanRanks(r, REPORT_WIDTH)];
 }

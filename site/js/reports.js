@@ -3,7 +3,8 @@
 import { $, download } from "./dom.js";
 import { state } from "./state.js";
 import { formOptions } from "./settings.js";
-import { svgSource } from "./savepicture.js";
+import { svgOf, svgSource } from "./savepicture.js";
+import { reportPictures } from "./pictures.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
 
 // groupEditsText says which groups were shown under another name and which
@@ -22,14 +23,19 @@ function picture(id) {
   return svgSource(id).replace(/^<\?xml[^>]*>\n/, "") + "<p class=\"note\">" + escapeHTML($(id + "-caption").textContent) + "</p>";
 }
 
+// measurePictures are a battery measure's pictures, drawn for the report.
+function measurePictures(r) {
+  return reportPictures(r).map(({ svg, caption }) => svgOf(svg, caption) + "<p class=\"note\">" + escapeHTML(caption) + "</p>");
+}
+
 // htmlPage wraps a report's body: it runs nothing and loads nothing,
 // wherever it is opened.
-function htmlPage(title, version, body) {
+function htmlPage(title, version, body, wide = false) {
   const settings = formOptions();
   return ["<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">",
     "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">",
     "<title>" + escapeHTML(title) + "</title>",
-    "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:60rem;margin:2rem auto;padding:0 1rem;color:#1f2328}",
+    "<style>body{font:15px/1.5 system-ui,sans-serif;max-width:" + (wide ? "80rem" : "60rem") + ";margin:2rem auto;padding:0 1rem;color:#1f2328}",
     "table{border-collapse:collapse;margin:.5rem 0 1rem}th,td{border-bottom:1px solid #d9d4c7;padding:.2rem .6rem;text-align:right}",
     "th:first-child,td:first-child{text-align:left}svg{max-width:100%;height:auto}.note{color:#555d66}</style></head><body>",
     "<h1>" + escapeHTML(title) + "</h1>",
@@ -88,7 +94,7 @@ function batteryHTML() {
   return htmlPage("Kruskal–Wallis H test, " + b.measures.length + " measures", b.version, [
     "<p><strong>" + escapeHTML(b.summary) + "</strong></p>",
     htmlOf(state.batteryTables.overview), picture("plot-battery"), "<p class=\"note\">" + escapeHTML(note) + "</p>",
-    ...shown.flatMap(({ m, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(m, tables, 3)])]);
+    ...shown.flatMap(({ m, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(m, tables, 3), ...measurePictures(m)])], true);
 }
 
 function batteryMarkdown() {

@@ -13,15 +13,14 @@ const PAPER = { ink: "#1f2328", grid: "#d9d4c7", background: "#ffffff" };
 // standalone copies a drawn picture with what it needs outside the page:
 // its colours on a white background, a font, its title drawn above it, and
 // its caption as its <title>.
-function standalone(id) {
-  const drawn = $(id).querySelector("svg");
+function standalone(drawn, caption) {
   const box = drawn.viewBox.baseVal;
   const width = box.width, height = box.height + TITLE_HEIGHT;
   const svg = svgEl("svg", { viewBox: `0 0 ${width} ${height}`, width, height, role: "img", color: PAPER.ink });
   const style = svgEl("style", {}, svg);
   style.textContent = ".grid { stroke: " + PAPER.grid + "; } "
     + "text { font-family: system-ui, -apple-system, 'Segoe UI', Roboto, 'Helvetica Neue', Arial, sans-serif; }";
-  svgEl("title", {}, svg).textContent = $(id + "-caption").textContent;
+  svgEl("title", {}, svg).textContent = caption;
   svgEl("rect", { width, height, fill: PAPER.background }, svg);
   svgText(svg, 8, 19, drawn.dataset.title, { "font-size": 15, "font-weight": 600 });
   const body = svgEl("g", { transform: `translate(0 ${TITLE_HEIGHT})` }, svg);
@@ -29,14 +28,25 @@ function standalone(id) {
   return svg;
 }
 
-// svgSource is a drawn picture as a standalone SVG file.
+// onScreen is the picture drawn in box id and its caption.
+function onScreen(id) {
+  return standalone($(id).querySelector("svg"), $(id + "-caption").textContent);
+}
+
+// svgOf is a picture, drawn or on screen, as standalone SVG markup, without
+// the XML declaration (for a report's page).
+export function svgOf(drawn, caption) {
+  return new XMLSerializer().serializeToString(standalone(drawn, caption));
+}
+
+// svgSource is a picture on screen as a standalone SVG file.
 export function svgSource(id) {
-  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(standalone(id));
+  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(onScreen(id));
 }
 
 // savePNG draws a picture at twice its size and saves it as PNG.
 function savePNG(id) {
-  const svg = standalone(id);
+  const svg = onScreen(id);
   const box = svg.viewBox.baseVal;
   const image = new Image();
   const url = URL.createObjectURL(new Blob([new XMLSerializer().serializeToString(svg)], { type: "image/svg+xml" }));

@@ -685,7 +685,16 @@ func TestPage(t *testing.T) {
 			if !strings.Contains(report, "<h2>"+m.Measure+"</h2>") || !strings.Contains(report, html.EscapeString(m.Result.ResultLine)) {
 				t.Errorf("the HTML report lacks %s in full", m.Measure)
 			}
+			// each measure's pictures, drawn for the report from its own figures
+			section := report[strings.Index(report, "<h2>"+m.Measure+"</h2>"):]
+			if next := strings.Index(section[4:], "<h2>"); next >= 0 {
+				section = section[:next+4]
+			}
+			if strings.Count(section, "<svg") != 2 || !strings.Contains(section, "Mean rank of each group") || !strings.Contains(section, ">"+m.Result.Groups[0].Label+"<") {
+				t.Errorf("the HTML report's section on %s lacks its two pictures", m.Measure)
+			}
 		}
+		keep(t, "midrank-measures-report.html", report)
 		if _, err := chromedp.Run(b.ctx, chromedp.SetValue("#battery-report", "differ")); err != nil {
 			t.Fatal(err)
 		}
