@@ -96,6 +96,7 @@ fuzz:
 	$(call fuzz-once,./core/jsonlite,FuzzParseObject) || $(call fuzz-once,./core/jsonlite,FuzzParseObject)
 	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
 	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
+	$(call fuzz-once,./core/trend,FuzzAgainstEnumeration) || $(call fuzz-once,./core/trend,FuzzAgainstEnumeration)
 	$(call fuzz-once,./core,FuzzPValues) || $(call fuzz-once,./core,FuzzPValues)
 	$(call fuzz-once,./core/tables,FuzzTables) || $(call fuzz-once,./core/tables,FuzzTables)
 	$(call fuzz-once,./core/sheet,FuzzOpen) || $(call fuzz-once,./core/sheet,FuzzOpen)

@@ -98,6 +98,7 @@ type Result struct {
 	TiesTotal              int                 `json:"ties_total"`
 	TiesComplete           bool                `json:"ties_complete"` // false: ties is empty, ask Page for them
 	PostHoc                *PostHoc            `json:"posthoc"`       // null when no post-hoc method was asked for
+	Trend                  *Trend              `json:"trend"`         // null when no trend test was asked for (or the values cannot vary)
 	Warnings               []string            `json:"warnings"`
 	Decision               string              `json:"decision"`
 	// ResultLine is the result in one line, as reports write it:
@@ -224,6 +225,11 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		return nil, err
 	}
 	r.pairsAsked = s.pairs
+	if s.trend != "" {
+		if r.Trend, err = testTrend(ctx, s, ranking, t.Labels); err != nil {
+			return nil, err
+		}
+	}
 
 	r.TiesTotal = len(ranking.Ties)
 	r.RanksComplete = r.N <= s.listLimit
@@ -248,6 +254,9 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		for _, g := range r.Groups {
 			facts.Medians, facts.Q1, facts.Q3 = append(facts.Medians, g.Median), append(facts.Q1, g.Q1), append(facts.Q3, g.Q3)
 		}
+	}
+	if tr := r.Trend; tr != nil {
+		facts.Trend = &report.TrendFacts{Order: tr.Order, Alternative: tr.Alternative, J: tr.Statistic, Z: tr.Z, P: tr.P, Method: tr.PMethod, Tau: tr.TauB, Size: tr.TauBSize}
 	}
 	if mc := r.MonteCarlo; mc != nil {
 		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh

@@ -370,7 +370,7 @@ func TestRankedPage(t *testing.T) {
 // option parser, the first is the default, and every label is words.
 func TestMenus(t *testing.T) {
 	defaults := Defaults()
-	firsts := map[string]string{"pvalue": defaults.PValue, "posthoc": defaults.PostHoc, "adjust": defaults.Adjust, "adjust_across": defaults.AdjustAcross}
+	firsts := map[string]string{"pvalue": defaults.PValue, "posthoc": defaults.PostHoc, "adjust": defaults.Adjust, "adjust_across": defaults.AdjustAcross, "trend": defaults.Trend}
 	for _, m := range Menus {
 		if m.Choices[0].Key != firsts[m.Option] {
 			t.Errorf("%s: first choice %q, default %q", m.Option, m.Choices[0].Key, firsts[m.Option])

@@ -99,6 +99,8 @@ func Encode(r *Result) ([]byte, error) {
 	w.BoolMember("ties_complete", r.TiesComplete)
 	w.Key("posthoc")
 	writePostHoc(&w, r.PostHoc)
+	w.Key("trend")
+	writeTrend(&w, r.Trend)
 	w.Key("warnings")
 	writeStrings(&w, r.Warnings)
 	w.StringMember("decision", r.Decision)

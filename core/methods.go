@@ -7,6 +7,7 @@ import (
 	"midrank/core/adjust"
 	"midrank/core/jsonlite"
 	"midrank/core/posthoc"
+	"midrank/core/trend"
 )
 
 // PValueMethod is how the p-value is found, named by its request key.
@@ -33,6 +34,14 @@ var pvalueLabels = map[PValueMethod]string{
 // NoPairs is the posthoc key that asks for no pairwise comparison.
 const NoPairs = "none"
 
+// NoTrend is the trend key that asks for no trend test.
+const NoTrend = "none"
+
+// trendLabels name the trend test's alternatives in a menu.
+var trendLabels = map[trend.Alternative]string{
+	trend.Increasing: "values rise along the order", trend.Decreasing: "values fall along the order", trend.TwoSided: "values rise or fall along the order",
+}
+
 // Choice is one entry of a menu: the request key and the words shown.
 type Choice struct{ Key, Label string }
 
@@ -51,6 +60,7 @@ var Menus = []Menu{
 	{"posthoc", append(choices(posthoc.Methods, posthoc.Method.Label), Choice{NoPairs, "no pairwise comparison"})},
 	{"adjust", choices(adjust.Methods, adjust.Method.Label)},
 	{"adjust_across", choices(AcrossMethods, adjust.Method.Label)},
+	{"trend", append([]Choice{{NoTrend, "no trend test"}}, choices(trend.Alternatives, func(a trend.Alternative) string { return trendLabels[a] })...)},
 }
 
 func choices[M ~string](methods []M, label func(M) string) []Choice {

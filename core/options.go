@@ -11,6 +11,7 @@ import (
 	"midrank/core/jsonlite"
 	"midrank/core/posthoc"
 	"midrank/core/table"
+	"midrank/core/trend"
 )
 
 // Options are the settings of one analysis. The JSON names are the request
@@ -36,6 +37,10 @@ type Options struct {
 	Seed         *uint64  `json:"seed,omitempty"`          // Monte Carlo seed, default 1
 	PostHoc      string   `json:"posthoc,omitempty"`       // dunn (default), conover, dscf, mann-whitney, none
 	Adjust       string   `json:"adjust,omitempty"`        // holm (default), bonferroni, sidak, hochberg, bh, by, none
+	// Trend asks for the Jonckheere–Terpstra test along the groups' order
+	// (the data's, or Order's): none (default), increasing, decreasing or
+	// two-sided.
+	Trend string `json:"trend,omitempty"`
 
 	// Group edits, each naming groups by their labels as written in the data
 	// (see table.Edits): the groups to put first, in order; the groups to
@@ -75,7 +80,8 @@ func (o Options) ForLabels(labels []string) Options {
 func Defaults() Options {
 	seed := uint64(DefaultSeed)
 	return Options{Layout: "auto", Separator: "auto", Decimal: "auto", Thousands: "auto", Alpha: DefaultAlpha, PValue: Keys("pvalue")[0],
-		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0], AdjustAcross: Keys("adjust_across")[0]}
+		Resamples: DefaultResamples, Seed: &seed, PostHoc: Keys("posthoc")[0], Adjust: Keys("adjust")[0], AdjustAcross: Keys("adjust_across")[0],
+		Trend: Keys("trend")[0]}
 }
 
 // OptionError is a setting that cannot be used.
@@ -116,7 +122,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			continue
 		}
 		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "count": &o.Count, "sheet": &o.Sheet,
-			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust, "adjust_across": &o.AdjustAcross}
+			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust, "adjust_across": &o.AdjustAcross, "trend": &o.Trend}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
 				return fmt.Errorf("%q must be a string", name)
@@ -245,7 +251,7 @@ func (o Options) write(w *jsonlite.Writer) {
 		w.Key("measures")
 		w.Strings(o.Measures)
 	}
-	for _, f := range []struct{ name, v string }{{"adjust_across", o.AdjustAcross}, {"posthoc", o.PostHoc}, {"adjust", o.Adjust}} {
+	for _, f := range []struct{ name, v string }{{"adjust_across", o.AdjustAcross}, {"posthoc", o.PostHoc}, {"adjust", o.Adjust}, {"trend", o.Trend}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -281,6 +287,7 @@ type settings struct {
 	pairs     bool // a pairwise comparison was asked for, by posthoc
 	posthoc   posthoc.Method
 	adjust    adjust.Method
+	trend     trend.Alternative // "" when no trend test was asked for
 	// effectBudget bounds the work of ε²'s interval (see EffectBudget)
 	effectBudget int
 	// listLimit bounds the values and tie blocks listed in the answer (see ListLimit)
@@ -341,6 +348,12 @@ func (o Options) validate() (settings, error) {
 	s.pairs = s.posthoc != NoPairs
 	if s.adjust, err = choose[adjust.Method]("adjust", o.Adjust); err != nil {
 		return s, err
+	}
+	if s.trend, err = choose[trend.Alternative]("trend", o.Trend); err != nil {
+		return s, err
+	}
+	if s.trend == NoTrend {
+		s.trend = ""
 	}
 	s.resamples = o.Resamples
 	switch {

@@ -40,6 +40,9 @@ type Facts struct {
 	Seed      uint64
 	Low, High float64 // the 99% interval
 
+	// the trend along the groups' order, when tested
+	Trend *TrendFacts
+
 	// pairwise comparisons, when made
 	PairMethod  string // the procedure in words, "" when none was run
 	AdjustName  string // how the family was controlled, in words
@@ -114,6 +117,9 @@ func Decision(f Facts) string {
 			Number(f.Alpha))
 	}
 	fmt.Fprintf(&b, "The effect size ε² = %s%s is %s by common benchmarks. ", display.Effect.Format(f.Epsilon), EpsilonInterval(f.EpsilonInterval), f.Size)
+	if f.Trend != nil {
+		b.WriteString(TrendSentence(*f.Trend, f.Alpha))
+	}
 	if f.PairMethod != "" {
 		writePairs(&b, f)
 	}

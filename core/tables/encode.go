@@ -12,12 +12,14 @@ var unitNames = [...]string{"", "measure"}
 
 // Encode writes tables as the JSON the page renders from:
 //
-//	{"figures": table, "groups": table, "pairs": table}
+//	{"figures": table, "trend": table, "groups": table, "levels": table, "pairs": table}
 //
 // (a table missing from tables is left out), where a table is
 //
-//	{"title", "note", "columns": [{"key", "heading", "unit", "show"}, …],
+//	{"title", "note", "list", "columns": [{"key", "heading", "unit", "show"}, …],
 //	 "values": [[…], …], "text": [[…], …]}
+//
+// ("list": one row of figures that reads down the page)
 //
 // with one array of values (full precision, for files) and one of the
 // values as shown (for people) per row. A value that is not finite is an
@@ -38,6 +40,7 @@ func writeTable(w *jsonlite.Writer, t Table) {
 	w.BeginObject()
 	w.StringMember("title", t.Title)
 	w.StringMember("note", t.Note)
+	w.BoolMember("list", t.List)
 	w.Key("columns")
 	w.BeginArray()
 	for _, c := range t.Columns {

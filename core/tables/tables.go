@@ -17,6 +17,7 @@ import (
 	"midrank/core/adjust"
 	"midrank/core/display"
 	"midrank/core/kruskal"
+	"midrank/core/report"
 )
 
 // Unit says what a column's numbers are measured in.
@@ -41,11 +42,14 @@ type Column struct {
 // Table is a table of results: its columns and, per row, one value a column
 // (float64, int, string, bool or nil for undefined) and the value as shown.
 type Table struct {
-	Name    string // "figures", "groups" or "pairs"
+	Name    string // "figures", "trend", "groups", "levels" or "pairs"
 	Title   string
 	Note    string // what the reader needs to read the table, "" when nothing
 	Columns []Column
 	Rows    [][]Cell
+	// List: one row of figures about one thing, which reads down the page
+	// (heading, value) rather than across
+	List bool
 }
 
 // Cell is one value of a table with the text that shows it.
@@ -90,6 +94,27 @@ var figureColumns = []column[*core.Result]{
 	{Column{"tie_correction", "Tie correction C", NoUnit, display.Figure}, func(r *core.Result) any { return r.TieCorrection }},
 	{Column{"h_uncorrected", "H before the correction", NoUnit, display.Statistic}, func(r *core.Result) any { return r.HUncorrected }},
 }
+
+// trendColumns are the trend test's figures, one row.
+var trendColumns = []column[*core.Trend]{
+	{Column{"order", "Order tested", NoUnit, display.Text}, func(t *core.Trend) any { return strings.Join(t.Order, ", then ") }},
+	{Column{"alternative", "Trend looked for", NoUnit, display.Text}, func(t *core.Trend) any { return words{t.Alternative, trendWords[t.Alternative]} }},
+	{Column{"statistic", "J (Jonckheere–Terpstra)", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Statistic }},
+	{Column{"expected", "J expected with no trend", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Expected }},
+	{Column{"z", "z, corrected for ties", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Z }},
+	{Column{"p", "p-value", NoUnit, display.PValue}, func(t *core.Trend) any { return t.P }},
+	{Column{"p_method", "How p was found", NoUnit, display.Text}, func(t *core.Trend) any { return words{t.PMethod, trendMethodWords[t.PMethod]} }},
+	{Column{"exact_critical_value", "J needed for significance (exact)", NoUnit, display.Statistic}, func(t *core.Trend) any { return optional(t.CriticalExact) }},
+	{Column{"significant", "Significant at the chosen level", NoUnit, display.Flag}, func(t *core.Trend) any { return t.Significant }},
+	{Column{"tau_b", "Kendall's τ_b, order with values", NoUnit, display.Effect}, func(t *core.Trend) any { return t.TauB }},
+	{Column{"tau_b_size", "τ_b in words", NoUnit, display.Text}, func(t *core.Trend) any { return t.TauBSize }},
+}
+
+// trendWords and trendMethodWords put the trend test's keys into words.
+var (
+	trendWords       = map[string]string{"increasing": "rising along the order (one-sided)", "decreasing": "falling along the order (one-sided)", "two-sided": "rising or falling (two-sided)"}
+	trendMethodWords = map[string]string{"exact": "exact permutation", "asymptotic": "normal approximation"}
+)
 
 // groupColumns are the groups table's columns.
 var groupColumns = []column[groupRow]{
@@ -177,10 +202,14 @@ func optional[T any](v *T) any {
 }
 
 // Of gives the tables of an analysis in the order a report shows them: the
-// test's figures, the groups, for a table of counts the groups level by
+// test's figures, the trend test when asked for, the groups, for a table of counts the groups level by
 // level and, when pairs were compared, the pairs.
 func Of(r *core.Result) []Table {
-	out := []Table{Figures(r), Groups(r)}
+	out := []Table{Figures(r)}
+	if r.Trend != nil {
+		out = append(out, Trend(r))
+	}
+	out = append(out, Groups(r))
 	if r.Levels != nil {
 		out = append(out, Levels(r))
 	}
@@ -197,7 +226,18 @@ func Figures(r *core.Result) Table {
 		note += fmt.Sprintf(" ε²'s interval is a percentile bootstrap (%s resamples within each group, seed %d). With small groups it is narrower than it should be: in a simulation of three groups of 10 values the 95%% interval held the true ε² in only 85%% of samples.",
 			display.Thousands(int64(ci.Resamples)), ci.Seed)
 	}
-	return build("figures", "Test figures", note, r.Input.Measure, figureColumns, []*core.Result{r})
+	t := build("figures", "Test figures", note, r.Input.Measure, figureColumns, []*core.Result{r})
+	t.List = true
+	return t
+}
+
+// Trend is the table of the trend test's figures, one row; call it only
+// when r.Trend is not nil.
+func Trend(r *core.Result) Table {
+	note := r.Trend.Reason + " τ_b in words " + core.TauSizeRule() + ". " + report.TrendOrderCaution
+	t := build("trend", "Trend along the groups' order", note, "", trendColumns, []*core.Trend{r.Trend})
+	t.List = true
+	return t
 }
 
 // Groups is the table of the groups.

@@ -34,7 +34,7 @@ export function pageTable(element, table, { heading, rowClass, order } = {}) {
   element.replaceChildren(caption, thead, tbody);
 }
 
-// figureList fills a <dl> with a one-row table (the test's figures), each
+// figureList fills a <dl> with a list of figures (a one-row table), each
 // value marked with its key.
 export function figureList(element, table) {
   element.replaceChildren(...table.columns.map((c, i) => {
@@ -69,10 +69,10 @@ export function escapeHTML(s) {
   return String(s).replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]);
 }
 
-// rowsOf gives a table's headings and rows as shown; a one-row table (the
-// figures) is turned to run down the page: figure, value.
+// rowsOf gives a table's headings and rows as shown; a list of figures (one
+// row) is turned to run down the page: figure, value.
 function rowsOf(table) {
-  if (table.name === "figures") {
+  if (table.list) {
     return { head: ["Figure", "Value"], rows: table.columns.map((c, i) => [c.heading, table.text[0][i]]) };
   }
   return { head: table.columns.map((c) => c.heading), rows: table.text };

@@ -60,7 +60,7 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	}
 }
 
-// writeTable prints a table of results as the core defines it: the test's
+// writeTable prints a table of results as the core defines it: a list of
 // figures one to a line, other tables as columns with a heading line; the
 // letters of the groups, when there are pairs, follow the groups.
 func writeTable(w io.Writer, t tables.Table) {
@@ -68,7 +68,7 @@ func writeTable(w io.Writer, t tables.Table) {
 	if t.Note != "" {
 		fmt.Fprintln(w, wrap(t.Note, 78, "  "))
 	}
-	if t.Name == "figures" {
+	if t.List {
 		tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 		for i, c := range t.Columns {
 			fmt.Fprintf(tw, "  %s\t%s\n", c.Heading, t.Rows[0][i].Text)

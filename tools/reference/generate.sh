@@ -19,4 +19,5 @@ Rscript tools/reference/padjust.R "$out/padjust.tsv"
 Rscript tools/reference/wilcox.R "$out"
 /usr/bin/python3 tools/reference/epsilon_bootstrap.py "$out/epsilon_bootstrap.tsv"
 Rscript tools/reference/battery.R testdata/battery
+Rscript tools/reference/trend.R testdata/trend
 echo "wrote $out"
