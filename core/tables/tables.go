@@ -99,15 +99,33 @@ var figureColumns = []column[*core.Result]{
 var trendColumns = []column[*core.Trend]{
 	{Column{"order", "Order tested", NoUnit, display.Text}, func(t *core.Trend) any { return strings.Join(t.Order, ", then ") }},
 	{Column{"alternative", "Trend looked for", NoUnit, display.Text}, func(t *core.Trend) any { return words{t.Alternative, trendWords[t.Alternative]} }},
-	{Column{"statistic", "J (Jonckheere–Terpstra)", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Statistic }},
-	{Column{"expected", "J expected with no trend", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Expected }},
+	{Column{"statistic", "J (Jonckheere–Terpstra)", NoUnit, display.Figure}, func(t *core.Trend) any { return t.Statistic }},
+	{Column{"expected", "J expected with no trend", NoUnit, display.Figure}, func(t *core.Trend) any { return t.Expected }},
 	{Column{"z", "z, corrected for ties", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Z }},
 	{Column{"p", "p-value", NoUnit, display.PValue}, func(t *core.Trend) any { return t.P }},
 	{Column{"p_method", "How p was found", NoUnit, display.Text}, func(t *core.Trend) any { return words{t.PMethod, trendMethodWords[t.PMethod]} }},
-	{Column{"exact_critical_value", "J needed for significance (exact)", NoUnit, display.Statistic}, func(t *core.Trend) any { return optional(t.CriticalExact) }},
+	{Column{"exact_critical_value", "J needed for significance (exact)", NoUnit, display.Figure}, trendCritical},
 	{Column{"significant", "Significant at the chosen level", NoUnit, display.Flag}, func(t *core.Trend) any { return t.Significant }},
 	{Column{"tau_b", "Kendall's τ_b, order with values", NoUnit, display.Effect}, func(t *core.Trend) any { return t.TauB }},
 	{Column{"tau_b_size", "τ_b in words", NoUnit, display.Text}, func(t *core.Trend) any { return t.TauBSize }},
+}
+
+// trendCritical is the exact critical J, or why there is none.
+func trendCritical(t *core.Trend) any {
+	switch {
+	case t.PMethod != "exact":
+		return words{"", "not computed"}
+	case t.CriticalExact == nil:
+		return words{"", "none reachable"}
+	}
+	return *t.CriticalExact
+}
+
+// trendCriticalHeadings say which side of the critical J is significant.
+var trendCriticalHeadings = map[string]string{
+	"increasing": "Exact: significant from J of",
+	"decreasing": "Exact: significant up to J of",
+	"two-sided":  "Exact: significant from J of (or as far below J expected)",
 }
 
 // trendWords and trendMethodWords put the trend test's keys into words.
@@ -237,6 +255,11 @@ func Trend(r *core.Result) Table {
 	note := r.Trend.Reason + " τ_b in words " + core.TauSizeRule() + ". " + report.TrendOrderCaution
 	t := build("trend", "Trend along the groups' order", note, "", trendColumns, []*core.Trend{r.Trend})
 	t.List = true
+	for i := range t.Columns {
+		if t.Columns[i].Key == "exact_critical_value" {
+			t.Columns[i].Heading = trendCriticalHeadings[r.Trend.Alternative]
+		}
+	}
 	return t
 }
 

@@ -1,5 +1,5 @@
-// The results: the decision, the test's figures, the groups, the pairs
-// and the notes, from the module's answer and its tables of results.
+// The results: the decision, the test's figures, the trend test, the
+// groups, the pairs and the notes, from the module's answer and its tables of results.
 import { $ } from "./dom.js";
 import { figureList, pageTable } from "./tableview.js";
 import { update } from "./state.js";
@@ -29,6 +29,11 @@ export function renderResults(state, changed) {
     figureList($("figures"), t.figures);
     $("figures-note").textContent = t.figures.note;
     $("method-reason").textContent = r.p_method_reason;
+    $("trend-box").hidden = !t.trend;
+    if (t.trend) {
+      figureList($("trend-figures"), t.trend);
+      $("trend-note").textContent = t.trend.note;
+    }
     pageTable($("groups-table"), t.groups);
     const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
     $("notes").replaceChildren(...notes);

@@ -1,7 +1,7 @@
 // The settings on the form, by the module's request keys.
 import { $ } from "./dom.js";
 
-export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust"];
+export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust", "trend"];
 const numeric = new Set(["alpha", "resamples", "seed"]);
 
 // Several measures: the columns ticked, kept by key while the text's

@@ -792,6 +792,46 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("a trend along the groups' order is tested, shown and reported as the core does", func(t *testing.T) {
+		// R's warpbreaks: breaks by tension L, M, H (testdata/trend), whose Kendall z, −3.34, core/trend checks against R's cor.test
+		data, err := os.ReadFile("../../testdata/trend/warpbreaks.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := core.Analyze(data, core.Options{Trend: "decreasing"})
+		if err != nil || r.Trend == nil {
+			t.Fatal(err)
+		}
+		want := tables.Trend(r)
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#trend", "decreasing")); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		shown, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](`[...document.querySelectorAll("#trend-figures dd")].map((d) => d.textContent)`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, c := range want.Columns {
+			if i >= len(shown) || shown[i] != want.Rows[0][i].Text {
+				t.Errorf("trend %s shown as %q, core %q", c.Key, shown, want.Rows[0][i].Text)
+				break
+			}
+		}
+		if got := b.text(t, "#decision"); !strings.Contains(got, "the values tend to fall: the Jonckheere–Terpstra test") {
+			t.Errorf("decision %q", got)
+		}
+		if report := b.saved(t, "save-html"); !strings.Contains(report, "Trend along the groups&#39; order") || !strings.Contains(report, want.Rows[0][4].Text) {
+			t.Errorf("the HTML report lacks the trend table")
+		}
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#trend", "none")); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		if hidden, _ := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("trend-box").hidden`)); !hidden {
+			t.Error("the trend stays on screen when none is asked for")
+		}
+	})
+
 	t.Run("a bad cell is reported with its place", func(t *testing.T) {
 		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\n")
 		if got := b.text(t, "#problem"); !strings.Contains(got, "line 3, column 2") || !strings.Contains(got, `"five"`) {
