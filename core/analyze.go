@@ -263,6 +263,9 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	}
 	if ph := r.PostHoc; ph != nil {
 		facts.PairMethod, facts.AdjustName, facts.PairsTested = ph.Method.Name(), ph.Adjust.Name(), len(ph.Pairs)
+		if ph.Reference != nil {
+			facts.Reference = *ph.Reference
+		}
 		for _, p := range ph.Pairs {
 			if !p.Significant {
 				continue

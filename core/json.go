@@ -2,7 +2,6 @@ package core
 
 import (
 	"errors"
-	"slices"
 	"strconv"
 
 	"midrank/core/jsonlite"
@@ -150,53 +149,6 @@ func writeTies(w *jsonlite.Writer, ties []rank.Tie) {
 		w.EndObject()
 	}
 	w.EndArray()
-}
-
-func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
-	if ph == nil {
-		w.Null()
-		return
-	}
-	w.BeginObject()
-	w.StringMember("method", string(ph.Method))
-	w.StringMember("adjust", string(ph.Adjust))
-	w.FloatMember("confidence", ph.Confidence)
-	w.BoolMember("intervals_together", ph.Together)
-	w.Key("pairs")
-	w.BeginArray()
-	for _, p := range ph.Pairs {
-		w.BeginObject()
-		w.StringMember("a", p.A)
-		w.StringMember("b", p.B)
-		w.OptFloatMember("statistic", p.Statistic)
-		w.OptFloatMember("p", p.P)
-		w.OptFloatMember("p_adjusted", p.PAdjusted)
-		w.BoolMember("significant", p.Significant)
-		w.BoolMember("exact", p.Exact)
-		for _, f := range []struct {
-			name string
-			v    float64
-		}{{"probability_of_superiority", p.ProbSuperiority}, {"cliffs_delta", p.CliffsDelta},
-			{"hodges_lehmann", p.Shift}, {"hodges_lehmann_low", p.ShiftLow}, {"hodges_lehmann_high", p.ShiftHigh}} {
-			w.Key(f.name)
-			w.Float(f.v)
-		}
-		w.EndObject()
-	}
-	w.EndArray()
-	w.Key("letters")
-	w.BeginObject()
-	labels := make([]string, 0, len(ph.Letters))
-	for l := range ph.Letters {
-		labels = append(labels, l)
-	}
-	slices.Sort(labels) // as encoding/json orders map keys
-	for _, l := range labels {
-		w.Key(l)
-		w.String(ph.Letters[l])
-	}
-	w.EndObject()
-	w.EndObject()
 }
 
 func writeInput(w *jsonlite.Writer, in Input) {

@@ -37,6 +37,10 @@ type Options struct {
 	Seed         *uint64  `json:"seed,omitempty"`          // Monte Carlo seed, default 1
 	PostHoc      string   `json:"posthoc,omitempty"`       // dunn (default), conover, dscf, mann-whitney, none
 	Adjust       string   `json:"adjust,omitempty"`        // holm (default), bonferroni, sidak, hochberg, bh, by, none
+	// Reference, a group's label as written in the data, compares each other
+	// group with it alone instead of every pair with every other (the
+	// adjustment then runs over k−1 comparisons).
+	Reference string `json:"reference,omitempty"`
 	// Trend asks for the Jonckheere–Terpstra test along the groups' order
 	// (the data's, or Order's): none (default), increasing, decreasing or
 	// two-sided.
@@ -122,7 +126,7 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 			continue
 		}
 		text := map[string]*string{"layout": &o.Layout, "separator": &o.Separator, "decimal": &o.Decimal, "thousands": &o.Thousands, "group": &o.Group, "measure": &o.Measure, "count": &o.Count, "sheet": &o.Sheet,
-			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust, "adjust_across": &o.AdjustAcross, "trend": &o.Trend}
+			"pvalue": &o.PValue, "posthoc": &o.PostHoc, "adjust": &o.Adjust, "adjust_across": &o.AdjustAcross, "trend": &o.Trend, "reference": &o.Reference}
 		if dst, ok := text[name]; ok {
 			if v.Kind != jsonlite.String {
 				return fmt.Errorf("%q must be a string", name)
@@ -251,7 +255,7 @@ func (o Options) write(w *jsonlite.Writer) {
 		w.Key("measures")
 		w.Strings(o.Measures)
 	}
-	for _, f := range []struct{ name, v string }{{"adjust_across", o.AdjustAcross}, {"posthoc", o.PostHoc}, {"adjust", o.Adjust}, {"trend", o.Trend}} {
+	for _, f := range []struct{ name, v string }{{"adjust_across", o.AdjustAcross}, {"posthoc", o.PostHoc}, {"adjust", o.Adjust}, {"reference", o.Reference}, {"trend", o.Trend}} {
 		if f.v != "" {
 			w.Key(f.name)
 			w.String(f.v)
@@ -288,6 +292,7 @@ type settings struct {
 	posthoc   posthoc.Method
 	adjust    adjust.Method
 	trend     trend.Alternative // "" when no trend test was asked for
+	reference string            // the reference group's label as written in the data, "" for every pair
 	// effectBudget bounds the work of ε²'s interval (see EffectBudget)
 	effectBudget int
 	// listLimit bounds the values and tie blocks listed in the answer (see ListLimit)
@@ -348,6 +353,14 @@ func (o Options) validate() (settings, error) {
 	s.pairs = s.posthoc != NoPairs
 	if s.adjust, err = choose[adjust.Method]("adjust", o.Adjust); err != nil {
 		return s, err
+	}
+	if s.reference = o.Reference; s.reference != "" {
+		switch {
+		case !s.pairs:
+			return s, &OptionError{"reference", o.Reference, "no pairs are compared (posthoc none): choose dunn, conover or mann-whitney to compare each group with it"}
+		case s.posthoc.ComparesAllPairs():
+			return s, &OptionError{"reference", o.Reference, s.posthoc.Name() + " compares every pair with every other; to compare each group with one reference group choose dunn, conover or mann-whitney"}
+		}
 	}
 	if s.trend, err = choose[trend.Alternative]("trend", o.Trend); err != nil {
 		return s, err

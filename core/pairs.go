@@ -3,8 +3,11 @@ package core
 import (
 	"context"
 	"math"
+	"slices"
+	"strings"
 
 	"midrank/core/adjust"
+	"midrank/core/jsonlite"
 	"midrank/core/letters"
 	"midrank/core/posthoc"
 	"midrank/core/rank"
@@ -18,9 +21,12 @@ type PostHoc struct {
 	Confidence float64        `json:"confidence"` // of each Hodges–Lehmann interval (see intervalLevel)
 	// Together: the intervals hold together at 1 − alpha (a family-wise
 	// adjustment); else each holds on its own at Confidence
-	Together bool              `json:"intervals_together"`
-	Pairs    []PairResult      `json:"pairs"`
-	Letters  map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha
+	Together bool `json:"intervals_together"`
+	// Reference is the group every other was compared with (its label as
+	// shown), nil when every pair was compared
+	Reference *string           `json:"reference"`
+	Pairs     []PairResult      `json:"pairs"`
+	Letters   map[string]string `json:"letters"` // groups sharing a letter are not distinguishable at alpha; empty when Reference is set
 	// Undefined: the procedure gives no test for the pairs (see
 	// posthoc.Pair); Infinite counts the pairs whose statistic is infinite
 	Undefined bool `json:"-"`
@@ -54,15 +60,38 @@ type PairResult struct {
 const MaxPairGroups = 100
 
 // comparePairs runs the post-hoc procedure on groups with the tie-corrected
-// h, adjusts the p-values and letters the groups; nil when no pairs were
-// asked for or there are more than MaxPairGroups groups.
+// h, on every pair or on the reference group's with each other, adjusts the
+// p-values over those comparisons and, for every pair, letters the groups;
+// nil when no pairs were asked for or there are more than MaxPairGroups
+// groups.
 func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups []Group, h float64) (*PostHoc, error) {
 	if !s.pairs || len(groups) > MaxPairGroups {
 		return nil, nil
 	}
 	k := len(groups)
-	confidence, together := intervalLevel(s.adjust, s.alpha, k*(k-1)/2)
-	pairs, err := posthoc.Compare(ctx, s.posthoc, ranking, h, confidence)
+	reference := -1
+	if s.reference != "" {
+		reference = slices.IndexFunc(groups, func(g Group) bool { return g.InData == s.reference })
+		if reference < 0 {
+			labels := make([]string, k)
+			for i, g := range groups {
+				labels[i] = g.InData
+			}
+			return nil, &OptionError{"reference", s.reference, "no group in the test is labelled so; choose one of " + strings.Join(labels, ", ")}
+		}
+	}
+	family := k * (k - 1) / 2
+	if reference >= 0 {
+		family = k - 1
+	}
+	confidence, together := intervalLevel(s.adjust, s.alpha, family)
+	var pairs []posthoc.Pair
+	var err error
+	if reference >= 0 {
+		pairs, err = posthoc.Against(ctx, s.posthoc, ranking, h, confidence, reference)
+	} else {
+		pairs, err = posthoc.Compare(ctx, s.posthoc, ranking, h, confidence)
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -99,6 +128,10 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 		differ[p.A*k+p.B], differ[p.B*k+p.A] = pr.Significant, pr.Significant
 		ph.Pairs = append(ph.Pairs, pr)
 	}
+	if reference >= 0 { // letters speak of every pair
+		ph.Reference = &groups[reference].Label
+		return ph, nil
+	}
 	for g, l := range letters.Display(k, func(a, b int) bool { return differ[a*k+b] }) {
 		ph.Letters[groups[g].Label] = l
 	}
@@ -121,4 +154,55 @@ func intervalLevel(m adjust.Method, alpha float64, pairs int) (confidence float6
 		return math.Pow(1-alpha, 1/float64(pairs)), true
 	}
 	return 1 - alpha, false
+}
+
+// writePostHoc writes the pairwise comparisons with the names of PostHoc's
+// json tags, or null.
+func writePostHoc(w *jsonlite.Writer, ph *PostHoc) {
+	if ph == nil {
+		w.Null()
+		return
+	}
+	w.BeginObject()
+	w.StringMember("method", string(ph.Method))
+	w.StringMember("adjust", string(ph.Adjust))
+	w.FloatMember("confidence", ph.Confidence)
+	w.BoolMember("intervals_together", ph.Together)
+	w.Key("reference")
+	w.OptString(ph.Reference)
+	w.Key("pairs")
+	w.BeginArray()
+	for _, p := range ph.Pairs {
+		w.BeginObject()
+		w.StringMember("a", p.A)
+		w.StringMember("b", p.B)
+		w.OptFloatMember("statistic", p.Statistic)
+		w.OptFloatMember("p", p.P)
+		w.OptFloatMember("p_adjusted", p.PAdjusted)
+		w.BoolMember("significant", p.Significant)
+		w.BoolMember("exact", p.Exact)
+		for _, f := range []struct {
+			name string
+			v    float64
+		}{{"probability_of_superiority", p.ProbSuperiority}, {"cliffs_delta", p.CliffsDelta},
+			{"hodges_lehmann", p.Shift}, {"hodges_lehmann_low", p.ShiftLow}, {"hodges_lehmann_high", p.ShiftHigh}} {
+			w.Key(f.name)
+			w.Float(f.v)
+		}
+		w.EndObject()
+	}
+	w.EndArray()
+	w.Key("letters")
+	w.BeginObject()
+	labels := make([]string, 0, len(ph.Letters))
+	for l := range ph.Letters {
+		labels = append(labels, l)
+	}
+	slices.Sort(labels) // as encoding/json orders map keys
+	for _, l := range labels {
+		w.Key(l)
+		w.String(ph.Letters[l])
+	}
+	w.EndObject()
+	w.EndObject()
 }

@@ -58,8 +58,8 @@ func (m Method) Label() string { return words[m].label }
 // Name is the procedure's name in prose.
 func (m Method) Name() string { return words[m].prose }
 
-// Pair is the comparison of groups A and B (indices, A before B in input
-// order). Statistic is signed, positive when A tends to be higher, except
+// Pair is the comparison of groups A and B (indices: A before B in input
+// order, or A the reference group). Statistic is signed, positive when A tends to be higher, except
 // for Mann–Whitney, where it is U of A. P is two-sided.
 type Pair struct {
 	A, B      int
@@ -74,17 +74,44 @@ type Pair struct {
 	Effect
 }
 
-// Compare runs a procedure on a ranking. h is the tie-corrected H (for
-// Conover–Iman); confidence is the level of the Hodges–Lehmann interval.
+// Compare runs a procedure on every pair of groups of a ranking. h is the
+// tie-corrected H (for Conover–Iman); confidence is the level of the
+// Hodges–Lehmann interval.
 func Compare(ctx context.Context, method Method, r rank.Ranking, h, confidence float64) ([]Pair, error) {
 	k := len(r.Sizes)
-	groups := tallies(r)
 	var pairs []Pair
 	for a := 0; a < k; a++ {
 		for b := a + 1; b < k; b++ {
 			pairs = append(pairs, Pair{A: a, B: b})
 		}
 	}
+	return run(ctx, method, r, h, confidence, pairs)
+}
+
+// Against runs a procedure on the pairs of the reference group with each
+// other group, the reference as A; a procedure that holds only for all
+// pairs together (ComparesAllPairs) is refused.
+func Against(ctx context.Context, method Method, r rank.Ranking, h, confidence float64, reference int) ([]Pair, error) {
+	if method.ComparesAllPairs() {
+		return nil, fmt.Errorf("posthoc: %s compares every pair, not each group with a reference", method)
+	}
+	var pairs []Pair
+	for b := range len(r.Sizes) {
+		if b != reference {
+			pairs = append(pairs, Pair{A: reference, B: b})
+		}
+	}
+	return run(ctx, method, r, h, confidence, pairs)
+}
+
+// ComparesAllPairs tells a procedure whose p-values hold only for all pairs
+// together: the Dwass–Steel–Critchlow–Fligner statistic is referred to the
+// studentized range of all k groups.
+func (m Method) ComparesAllPairs() bool { return m == DSCF }
+
+// run fills in the pairs.
+func run(ctx context.Context, method Method, r rank.Ranking, h, confidence float64, pairs []Pair) ([]Pair, error) {
+	groups := tallies(r)
 	if !method.Known() {
 		return nil, fmt.Errorf("posthoc: unknown method %q", method)
 	}

@@ -45,6 +45,7 @@ type Facts struct {
 
 	// pairwise comparisons, when made
 	PairMethod  string // the procedure in words, "" when none was run
+	Reference   string // the group every other was compared with, "" for every pair
 	AdjustName  string // how the family was controlled, in words
 	PairsTested int
 	Differences []Difference // the significant pairs
@@ -165,10 +166,14 @@ const Caution = "Statistical evidence is not a clinical, legal or employment dec
 
 // writePairs says how the pairs were compared and which differ.
 func writePairs(b *strings.Builder, f Facts) {
-	if f.PairsTested == 1 {
+	switch {
+	case f.PairsTested == 1:
 		fmt.Fprintf(b, "The two groups were also compared as a pair with %s, with a two-sided p-value (with one pair, %s changes nothing). ",
 			f.PairMethod, f.AdjustName)
-	} else {
+	case f.Reference != "":
+		fmt.Fprintf(b, "Each of the other %d groups was compared with the reference group %s (not with one another) with %s, with two-sided p-values; the family of these %d comparisons was controlled with %s. ",
+			f.PairsTested, f.Reference, f.PairMethod, f.PairsTested, f.AdjustName)
+	default:
 		fmt.Fprintf(b, "All %d pairs of groups were compared with %s, with two-sided p-values; the family of comparisons was controlled with %s. ",
 			f.PairsTested, f.PairMethod, f.AdjustName)
 	}
@@ -193,6 +198,10 @@ func writePairs(b *strings.Builder, f Facts) {
 			d.Higher, d.Lower, by, PValue(d.PAdjusted), display.Effect.Format(d.Superiority))
 	}
 	switch rest := f.PairsTested - len(f.Differences); {
+	case rest == 1 && f.Reference != "":
+		fmt.Fprintf(b, "The other group shows no significant difference from %s. ", f.Reference)
+	case rest > 1 && f.Reference != "":
+		fmt.Fprintf(b, "The other %d groups show no significant difference from %s. ", rest, f.Reference)
 	case rest == 1:
 		b.WriteString("The other pair shows no significant difference. ")
 	case rest > 1:

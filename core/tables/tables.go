@@ -307,8 +307,12 @@ func Pairs(r *core.Result) Table {
 	if !ph.Together {
 		intervals = fmt.Sprintf("with its %s%% interval, which holds for its pair alone (no interval for all pairs together matches this adjustment)", display.Figure.Format(100*ph.Confidence))
 	}
-	note := fmt.Sprintf("Compared by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, %s.",
-		ph.Method.Name(), ph.Method.Statistic(), adjusted, intervals)
+	compared := "Compared"
+	if ph.Reference != nil {
+		compared = fmt.Sprintf("Each group compared with the reference group \u201c%s\u201d only (%d comparisons, not every pair; so the groups get no letters)", *ph.Reference, len(ph.Pairs))
+	}
+	note := fmt.Sprintf("%s by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, %s.",
+		compared, ph.Method.Name(), ph.Method.Statistic(), adjusted, intervals)
 	t := build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
 	for i := range t.Columns {
 		if t.Columns[i].Key == "statistic" {

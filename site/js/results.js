@@ -2,6 +2,7 @@
 // groups, the pairs and the notes, from the module's answer and its tables of results.
 import { $ } from "./dom.js";
 import { figureList, pageTable } from "./tableview.js";
+import { fillReference } from "./settings.js";
 import { update } from "./state.js";
 
 // setStale marks the results on screen as not from the text and settings
@@ -24,6 +25,7 @@ export function renderResults(state, changed) {
   if (!r) return;
   const t = state.tables;
   if (changed.has("result")) {
+    fillReference(r.groups);
     $("decision").textContent = r.decision;
     $("result-line").textContent = r.result_line;
     figureList($("figures"), t.figures);
@@ -42,13 +44,24 @@ export function renderResults(state, changed) {
   renderPairs(state);
 }
 
+// pairsHint says how to read the pairs: by their letters, or as
+// comparisons with the reference group, and not as findings when the
+// overall test is not significant.
+function pairsHint(r) {
+  const reference = r.posthoc.reference;
+  if (!r.significant) {
+    return "The overall test is not significant: these " + (reference === null ? "pairwise results" : "comparisons with " + reference)
+      + " are shown for completeness and should not be read as findings.";
+  }
+  return reference === null ? "Groups that share a letter in the table above could not be told apart at the chosen level."
+    : "Each group was compared with " + reference + " only, so the groups get no letters.";
+}
+
 function renderPairs(state) {
   const r = state.result, pairs = state.tables.pairs;
   $("pairs-box").hidden = !pairs;
   if (!pairs) return;
-  $("pairs-hint").textContent = r.significant
-    ? "Groups that share a letter in the table above could not be told apart at the chosen level."
-    : "The overall test is not significant: these pairwise results are shown for completeness and should not be read as findings.";
+  $("pairs-hint").textContent = pairsHint(r);
   const at = (key) => pairs.columns.findIndex((c) => c.key === key);
   const adjusted = at("p_adjusted"), differ = at("significant");
   const order = [...pairs.values.keys()];

@@ -1,7 +1,7 @@
 // The settings on the form, by the module's request keys.
 import { $ } from "./dom.js";
 
-export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust", "trend"];
+export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust", "reference", "trend"];
 const numeric = new Set(["alpha", "resamples", "seed"]);
 
 // Several measures: the columns ticked, kept by key while the text's
@@ -83,6 +83,17 @@ export function fillColumns(columns) {
     label.append(box, " " + c.name);
     return [label];
   }));
+}
+
+// fillReference offers the groups of the last analysis as the reference
+// group (by their labels as written in the data, shown by their names); a
+// choice made stays chosen.
+export function fillReference(groups) {
+  const select = $("reference"), chosen = select.value;
+  const choices = groups.map((g) => new Option("each group with " + g.label + " only", g.label_in_data));
+  if (chosen && !groups.some((g) => g.label_in_data === chosen)) choices.push(new Option("each group with " + chosen + " only (not in this analysis)", chosen));
+  select.replaceChildren(new Option("every group with every other", ""), ...choices);
+  select.value = chosen;
 }
 
 // chooseAlternative sets the reading's settings to another reading the

@@ -832,6 +832,44 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("each group compared with a reference group chosen among the groups", func(t *testing.T) {
+		// R's PlantGrowth; core/reference_group_test.go checks these p-values against R's p.adjust over the two comparisons
+		data, err := os.ReadFile("../../testdata/reference/plantgrowth.csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data)) // the groups of this text become the menu's choices
+		r, err := core.Analyze(data, core.Options{Reference: "ctrl"})
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := tables.Pairs(r)
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#reference", "ctrl")); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, string(data))
+		rows, err := chromedp.Run(b.ctx, chromedp.Evaluate[[][]string](`[...document.querySelectorAll("#pairs-table tbody tr")].map((tr) => [...tr.cells].map((td) => td.textContent))`))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(rows) != 2 {
+			t.Fatalf("%d rows of pairs, want the 2 comparisons with ctrl: %q", len(rows), rows)
+		}
+		for i, row := range want.Rows {
+			for j, cell := range row {
+				if rows[i][j] != cell.Text {
+					t.Errorf("row %d column %s shown as %q, core %q", i, want.Columns[j].Key, rows[i][j], cell.Text)
+				}
+			}
+		}
+		if got := b.text(t, "#pairs-hint"); !strings.Contains(got, "with ctrl") {
+			t.Errorf("pairs hint %q", got)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#reference", "")); err != nil {
+			t.Fatal(err)
+		}
+	})
+
 	t.Run("a bad cell is reported with its place", func(t *testing.T) {
 		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\n")
 		if got := b.text(t, "#problem"); !strings.Contains(got, "line 3, column 2") || !strings.Contains(got, `"five"`) {

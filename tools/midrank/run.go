@@ -100,6 +100,7 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	})
 	fs.StringVar(&opt.PostHoc, "posthoc", core.Keys("posthoc")[0], "pairwise comparisons: "+strings.Join(core.Keys("posthoc"), ", "))
 	fs.StringVar(&opt.Adjust, "adjust", core.Keys("adjust")[0], "multiplicity adjustment: "+strings.Join(core.Keys("adjust"), ", "))
+	fs.StringVar(&opt.Reference, "reference", "", "compare each group with this one (its label as written in the data) instead of every pair; the adjustment runs over those comparisons")
 	fs.StringVar(&opt.Trend, "trend", core.Keys("trend")[0], "test for a trend along the groups' order (as in the data, or set with --order), Jonckheere–Terpstra: "+strings.Join(core.Keys("trend"), ", "))
 	fs.Func("order", "put the group with this label (as written in the data) next; repeat to set the order of several", func(label string) error {
 		opt.Order = append(opt.Order, label)

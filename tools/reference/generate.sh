@@ -20,4 +20,5 @@ Rscript tools/reference/wilcox.R "$out"
 /usr/bin/python3 tools/reference/epsilon_bootstrap.py "$out/epsilon_bootstrap.tsv"
 Rscript tools/reference/battery.R testdata/battery
 Rscript tools/reference/trend.R testdata/trend
+Rscript tools/reference/reference_group.R testdata/reference_group
 echo "wrote $out"
