@@ -226,7 +226,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	}
 	r.pairsAsked = s.pairs
 	if s.trend != "" {
-		if r.Trend, err = testTrend(ctx, s, ranking, t.Labels); err != nil {
+		if r.Trend, err = testTrend(ctx, s, ranking, t.Labels, r.TieCorrection, progress); err != nil {
 			return nil, err
 		}
 	}

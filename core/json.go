@@ -57,18 +57,7 @@ func Encode(r *Result) ([]byte, error) {
 	w.OptFloatMember("exact_critical_value", r.ExactCriticalValue)
 	w.OptFloatMember("exact_attained_alpha", r.ExactAttainedAlpha)
 	w.Key("monte_carlo")
-	if mc := r.MonteCarlo; mc == nil {
-		w.Null()
-	} else {
-		w.BeginObject()
-		w.IntMember("resamples", mc.Resamples)
-		w.Key("seed")
-		w.Uint(mc.Seed)
-		w.IntMember("exceed", mc.Exceed)
-		w.FloatMember("ci_low", mc.CILow)
-		w.FloatMember("ci_high", mc.CIHigh)
-		w.EndObject()
-	}
+	writeMonteCarlo(&w, r.MonteCarlo)
 	w.BoolMember("significant", r.Significant)
 	w.FloatMember("epsilon_squared", r.EpsilonSquared)
 	w.StringMember("epsilon_squared_size", r.EpsilonSquaredSize)
@@ -350,4 +339,20 @@ func writeStrings(w *jsonlite.Writer, list []string) {
 		w.String(s)
 	}
 	w.EndArray()
+}
+
+// writeMonteCarlo writes how a p-value was estimated by Monte Carlo, or null.
+func writeMonteCarlo(w *jsonlite.Writer, mc *MonteCarlo) {
+	if mc == nil {
+		w.Null()
+		return
+	}
+	w.BeginObject()
+	w.IntMember("resamples", mc.Resamples)
+	w.Key("seed")
+	w.Uint(mc.Seed)
+	w.IntMember("exceed", mc.Exceed)
+	w.FloatMember("ci_low", mc.CILow)
+	w.FloatMember("ci_high", mc.CIHigh)
+	w.EndObject()
 }

@@ -9,6 +9,7 @@ import (
 
 	"midrank/core/display"
 	"midrank/core/jsonlite"
+	"midrank/core/montecarlo"
 	"midrank/core/rank"
 	"midrank/core/report"
 	"midrank/core/trend"
@@ -24,9 +25,11 @@ type Trend struct {
 	Variance    float64  `json:"variance"`    // Var(J), corrected for ties
 	Z           float64  `json:"z"`           // (J − E(J))/√Var(J)
 	P           float64  `json:"p"`
-	PMethod     string   `json:"p_method"` // exact or asymptotic (the normal approximation)
+	PMethod     string   `json:"p_method"` // exact, monte-carlo or asymptotic (the normal approximation)
 	PExact      *float64 `json:"p_exact"`  // null when not computed
 	PNormal     float64  `json:"p_normal"`
+	// MonteCarlo is how p was estimated when by Monte Carlo, else null
+	MonteCarlo *MonteCarlo `json:"monte_carlo"`
 	// CriticalExact is the least extreme J that the exact distribution
 	// makes significant at alpha (two-sided: the upper one at alpha/2), and
 	// AttainedAlpha its tail probability; null when not computed or when no
@@ -72,9 +75,12 @@ func TauSizeRule() string {
 }
 
 // testTrend runs the Jonckheere–Terpstra test on a ranking whose groups are
-// numbered in their order: exact when the distribution fits its budget and
-// the p-value method allows, else by the normal approximation.
-func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []string) (*Trend, error) {
+// numbered in their order, finding p as the H test does (see pvalueOf):
+// exact when asked for or automatic and the distribution fits its budget;
+// else by Monte Carlo when asked for, or automatically for a group under 5
+// values or heavy ties (c, the tie correction) if the draws fit; else by the
+// normal approximation. Each answer says how and why.
+func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []string, c float64, progress Progress) (*Trend, error) {
 	t, err := trend.Compute(ranking)
 	if errors.Is(err, trend.ErrNoSpread) {
 		return nil, nil // nothing to test; the warnings say why the data cannot vary
@@ -85,25 +91,42 @@ func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []s
 	alt := s.trend
 	out := &Trend{Order: labels, Alternative: string(alt), Statistic: t.J, Expected: t.Expected, Variance: t.Variance, Z: t.Z,
 		PNormal: t.Normal(alt), TauB: t.TauB, TauBSize: TauSize(t.TauB)}
-	out.P, out.PMethod = out.PNormal, string(PValueAsymptotic)
-	why := report.TrendNormal
-	if s.pvalue != PValueAsymptotic {
+	out.P, out.PMethod, out.Reason = out.PNormal, string(PValueAsymptotic), report.TrendNormal
+	method := s.pvalue
+	if method == PValueAuto || method == PValueExact {
 		d, err := trend.Exact(ctx, ranking)
 		switch {
 		case err == nil:
 			p := d.P(t.Doubled, alt)
-			out.P, out.PExact, out.PMethod, why = p, &p, string(PValueExact), report.TrendExact
+			out.P, out.PExact, out.PMethod, out.Reason = p, &p, string(PValueExact), report.TrendExact
 			if x, attained, ok := d.Critical(s.alpha, alt); ok {
 				j := float64(x) / 2
 				out.CriticalExact, out.AttainedAlpha = &j, &attained
 			}
-		case errors.Is(err, trend.ErrTooLarge):
-			why = report.TrendTooLarge
-		default:
+			out.Significant = report.Significant(out.P, s.alpha)
+			return out, nil
+		case !errors.Is(err, trend.ErrTooLarge):
 			return nil, err
 		}
+		out.Reason = report.TrendTooLarge
+		rough := smallest(ranking.Sizes) < report.SmallGroup || c < HeavyTies
+		if draws := float64(float64(len(ranking.Sorted)) * float64(s.resamples)); rough && draws <= AutoMonteCarloDraws {
+			method = PValueMonteCarlo
+		}
 	}
-	out.Reason = why
+	if method == PValueMonteCarlo {
+		var mcProgress montecarlo.Progress
+		if progress != nil {
+			mcProgress = func(done, total int) { progress("trend", done, total) }
+		}
+		mc, err := trend.MonteCarlo(ctx, ranking, t.Doubled, alt, s.resamples, s.seed, mcProgress)
+		if err != nil {
+			return nil, err
+		}
+		out.P, out.PMethod = mc.P, string(PValueMonteCarlo)
+		out.MonteCarlo = &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}
+		out.Reason = report.TrendMonteCarlo(mc.Resamples, mc.Seed, out.Reason == report.TrendTooLarge)
+	}
 	out.Significant = report.Significant(out.P, s.alpha)
 	return out, nil
 }
@@ -127,6 +150,8 @@ func writeTrend(w *jsonlite.Writer, t *Trend) {
 	w.StringMember("p_method", t.PMethod)
 	w.OptFloatMember("p_exact", t.PExact)
 	w.FloatMember("p_normal", t.PNormal)
+	w.Key("monte_carlo")
+	writeMonteCarlo(w, t.MonteCarlo)
 	w.OptFloatMember("exact_critical_value", t.CriticalExact)
 	w.OptFloatMember("exact_attained_alpha", t.AttainedAlpha)
 	w.BoolMember("significant", t.Significant)

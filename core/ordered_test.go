@@ -68,3 +68,28 @@ func TestTrend(t *testing.T) {
 		t.Errorf("a trend without asking: %+v", r.Trend)
 	}
 }
+
+// TestTrendMonteCarlo: asked for Monte Carlo, the trend test's p is an
+// estimate whose 99% interval holds the exact p of the same data (warpbreaks,
+// testdata/trend), and the answer names how it was found.
+func TestTrendMonteCarlo(t *testing.T) {
+	data, err := os.ReadFile("../testdata/trend/warpbreaks.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	exact, err := Analyze(data, Options{Trend: "two-sided"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	mc, err := Analyze(data, Options{Trend: "two-sided", PValue: "monte-carlo", Resamples: 200_000})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tr := mc.Trend
+	if tr.PMethod != "monte-carlo" || tr.MonteCarlo == nil || *exact.Trend.PExact < tr.MonteCarlo.CILow || *exact.Trend.PExact > tr.MonteCarlo.CIHigh {
+		t.Errorf("Monte Carlo trend %+v, exact p %v", tr, *exact.Trend.PExact)
+	}
+	if !strings.Contains(tr.Reason, "200,000 random deals") {
+		t.Errorf("reason %q", tr.Reason)
+	}
+}

@@ -13,7 +13,7 @@ type TrendFacts struct {
 	Order       []string // the groups' labels in the order tested
 	Alternative string   // increasing, decreasing or two-sided
 	J, Z, P     float64
-	Method      string // how p was found: "exact" or "asymptotic"
+	Method      string // how p was found: "exact", "monte-carlo" or "asymptotic"
 	Tau         float64
 	Size        string // τ_b in words
 }
@@ -24,6 +24,18 @@ const (
 	TrendNormal   = "Normal approximation to J, with its variance corrected for ties (Hollander, Wolfe & Chicken 2014, §6.2)."
 	TrendTooLarge = TrendNormal + " The exact distribution is beyond this tool's budget for groups this large."
 )
+
+// TrendMonteCarlo is the reason given for a trend test's p found by Monte
+// Carlo, automatically (the exact distribution being too large) or as asked.
+func TrendMonteCarlo(resamples int, seed uint64, automatic bool) string {
+	why := "Monte Carlo, as asked"
+	if automatic {
+		why = "Monte Carlo, chosen automatically: the exact distribution is beyond this tool's budget, and with a group under " +
+			fmt.Sprint(SmallGroup) + " values or heavy ties the normal approximation is rough"
+	}
+	return fmt.Sprintf("%s: %s random deals of the values to the groups (seed %d); p̂ = (b+1)/(B+1) with b the deals at least as extreme.",
+		why, thousands(int64(resamples)), seed)
+}
 
 // TrendOrderCaution is what a trend test asks of the order of the groups.
 const TrendOrderCaution = "A trend test is only as good as its order: it must come from what the groups are (bands, grades, doses), set before looking at the results."
@@ -57,8 +69,11 @@ func TrendSentence(t TrendFacts, alpha float64) string {
 }
 
 func trendMethod(m string) string {
-	if m == "exact" {
+	switch m {
+	case "exact":
 		return "exact"
+	case "monte-carlo":
+		return "Monte Carlo"
 	}
 	return "normal approximation"
 }

@@ -104,6 +104,7 @@ var trendColumns = []column[*core.Trend]{
 	{Column{"z", "z, corrected for ties", NoUnit, display.Statistic}, func(t *core.Trend) any { return t.Z }},
 	{Column{"p", "p-value", NoUnit, display.PValue}, func(t *core.Trend) any { return t.P }},
 	{Column{"p_method", "How p was found", NoUnit, display.Text}, func(t *core.Trend) any { return words{t.PMethod, trendMethodWords[t.PMethod]} }},
+	{Column{"p_interval", "99% interval for p", NoUnit, display.PValue}, func(t *core.Trend) any { return monteCarloInterval(t.MonteCarlo) }},
 	{Column{"exact_critical_value", "J needed for significance (exact)", NoUnit, display.Figure}, trendCritical},
 	{Column{"significant", "Significant at the chosen level", NoUnit, display.Flag}, func(t *core.Trend) any { return t.Significant }},
 	{Column{"tau_b", "Kendall's τ_b, order with values", NoUnit, display.Effect}, func(t *core.Trend) any { return t.TauB }},
@@ -131,7 +132,7 @@ var trendCriticalHeadings = map[string]string{
 // trendWords and trendMethodWords put the trend test's keys into words.
 var (
 	trendWords       = map[string]string{"increasing": "rising along the order (one-sided)", "decreasing": "falling along the order (one-sided)", "two-sided": "rising or falling (two-sided)"}
-	trendMethodWords = map[string]string{"exact": "exact permutation", "asymptotic": "normal approximation"}
+	trendMethodWords = map[string]string{"exact": "exact permutation", "monte-carlo": "Monte Carlo", "asymptotic": "normal approximation"}
 )
 
 // groupColumns are the groups table's columns.
@@ -205,8 +206,11 @@ func epsilonInterval(r *core.Result) any {
 }
 
 // pInterval is the Monte Carlo estimate's 99% interval, or why there is none.
-func pInterval(r *core.Result) any {
-	if mc := r.MonteCarlo; mc != nil {
+func pInterval(r *core.Result) any { return monteCarloInterval(r.MonteCarlo) }
+
+// monteCarloInterval is a Monte Carlo estimate's interval for p, in words.
+func monteCarloInterval(mc *core.MonteCarlo) any {
+	if mc != nil {
 		return words{"", display.PValue.Format(mc.CILow) + " to " + display.PValue.Format(mc.CIHigh)}
 	}
 	return words{"", "not estimated (only Monte Carlo estimates p)"}

@@ -64,29 +64,13 @@ var ErrNoSpread = errors.New("trend: every value is tied or in one group")
 // Compute works out J and its figures from a ranking whose groups are
 // numbered in their order.
 func Compute(r rank.Ranking) (Test, error) {
-	k := len(r.Sizes)
-	below := make([]int64, k) // values of each group below the current block
-	in := make([]int64, k)    // and in it
-	var doubled int64
 	var ties []int
 	for i, j := range r.Blocks() {
-		clear(in)
-		for _, g := range r.Groups[i:j] {
-			in[g]++
-		}
-		var lower, lowerIn int64 // values of the groups before g: below the block, in it
-		for g := range k {
-			doubled += in[g] * (2*lower + lowerIn)
-			lower += below[g]
-			lowerIn += in[g]
-		}
-		for g := range k {
-			below[g] += in[g]
-		}
 		if j-i > 1 {
 			ties = append(ties, j-i)
 		}
 	}
+	doubled := newCounter(r).doubled(r.Groups)
 	n := float64(len(r.Sorted))
 	var sumN2, nTerm, nCube, nPair float64
 	for _, s := range r.Sizes {
@@ -123,6 +107,44 @@ func Compute(r rank.Ranking) (Test, error) {
 	s := float64(doubled) - across/2 // Kendall's S: concordant less discordant pairs
 	test.TauB = s / math.Sqrt(untiedPairs*acrossPairs)
 	return test, nil
+}
+
+// counter works out 2J of the groups of sorted values, block by block.
+type counter struct {
+	ends      []int   // where each block of tied values ends
+	below, in []int64 // values of each group below the current block, and in it
+}
+
+func newCounter(r rank.Ranking) *counter {
+	c := &counter{below: make([]int64, len(r.Sizes)), in: make([]int64, len(r.Sizes))}
+	for _, j := range r.Blocks() {
+		c.ends = append(c.ends, j)
+	}
+	return c
+}
+
+// doubled is 2J of the values in ascending order with these groups: a value
+// of group h adds 2 for every value below it in the groups before h, and 1
+// for every tied one there.
+func (c *counter) doubled(groups []int32) int64 {
+	clear(c.below)
+	var doubled int64
+	start := 0
+	for _, end := range c.ends {
+		clear(c.in)
+		for _, g := range groups[start:end] {
+			c.in[g]++
+		}
+		var lower, lowerIn int64 // values of the groups before g: below the block, in it
+		for g, n := range c.in {
+			doubled += n * (2*lower + lowerIn)
+			lower += c.below[g]
+			lowerIn += n
+			c.below[g] += n
+		}
+		start = end
+	}
+	return doubled
 }
 
 // Normal is the p-value of the normal approximation for the alternative,
