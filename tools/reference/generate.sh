@@ -20,5 +20,6 @@ Rscript tools/reference/wilcox.R "$out"
 /usr/bin/python3 tools/reference/epsilon_bootstrap.py "$out/epsilon_bootstrap.tsv"
 Rscript tools/reference/battery.R testdata/battery
 Rscript tools/reference/trend.R testdata/trend
+/usr/bin/python3 tools/reference/trend_exact.py testdata/trend
 Rscript tools/reference/reference_group.R testdata/reference_group
 echo "wrote $out"
