@@ -38,6 +38,9 @@ const bridge = createBridge(
     },
   });
 
+// The demo's text, fetched while the module loads (index.html preloads it).
+const demo = offline ? Promise.resolve($("demo-data").textContent) : fetch("demo.tsv").then((r) => r.text());
+
 for (const view of [renderPreview, renderEditor, renderResults, renderBattery, renderLevels, renderPictures, renderRanks]) onUpdate(view);
 
 let started = false;
@@ -126,9 +129,7 @@ async function start() {
     setStatus("Waiting for you: press Analyse to run the analysis again.");
     return;
   }
-  if (dataText().trim() === "") {
-    $("data").value = offline ? $("demo-data").textContent : await (await fetch("demo.tsv")).text();
-  }
+  if (dataText().trim() === "") $("data").value = await demo;
   analyse();
 }
 

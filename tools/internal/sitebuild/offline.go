@@ -41,6 +41,11 @@ func offlinePage(read func(string) ([]byte, error), assets map[string]*asset) ([
 	if page, err = replaceOnce(page, `<script src="app.js" defer></script>`+"\n", ""); err != nil {
 		return nil, err
 	}
+	for _, file := range []string{`midrank.wasm" as="fetch" type="application/wasm"`, `demo.tsv" as="fetch"`} { // both are inside the page
+		if page, err = replaceOnce(page, `<link rel="preload" href="`+file+` crossorigin>`+"\n", ""); err != nil {
+			return nil, err
+		}
+	}
 	var tail bytes.Buffer
 	tail.WriteString(`<script type="text/plain" id="worker-source">`)
 	tail.Write(workerSource)
