@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"context"
 	"crypto/rand"
 	"errors"
@@ -298,7 +299,14 @@ func readInput(name string, stdin io.Reader) ([]byte, error) {
 		defer f.Close()
 		in = f
 	}
-	data, err := io.ReadAll(io.LimitReader(in, table.MaxText+1))
+	var buf bytes.Buffer
+	if f, ok := in.(*os.File); ok { // a file says its size: one buffer, not one grown by copying
+		if info, err := f.Stat(); err == nil && info.Mode().IsRegular() {
+			buf.Grow(int(min(info.Size(), table.MaxText) + 1))
+		}
+	}
+	_, err := buf.ReadFrom(io.LimitReader(in, table.MaxText+1))
+	data := buf.Bytes()
 	if err != nil {
 		return nil, fmt.Errorf("cannot read the input: %w", err)
 	}
