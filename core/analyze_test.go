@@ -195,11 +195,15 @@ func FuzzAnalyze(f *testing.F) {
 	f.Add([]byte("A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n"), 0.05, uint8(0))
 	f.Add([]byte("site,minutes\nNorth,3\nSouth,4\nNorth,NA\nEast,4\n"), 0.01, uint8(1))
 	f.Add([]byte("x;y\n1,5;2\n1e300;-1e300\n"), 0.5, uint8(2))
+	f.Add([]byte("band,score\nlow,1\nlow,2\nmid,2\nmid,3\nhigh,3\nhigh,5\n"), 0.05, uint8(0x60))
 	f.Fuzz(func(t *testing.T, data []byte, alpha float64, mode uint8) {
 		// every p-value method and post-hoc procedure, each kept quick:
 		// few resamples, and the exact method only on small samples
 		posthocKeys := Keys("posthoc")
 		opt := Options{Alpha: alpha, PValue: "asymptotic", PostHoc: posthocKeys[int(mode)%len(posthocKeys)]}
+		if mode&0x40 != 0 { // and the trend test, each way
+			opt.Trend = Keys("trend")[1+int(mode>>2)%3]
+		}
 		switch {
 		case mode&0x10 != 0:
 			opt.PValue, opt.Resamples = "monte-carlo", 200
@@ -218,6 +222,9 @@ func FuzzAnalyze(f *testing.F) {
 		}
 		if !(r.PValue >= 0 && r.PValue <= 1) || r.H < 0 || !(r.TieCorrection > 0 && r.TieCorrection <= 1) {
 			t.Fatalf("p = %v, H = %v, C = %v", r.PValue, r.H, r.TieCorrection)
+		}
+		if tr := r.Trend; tr != nil && (!(tr.P >= 0 && tr.P <= 1) || !(tr.TauB >= -1 && tr.TauB <= 1) || tr.Variance <= 0) {
+			t.Fatalf("trend %+v", tr)
 		}
 		var sum float64
 		for _, g := range r.Groups {

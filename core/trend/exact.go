@@ -70,8 +70,13 @@ func (d Distribution) Critical(alpha float64, alt Alternative) (doubled int64, a
 	return doubled, attained, ok
 }
 
-// MaxWork bounds the exact computation: cells of probability visited.
-const MaxWork = 200_000_000
+// Limits of the exact computation: the cells of probability visited
+// (time), and those held by one layer of the dealing (memory: 8 bytes each,
+// two layers alive, so at most about 256 MB).
+const (
+	MaxWork  = 200_000_000
+	MaxCells = 16_000_000
+)
 
 // Exact computes the null distribution of 2J for a ranking whose groups are
 // numbered in their order. Untied values take the sum of independent
@@ -95,24 +100,23 @@ func Exact(ctx context.Context, r rank.Ranking) (Distribution, error) {
 // probabilities only, so that nothing cancels. The counts are whole; 2J
 // doubles them.
 func untied(ctx context.Context, sizes []int) (Distribution, error) {
-	work, before := 0, 0
+	work, before := 0.0, 0.0 // in float64: with a million values the count passes 2⁶³
 	for _, n := range sizes {
-		work += before * n * (before*n + 1) // the recursion's cells
-		before += n
+		cells := before * float64(n)
+		work += float64(cells * (cells + 1)) // the recursion's cells, and more than it holds at once
+		before += float64(n)
 	}
 	if work > MaxWork {
 		return Distribution{}, ErrTooLarge
 	}
 	j := []float64{1}
-	before = 0
-	for _, n := range sizes {
+	for i, n := range sizes {
 		if err := ctx.Err(); err != nil {
 			return Distribution{}, err
 		}
-		if before > 0 {
-			j = convolve(j, mannWhitney(before, n))
+		if earlier := sum(sizes[:i]); earlier > 0 {
+			j = convolve(j, mannWhitney(earlier, n))
 		}
-		before += n
 	}
 	prob := make([]float64, 2*len(j)-1)
 	for w, p := range j {
@@ -144,6 +148,14 @@ func mannWhitney(m, n int) []float64 {
 		}
 	}
 	return row[n]
+}
+
+func sum(xs []int) int {
+	t := 0
+	for _, x := range xs {
+		t += x
+	}
+	return t
 }
 
 func convolve(a, b []float64) []float64 {
@@ -178,7 +190,7 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 			return Distribution{}, ErrTooLarge
 		}
 	}
-	if vectors*(top+1) > 4*MaxWork { // a bound on a layer's cells
+	if float64(vectors)*float64(top+1) > 4*MaxWork { // a bound on the layers' cells, cheaply refused first
 		return Distribution{}, ErrTooLarge
 	}
 	logFact := make([]float64, n+1)
@@ -198,6 +210,7 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 		}
 		b := j - i
 		next := map[int]*state{}
+		held := 0 // the cells of next
 		logAll := logFact[n-dealtSoFar] - logFact[b] - logFact[n-dealtSoFar-b] // log C(R, b)
 		for _, key := range slices.Sorted(maps.Keys(layer)) {                  // in one order, so that sums are the same bytes each run
 			st := layer[key]
@@ -225,6 +238,9 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 						next[key] = to
 					}
 					if need := len(st.p) + add; len(to.p) < need {
+						if held += need - len(to.p); held > MaxCells {
+							return ErrTooLarge
+						}
 						to.p = append(to.p, make([]float64, need-len(to.p))...)
 					}
 					w := dist.Exp(logW - logAll)

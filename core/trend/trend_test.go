@@ -343,3 +343,26 @@ func TestAgainstScipy(t *testing.T) {
 		}
 	}
 }
+
+// TestLargeSamplesRefused: a million values, untied or on a scale, are
+// refused by the exact method at once (its counts would pass 2⁶³ and its
+// arrays the memory), while J and z are still computed.
+func TestLargeSamplesRefused(t *testing.T) {
+	for _, levels := range []int{0, 7} {
+		n := 1_000_000
+		values, groups := make([]float64, n), make([]int32, n)
+		for i := range values {
+			values[i], groups[i] = float64(i), int32(i%5)
+			if levels > 0 {
+				values[i] = float64(i % levels)
+			}
+		}
+		r := ranked(values, groups, 5)
+		if _, err := Exact(context.Background(), r); !errors.Is(err, ErrTooLarge) {
+			t.Errorf("%d levels: %v, want ErrTooLarge", levels, err)
+		}
+		if test, err := Compute(r); err != nil || math.IsNaN(test.Z) || math.IsInf(test.Z, 0) {
+			t.Errorf("%d levels: z %v (%v)", levels, test.Z, err)
+		}
+	}
+}
