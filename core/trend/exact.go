@@ -210,7 +210,7 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 		}
 		b := j - i
 		next := map[int]*state{}
-		held := 0 // the cells of next
+		held := 0                                                              // the cells of next
 		logAll := logFact[n-dealtSoFar] - logFact[b] - logFact[n-dealtSoFar-b] // log C(R, b)
 		for _, key := range slices.Sorted(maps.Keys(layer)) {                  // in one order, so that sums are the same bytes each run
 			st := layer[key]
