@@ -3,6 +3,10 @@
 // latest analysis win (a new one stops a running one), cancels by
 // terminating the worker, and answers every request with its id.
 
+// LARGE_TEXT is the length, in characters, from which a text's analysis
+// leaves the worker's memory large (about 1 million values).
+const LARGE_TEXT = 16e6;
+
 // failedBody is the reply when the module stopped or its answer cannot be read.
 function failedBody(why) {
   return { failed: why, error: { message: "The statistics module stopped: " + why + ". Your text and settings are kept, and the module was started again; "
@@ -27,6 +31,7 @@ export function createBridge(source, moduleBytes, on) {
   let nextId = 1;
   let latest = 0; // the id of the latest analysis: replies and progress of older ones are dropped
   let running = false; // an analysis is running in the worker
+  let heavy = false; // the worker's memory holds a large text's analysis
   const pending = new Map();
 
   // The module is compiled once, here, and handed to every worker started,
@@ -111,9 +116,13 @@ export function createBridge(source, moduleBytes, on) {
   }
 
   // analyse asks for an analysis that replaces any running one; the reply
-  // is null when a later analysis (or a cancel) has taken its place.
+  // is null when a later analysis (or a cancel) has taken its place. After
+  // a large text the worker is started afresh for the next: a WebAssembly
+  // module's memory only grows, and a second large text would otherwise sit
+  // on top of the first one's high-water mark.
   async function analyse(message) {
-    if (running) restart();
+    if (running || (heavy && message.data.length > LARGE_TEXT)) restart();
+    heavy = message.data.length > LARGE_TEXT;
     running = true;
     latest = nextId; // the id ask is about to use
     const reply = await ask({ kind: "analyze", ...message });
