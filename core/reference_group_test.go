@@ -1,13 +1,14 @@
 package core
 
 import (
-	"encoding/csv"
 	"errors"
 	"math"
 	"os"
 	"strconv"
 	"strings"
 	"testing"
+
+	"midrank/core/testfiles"
 )
 
 // TestReferenceGroup: each group compared with one reference group by
@@ -16,14 +17,7 @@ import (
 // formula and p.adjust) on PlantGrowth with ctrl and InsectSprays with spray
 // C as the reference (testdata/reference_group/expected.tsv).
 func TestReferenceGroup(t *testing.T) {
-	f, err := os.Open("../testdata/reference_group/expected.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	r := csv.NewReader(f)
-	r.Comma, r.Comment = '\t', '#'
-	rows, err := r.ReadAll()
+	rows, err := testfiles.Rows(os.DirFS("../testdata/reference_group"), "expected.tsv")
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -7,6 +7,8 @@ import (
 	"math"
 	"slices"
 	"testing"
+
+	"midrank/core/internal/arrange"
 )
 
 // bruteForce lists every assignment of the scores to groups of the given
@@ -29,7 +31,7 @@ func bruteForce(sizes []int, scores []int64) map[int64]float64 {
 		}
 		counts[Statistic(sizes, sums)]++
 		total++
-		if !nextPermutation(labels) {
+		if !arrange.Next(labels) {
 			break
 		}
 	}
@@ -37,25 +39,6 @@ func bruteForce(sizes []int, scores []int64) map[int64]float64 {
 		counts[t] /= total
 	}
 	return counts
-}
-
-// nextPermutation steps a to the next distinct arrangement in
-// lexicographic order (Knuth, TAOCP 7.2.1.2, algorithm L).
-func nextPermutation(a []int) bool {
-	i := len(a) - 2
-	for i >= 0 && a[i] >= a[i+1] {
-		i--
-	}
-	if i < 0 {
-		return false
-	}
-	j := len(a) - 1
-	for a[j] <= a[i] {
-		j--
-	}
-	a[i], a[j] = a[j], a[i]
-	slices.Reverse(a[i+1:])
-	return true
 }
 
 func blocksOf(scores []int64) []Block {

@@ -57,23 +57,36 @@ func PValue(ctx context.Context, sizes []int, scores []int64, observedSums []int
 	if err != nil {
 		return Result{}, err
 	}
+	return Estimate(ctx, resamples, seed, progress, func() Chunk {
+		d := newDealer(sizes, scores, total)
+		return func(g *random.Xoshiro, count int) int { return d.chunk(g, count, target) }
+	})
+}
+
+// Chunk draws count random deals from g and says how many are at least as
+// extreme as the observed one.
+type Chunk func(g *random.Xoshiro, count int) int
+
+// Estimate draws resamples random deals in chunks of ChunkSize, chunk c
+// from its own stream random.New(seed, c), shared among the cores, each
+// worker with its own Chunk from newChunk, and gives p̂ = (b+1)/(B+1) with
+// its interval. It stops with ctx; progress, when not nil, is told the
+// deals done.
+func Estimate(ctx context.Context, resamples int, seed uint64, progress Progress, newChunk func() Chunk) (Result, error) {
 	chunks := (resamples + ChunkSize - 1) / ChunkSize
-	var next atomic.Int64
-	var exceed atomic.Int64
-	var done atomic.Int64
+	var next, exceed, done atomic.Int64
 	var wg sync.WaitGroup
 	var report sync.Mutex // progress is called by one worker at a time
-	workers := min(runtime.GOMAXPROCS(0), chunks)
-	for range workers {
+	for range min(runtime.GOMAXPROCS(0), chunks) {
 		wg.Go(func() {
-			d := newDealer(sizes, scores, total)
+			chunk := newChunk()
 			for ctx.Err() == nil {
 				c := int(next.Add(1) - 1)
 				if c >= chunks {
 					return
 				}
 				count := min(ChunkSize, resamples-c*ChunkSize)
-				exceed.Add(int64(d.chunk(random.New(seed, uint64(c)), count, target)))
+				exceed.Add(int64(chunk(random.New(seed, uint64(c)), count)))
 				finished := done.Add(int64(count))
 				if progress != nil {
 					report.Lock()

@@ -12,7 +12,9 @@ import (
 	"strings"
 	"testing"
 
+	"midrank/core/internal/arrange"
 	"midrank/core/rank"
+	"midrank/core/testfiles"
 )
 
 // ranked ranks values of groups numbered in their order.
@@ -26,18 +28,11 @@ func ranked(values []float64, groups []int32, k int) rank.Ranking {
 // R datasets with ordered groups (testdata/trend, written by
 // tools/reference/trend.R, R 4.2.2).
 func TestAgainstR(t *testing.T) {
-	f, err := os.Open("../../testdata/trend/expected.tsv")
+	rows, err := testfiles.Rows(os.DirFS("../../testdata/trend"), "expected.tsv")
 	if err != nil {
 		t.Fatal(err)
 	}
-	defer f.Close()
-	r := csv.NewReader(f)
-	r.Comma, r.Comment = '\t', '#'
-	rows, err := r.ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	for _, row := range rows[1:] {
+	for _, row := range rows[1:] { // after the header
 		name, levels := row[0], strings.Split(row[1], "|")
 		want := make([]float64, 5)
 		for i, cell := range row[2:] {
@@ -111,7 +106,7 @@ func enumerate(sizes []int, values []float64) map[int64]float64 {
 	for {
 		tally[pairByPair(labels, values)]++
 		total++
-		if !nextPermutation(labels) {
+		if !arrange.Next(labels) {
 			break
 		}
 	}
@@ -130,25 +125,6 @@ func labelsOf(sizes []int) []int {
 		}
 	}
 	return labels
-}
-
-// nextPermutation steps a to its next distinct arrangement in
-// lexicographic order (Knuth, TAOCP 7.2.1.2, algorithm L).
-func nextPermutation(a []int) bool {
-	i := len(a) - 2
-	for i >= 0 && a[i] >= a[i+1] {
-		i--
-	}
-	if i < 0 {
-		return false
-	}
-	j := len(a) - 1
-	for a[j] <= a[i] {
-		j--
-	}
-	a[i], a[j] = a[j], a[i]
-	slices.Reverse(a[i+1:])
-	return true
 }
 
 // matchesEnumeration compares the exact distribution (and the one dealt
@@ -305,18 +281,11 @@ func TestMonteCarloHoldsExact(t *testing.T) {
 // scipy 1.10.1's permutation_test in exact mode with J counted pair by pair
 // (testdata/trend/scipy_exact.tsv, tools/reference/trend_exact.py).
 func TestAgainstScipy(t *testing.T) {
-	f, err := os.Open("../../testdata/trend/scipy_exact.tsv")
+	rows, err := testfiles.Rows(os.DirFS("../../testdata/trend"), "scipy_exact.tsv")
 	if err != nil {
 		t.Fatal(err)
 	}
-	defer f.Close()
-	r := csv.NewReader(f)
-	r.Comma, r.Comment = '\t', '#'
-	rows, err := r.ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	for _, row := range rows[1:] {
+	for _, row := range rows[1:] { // after the header
 		perGroup, _ := strconv.Atoi(row[2])
 		j, _ := strconv.ParseFloat(row[4], 64)
 		want, _ := strconv.ParseFloat(row[5], 64)
