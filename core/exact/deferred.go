@@ -54,7 +54,7 @@ const maxDeferred = 12
 
 // finishCost is what combining a state of the last layer with one way to
 // deal the deferred scores costs against a cell of an array (k products and
-// a map entry), for comparing plans and for Limits.MaxWork: measured here at
+// an entry in the distribution's table), for comparing plans and for Limits.MaxWork: measured here at
 // 1 to 2 (the layers' cells cost more than their arithmetic, as each is
 // dealt to every group).
 const finishCost = 2
