@@ -53,7 +53,7 @@ func TrendSentence(t TrendFacts, alpha float64) string {
 	if t.Alternative == "two-sided" {
 		sided = "two-sided"
 	}
-	figures := fmt.Sprintf("J = %s, z = %s, %s %s (%s); Kendall's τ_b between the order and the values is %s (%s)",
+	figures := fmt.Sprintf("J = %s, z = %s, %s %s (%s); Kendall's tau-b between the order and the values is %s (%s)",
 		Number(t.J), display.Statistic.Format(t.Z), sided, PValue(t.P), trendMethod(t.Method), display.Effect.Format(t.Tau), t.Size)
 	if Significant(t.P, alpha) {
 		way := "rise"

@@ -107,8 +107,8 @@ var trendColumns = []column[*core.Trend]{
 	{Column{"p_interval", "99% interval for p", NoUnit, display.PValue}, func(t *core.Trend) any { return monteCarloInterval(t.MonteCarlo) }},
 	{Column{"exact_critical_value", "J needed for significance (exact)", NoUnit, display.Figure}, trendCritical},
 	{Column{"significant", "Significant at the chosen level", NoUnit, display.Flag}, func(t *core.Trend) any { return t.Significant }},
-	{Column{"tau_b", "Kendall's τ_b, order with values", NoUnit, display.Effect}, func(t *core.Trend) any { return t.TauB }},
-	{Column{"tau_b_size", "τ_b in words", NoUnit, display.Text}, func(t *core.Trend) any { return t.TauBSize }},
+	{Column{"tau_b", "Kendall's tau-b, order with values", NoUnit, display.Effect}, func(t *core.Trend) any { return t.TauB }},
+	{Column{"tau_b_size", "tau-b in words", NoUnit, display.Text}, func(t *core.Trend) any { return t.TauBSize }},
 }
 
 // trendCritical is the exact critical J, or why there is none.
@@ -256,7 +256,7 @@ func Figures(r *core.Result) Table {
 // Trend is the table of the trend test's figures, one row; call it only
 // when r.Trend is not nil.
 func Trend(r *core.Result) Table {
-	note := r.Trend.Reason + " τ_b in words " + core.TauSizeRule() + ". " + report.TrendOrderCaution
+	note := r.Trend.Reason + " Tau-b in words " + core.TauSizeRule() + ". " + report.TrendOrderCaution
 	t := build("trend", "Trend along the groups' order", note, "", trendColumns, []*core.Trend{r.Trend})
 	t.List = true
 	for i := range t.Columns {
