@@ -65,6 +65,25 @@ func BenchmarkPage(b *testing.B) {
 		b.ReportMetric(float64(peak), "MB/tab-peak")
 		page.number(b, `document.getElementById("held-clear")?.click(); 0`)
 	})
+	b.Run("Monte Carlo, 2,000,000 resamples of 100 values in 4 groups", func(b *testing.B) {
+		var text strings.Builder
+		text.WriteString("unit,score\n")
+		for i := range 100 {
+			fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
+		}
+		figure(b, "resamples/s", func() float64 {
+			if err := chromedp.Do(page.ctx, chromedp.SetValue("#data", text.String()), chromedp.SetValue("#pvalue", "monte-carlo"),
+				chromedp.SetValue("#resamples", "2000000")); err != nil {
+				b.Fatal(err)
+			}
+			page.number(b, `document.getElementById("status").textContent = ""; document.getElementById("analyse").click(); 0`)
+			page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
+			return 2e6 / page.number(b, `performance.getEntriesByName("midrank:analysis").at(-1).duration / 1000`)
+		})
+		if err := chromedp.Do(page.ctx, chromedp.SetValue("#pvalue", "auto"), chromedp.SetValue("#resamples", "100000")); err != nil {
+			b.Fatal(err)
+		}
+	})
 	b.Run("60 measures × 5,000 rows × 8 groups", func(b *testing.B) {
 		figure(b, "ms/battery", func() float64 {
 			// the columns of numbers come from a fixed arithmetic sequence, so that every run is the same
