@@ -80,7 +80,9 @@ function renderPairs(state) {
       th.replaceChildren(b);
     },
   });
-  renderMatrix(r, pairs, adjusted, differ);
+  // the matrix shows every pair: with a reference group it would be mostly empty
+  $("matrix-box").hidden = r.posthoc.reference !== null;
+  if (r.posthoc.reference === null) renderMatrix(r, pairs, adjusted, differ);
 }
 
 // renderMatrix shows the adjusted p of every pair at a glance.

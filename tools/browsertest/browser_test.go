@@ -865,6 +865,9 @@ func TestPage(t *testing.T) {
 		if got := b.text(t, "#pairs-hint"); !strings.Contains(got, "with ctrl") {
 			t.Errorf("pairs hint %q", got)
 		}
+		if hidden, _ := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("matrix-box").hidden`)); !hidden {
+			t.Error("the matrix of every pair is shown beside comparisons with a reference group")
+		}
 		if err := chromedp.Do(b.ctx, chromedp.SetValue("#reference", "")); err != nil {
 			t.Fatal(err)
 		}
