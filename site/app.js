@@ -32,7 +32,7 @@ const bridge = createBridge(
     preview: (preview) => update({ preview }),
     progress: (stage, done, total) => {
       const pct = Math.floor(100 * done / total);
-      setStatus(({ exact: "Exact distribution", measures: "Measures analysed" }[stage] ?? "Resamples") + ": " + pct + "%");
+      setStatus(({ exact: "Exact distribution", measures: "Measures analysed", trend: "Resamples for the trend" }[stage] ?? "Resamples") + ": " + pct + "%");
       $("progress").value = pct;
       $("progress").hidden = false;
     },

@@ -11,6 +11,7 @@ package tables
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"midrank/core"
@@ -280,7 +281,11 @@ func Groups(r *core.Result) Table {
 	if l := r.Levels; l != nil && l.Values[0] == 1 && l.Names[0] != "1" {
 		note += fmt.Sprintf(" Values are the levels' places on the scale: 1 (%s) to %d (%s).", l.Names[0], len(l.Names), l.Names[len(l.Names)-1])
 	}
-	return build("groups", "Groups", note, r.Input.Measure, groupColumns, rows)
+	columns := groupColumns
+	if r.PostHoc == nil || r.PostHoc.Reference != nil { // letters come only from comparing every pair
+		columns = slices.DeleteFunc(slices.Clone(columns), func(c column[groupRow]) bool { return c.Key == "letters" })
+	}
+	return build("groups", "Groups", note, r.Input.Measure, columns, rows)
 }
 
 // Levels is the table of a table of counts' groups level by level; call it
