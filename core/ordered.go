@@ -92,7 +92,7 @@ func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []s
 	out := &Trend{Order: labels, Alternative: string(alt), Statistic: t.J, Expected: t.Expected, Variance: t.Variance, Z: t.Z,
 		PNormal: t.Normal(alt), TauB: t.TauB, TauBSize: TauSize(t.TauB)}
 	out.P, out.PMethod, out.Reason = out.PNormal, string(PValueAsymptotic), report.TrendNormal
-	method := s.pvalue
+	method, automatic := s.pvalue, false
 	if method == PValueAuto || method == PValueExact {
 		d, err := trend.Exact(ctx, ranking)
 		switch {
@@ -109,9 +109,8 @@ func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []s
 			return nil, err
 		}
 		out.Reason = report.TrendTooLarge
-		rough := smallest(ranking.Sizes) < report.SmallGroup || c < HeavyTies
-		if draws := float64(float64(len(ranking.Sorted)) * float64(s.resamples)); rough && draws <= AutoMonteCarloDraws {
-			method = PValueMonteCarlo
+		if rough, fits := monteCarloInstead(ranking, c, s.resamples); rough && fits {
+			method, automatic = PValueMonteCarlo, true
 		}
 	}
 	if method == PValueMonteCarlo {
@@ -125,7 +124,7 @@ func testTrend(ctx context.Context, s settings, ranking rank.Ranking, labels []s
 		}
 		out.P, out.PMethod = mc.P, string(PValueMonteCarlo)
 		out.MonteCarlo = &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}
-		out.Reason = report.TrendMonteCarlo(mc.Resamples, mc.Seed, out.Reason == report.TrendTooLarge)
+		out.Reason = report.TrendMonteCarlo(mc.Resamples, mc.Seed, automatic)
 	}
 	out.Significant = report.Significant(out.P, s.alpha)
 	return out, nil

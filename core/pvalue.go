@@ -128,12 +128,10 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 		}
 		choice.ExactTooLarge = true
 		method = PValueAsymptotic
-		if smallest(ranking.Sizes) < report.SmallGroup || c < HeavyTies {
-			if draws := float64(float64(len(ranking.Sorted)) * float64(s.resamples)); draws <= AutoMonteCarloDraws {
-				method = PValueMonteCarlo
-			} else {
-				choice.MonteCarloTooLong = true
-			}
+		if rough, fits := monteCarloInstead(ranking, c, s.resamples); rough && fits {
+			method = PValueMonteCarlo
+		} else if rough {
+			choice.MonteCarloTooLong = true
 		}
 	}
 	choice.Method = string(method)
@@ -152,6 +150,17 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 	choice.Resamples, choice.Seed = mc.Resamples, mc.Seed
 	return pvalue{method: method, p: mc.P, reason: report.MethodReason(choice),
 		monteCarlo: &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}}, nil
+}
+
+// monteCarloInstead tells, when the exact distribution is too large for an
+// automatic choice, whether the large-sample approximation is rough (a group
+// under report.SmallGroup values, or heavy ties: the tie correction c below
+// HeavyTies), so that Monte Carlo should take its place, and whether the
+// Monte Carlo draws (values × resamples) fit AutoMonteCarloDraws.
+func monteCarloInstead(ranking rank.Ranking, c float64, resamples int) (rough, fits bool) {
+	rough = smallest(ranking.Sizes) < report.SmallGroup || c < HeavyTies
+	fits = float64(float64(len(ranking.Sorted))*float64(resamples)) <= AutoMonteCarloDraws
+	return rough, fits
 }
 
 // pvalue is what pvalueOf finds.

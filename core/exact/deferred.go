@@ -37,6 +37,18 @@ type plan struct {
 	fig     figures
 	late    []Block // dealt last, x
 	base, g int64   // x = base + g·y for the scores of the layers
+	// ways are the deals of the late blocks into each bucket of the last
+	// layer, by its counts (see countsKey), listed when the plan is costed
+	ways map[string][]addition
+}
+
+// countsKey is a map key of a bucket's counts.
+func countsKey(counts []int) string {
+	var key []byte
+	for _, c := range counts {
+		key = binary.AppendUvarint(key, uint64(c))
+	}
+	return string(key)
 }
 
 // planRule picks between the whole computation and the deferred one.
@@ -157,7 +169,7 @@ type addition struct {
 // additions lists every way to deal the late blocks into groups with this
 // room, which adds up to their count, deals that add the same to every group
 // merged; it stops early, with nil, when more than stop ways are held at
-// once (stop < 0: no bound). The blocks are dealt one at a time, ways that
+// once. The blocks are dealt one at a time, ways that
 // leave the same room and add the same merged after each: block j goes to
 // the groups with the probability ∏ C(rᵢ, dᵢ)/C(R, b), rᵢ the room left in
 // group i and R their sum.
@@ -237,8 +249,9 @@ func sum(xs []int) int {
 }
 
 // finishWork is the planned work of combining the last layer's states with
-// the deferred scores' deals, in cells' worth; it stops counting, and says
-// so with false, beyond limit.
+// the deferred scores' deals, in cells' worth, keeping the deals of each
+// bucket for finish; it stops counting, and says so with false, beyond
+// limit.
 func (p *plan) finishWork(limit int) (work int, ok bool) {
 	s := p.s
 	if limit < 0 {
@@ -246,6 +259,7 @@ func (p *plan) finishWork(limit int) (work int, ok bool) {
 	}
 	room := make([]int, len(s.sizes))
 	ok = true
+	p.ways = map[string][]addition{}
 	s.countVectors(s.n, func(counts []int) bool {
 		for i, c := range counts {
 			room[i] = s.sizes[i] - c
@@ -255,6 +269,7 @@ func (p *plan) finishWork(limit int) (work int, ok bool) {
 		if work = min(work+product(product(cells, len(adds)), finishCost), tooMany); adds == nil || work > limit {
 			ok = false
 		}
+		p.ways[countsKey(counts)] = adds
 		return ok
 	})
 	return work, ok
@@ -267,14 +282,11 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 	s := p.s
 	k := len(s.sizes)
 	mass := newTable(1024, nil) // T's probabilities: T < 2⁶² is never the empty key
-	room, x := make([]int, k), make([]int64, k)
+	x := make([]int64, k)
 	for j, b := range last {
 		adds := []addition{{sums: make([]int64, k), p: 1}}
 		if s.deferred {
-			for i, c := range b.counts {
-				room[i] = s.sizes[i] - c
-			}
-			adds = p.additions(room, -1)
+			adds = p.ways[countsKey(b.counts)] // listed for every count vector of the last layer when the plan was costed
 		}
 		err := b.each(ctx, s.prefix[s.n], st.sum, func(q float64) {
 			for i, y := range st.sum[:k] {

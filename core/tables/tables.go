@@ -113,15 +113,7 @@ var trendColumns = []column[*core.Trend]{
 }
 
 // trendCritical is the exact critical J, or why there is none.
-func trendCritical(t *core.Trend) any {
-	switch {
-	case t.PMethod != "exact":
-		return words{"", "not computed"}
-	case t.CriticalExact == nil:
-		return words{"", "none reachable"}
-	}
-	return *t.CriticalExact
-}
+func trendCritical(t *core.Trend) any { return critical(t.PMethod, t.CriticalExact) }
 
 // trendCriticalHeadings say which side of the critical J is significant.
 var trendCriticalHeadings = map[string]string{
@@ -188,14 +180,18 @@ var pairColumns = []column[core.PairResult]{
 var methodWords = map[string]string{"asymptotic": "chi-square approximation", "exact": "exact permutation", "monte-carlo": "Monte Carlo"}
 
 // exactCritical is the exact critical value, or why there is none.
-func exactCritical(r *core.Result) any {
+func exactCritical(r *core.Result) any { return critical(r.PMethod, r.ExactCriticalValue) }
+
+// critical is an exact critical value, or why there is none: p was not
+// found exactly, or no outcome is rare enough for alpha.
+func critical(method string, value *float64) any {
 	switch {
-	case r.PMethod != "exact":
+	case method != "exact":
 		return words{"", "not computed"}
-	case r.ExactCriticalValue == nil:
+	case value == nil:
 		return words{"", "none reachable"}
 	}
-	return *r.ExactCriticalValue
+	return *value
 }
 
 // epsilonInterval is ε²'s bootstrap interval, or why there is none.
