@@ -181,7 +181,11 @@ func writePairs(b *strings.Builder, f Facts) {
 		b.WriteString("Because the overall test is not significant, the pairwise results are shown for completeness and should not be read as findings. ")
 		return
 	}
-	if len(f.Differences) == 0 {
+	switch {
+	case len(f.Differences) == 0 && f.Reference != "":
+		fmt.Fprintf(b, "No group differs significantly from %s after the adjustment; the overall difference may lie between groups that were not compared with one another. ", f.Reference)
+		return
+	case len(f.Differences) == 0:
 		b.WriteString("No pair differs significantly after the adjustment, so the overall difference cannot be pinned on particular groups. ")
 		return
 	}

@@ -117,9 +117,9 @@ func trendCritical(t *core.Trend) any { return critical(t.PMethod, t.CriticalExa
 
 // trendCriticalHeadings say which side of the critical J is significant.
 var trendCriticalHeadings = map[string]string{
-	"increasing": "Exact: significant from J of",
-	"decreasing": "Exact: significant up to J of",
-	"two-sided":  "Exact: significant from J of (or as far below J expected)",
+	"increasing": "Significant when J is at least (exact)",
+	"decreasing": "Significant when J is at most (exact)",
+	"two-sided":  "Significant when J is at least (exact; or as far below the expected J)",
 }
 
 // trendWords and trendMethodWords put the trend test's keys into words.
@@ -314,7 +314,7 @@ func Pairs(r *core.Result) Table {
 	}
 	compared := "Compared"
 	if ph.Reference != nil {
-		compared = fmt.Sprintf("Each group compared with the reference group \u201c%s\u201d only (%d comparisons, not every pair; so the groups get no letters)", *ph.Reference, len(ph.Pairs))
+		compared = fmt.Sprintf("Each other group compared with the reference group \u201c%s\u201d only (%d comparisons, not every pair; so the groups get no letters)", *ph.Reference, len(ph.Pairs))
 	}
 	note := fmt.Sprintf("%s by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, %s.",
 		compared, ph.Method.Name(), ph.Method.Statistic(), adjusted, intervals)

@@ -54,7 +54,7 @@ function pairsHint(r) {
       + " are shown for completeness and should not be read as findings.";
   }
   return reference === null ? "Groups that share a letter in the table above could not be told apart at the chosen level."
-    : "Each group was compared with " + reference + " only, so the groups get no letters.";
+    : "Each other group was compared with " + reference + " only, so the groups get no letters.";
 }
 
 function renderPairs(state) {
