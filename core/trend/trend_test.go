@@ -313,6 +313,24 @@ func TestAgainstScipy(t *testing.T) {
 	}
 }
 
+// TestPublishedExample: the worked example of the Jonckheere–Terpstra test
+// in Hollander & Wolfe, Nonparametric Statistical Methods (2nd ed. 1999,
+// section 6.2: pieces produced by workers given no, rough or accurate
+// information on their performance) has J = 79 (from memory; the data are
+// testdata/trend/hollander_wolfe.csv, whose z R's cor.test and whose exact
+// p scipy's permutation_test confirm in the tests above). E(J) = 54 is
+// (N² − Σ nᵢ²)/4 with N = 18 and three groups of 6.
+func TestPublishedExample(t *testing.T) {
+	values, groups := readGroups(t, "../../testdata/trend/hollander_wolfe.csv", []string{"none", "rough", "accurate"})
+	test, err := Compute(ranked(values, groups, 3))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if test.J != 79 || test.Expected != 54 {
+		t.Errorf("J = %v, E(J) = %v; Hollander & Wolfe give J = 79, and E(J) = 54", test.J, test.Expected)
+	}
+}
+
 // TestLargeSamplesRefused: a million values, untied or on a scale, are
 // refused by the exact method at once (its counts would pass 2⁶³ and its
 // arrays the memory), while J and z are still computed.

@@ -10,7 +10,14 @@ cases <- list(
   list(name = "warpbreaks", group = warpbreaks$tension, value = warpbreaks$breaks),
   list(name = "toothgrowth", group = factor(ToothGrowth$dose), value = ToothGrowth$len),
   list(name = "esoph", group = esoph$agegp, value = esoph$ncases),
-  list(name = "airquality", group = factor(airquality$Month), value = airquality$Ozone)
+  list(name = "airquality", group = factor(airquality$Month), value = airquality$Ozone),
+  # Hollander & Wolfe, Nonparametric Statistical Methods (2nd ed. 1999), the
+  # worked example of section 6.2: pieces produced by workers given no, rough
+  # or accurate information on their performance (from memory; the book gives
+  # J = 79, which the count below must reproduce)
+  list(name = "hollander_wolfe", group = factor(rep(c("none", "rough", "accurate"), each = 6),
+    levels = c("none", "rough", "accurate")),
+    value = c(40, 35, 38, 43, 44, 41, 38, 40, 47, 44, 40, 42, 48, 40, 45, 43, 46, 44))
 )
 rows <- list()
 for (c in cases) {
