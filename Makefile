@@ -94,6 +94,7 @@ fuzz:
 	$(call fuzz-once,./core/link,FuzzDecode) || $(call fuzz-once,./core/link,FuzzDecode)
 	$(call fuzz-once,./core,FuzzDecodeOptions) || $(call fuzz-once,./core,FuzzDecodeOptions)
 	$(call fuzz-once,./core/jsonlite,FuzzParseObject) || $(call fuzz-once,./core/jsonlite,FuzzParseObject)
+	$(call fuzz-once,./core/jsonlite,FuzzParseTree) || $(call fuzz-once,./core/jsonlite,FuzzParseTree)
 	$(call fuzz-once,./core,FuzzPreview) || $(call fuzz-once,./core,FuzzPreview)
 	$(call fuzz-once,./core/exact,FuzzAgainstEnumeration) || $(call fuzz-once,./core/exact,FuzzAgainstEnumeration)
 	$(call fuzz-once,./core/trend,FuzzAgainstEnumeration) || $(call fuzz-once,./core/trend,FuzzAgainstEnumeration)

@@ -17,6 +17,7 @@ import (
 
 	"midrank/core/describe"
 	"midrank/core/kruskal"
+	"midrank/core/protect"
 	"midrank/core/rank"
 	"midrank/core/report"
 	"midrank/core/table"
@@ -99,15 +100,19 @@ type Result struct {
 	TiesComplete           bool                `json:"ties_complete"` // false: ties is empty, ask Page for them
 	PostHoc                *PostHoc            `json:"posthoc"`       // null when no post-hoc method was asked for
 	Trend                  *Trend              `json:"trend"`         // null when no trend test was asked for (or the values cannot vary)
-	Warnings               []string            `json:"warnings"`
-	Decision               string              `json:"decision"`
+	// Protection says which groups what is shared hides (see
+	// Options.MinGroupSize), null when protection is off
+	Protection *Protection `json:"protection"`
+	Warnings   []string    `json:"warnings"`
+	Decision   string      `json:"decision"`
 	// ResultLine is the result in one line, as reports write it:
 	// "H(2) = 7.99, p = .018, ε² = 0.28, N = 30" (see report.ResultLine)
 	ResultLine string `json:"result_line"`
 
 	table      *table.Table
 	ranking    rank.Ranking
-	pairsAsked bool // a post-hoc method was asked for
+	pairsAsked bool         // a post-hoc method was asked for
+	plan       protect.Plan // the groups what is shared hides
 	byRank     struct {
 		once  sync.Once
 		order []int32 // indices of the values, smallest first, stable
@@ -243,40 +248,12 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		r.Ties = ranking.Ties
 	}
 
-	r.Warnings = warnings(r)
-	facts := report.Facts{
-		Labels: t.Labels, Sizes: sizes, Measure: t.Measure, Left: r.Input.LeftLabels(),
-		H: r.H, DF: r.DF, P: r.PValue, Method: r.PMethod, Alpha: r.Alpha,
-		Epsilon: r.EpsilonSquared, Size: r.EpsilonSquaredSize, EpsilonInterval: r.EpsilonSquaredInterval,
-		Unreachable: r.PMethod == string(PValueExact) && r.ExactCriticalValue == nil,
+	r.Warnings = warnings(r, protect.Plan{})
+	r.plan = protect.For(sizes, s.minGroupSize)
+	if s.minGroupSize > 0 {
+		r.Protection = protectionOf(r)
 	}
-	if len(r.Groups) <= MaxNamedGroups {
-		for _, g := range r.Groups {
-			facts.Medians, facts.Q1, facts.Q3 = append(facts.Medians, g.Median), append(facts.Q1, g.Q1), append(facts.Q3, g.Q3)
-		}
-	}
-	if tr := r.Trend; tr != nil {
-		facts.Trend = &report.TrendFacts{Order: tr.Order, Alternative: tr.Alternative, J: tr.Statistic, Z: tr.Z, P: tr.P, Method: tr.PMethod, Tau: tr.TauB, Size: tr.TauBSize}
-	}
-	if mc := r.MonteCarlo; mc != nil {
-		facts.Resamples, facts.Seed, facts.Low, facts.High = mc.Resamples, mc.Seed, mc.CILow, mc.CIHigh
-	}
-	if ph := r.PostHoc; ph != nil {
-		facts.PairMethod, facts.AdjustName, facts.PairsTested = ph.Method.Name(), ph.Adjust.Name(), len(ph.Pairs)
-		if ph.Reference != nil {
-			facts.Reference = *ph.Reference
-		}
-		for _, p := range ph.Pairs {
-			if !p.Significant {
-				continue
-			}
-			d := report.Difference{Higher: p.A, Lower: p.B, PAdjusted: *p.PAdjusted, Superiority: p.ProbSuperiority, Shift: p.Shift}
-			if p.ProbSuperiority < 0.5 {
-				d.Higher, d.Lower, d.Superiority, d.Shift = p.B, p.A, 1-p.ProbSuperiority, -p.Shift
-			}
-			facts.Differences = append(facts.Differences, d)
-		}
-	}
+	facts := r.facts(protect.Plan{})
 	r.Decision = report.Decision(facts)
 	r.ResultLine = report.ResultLine(facts)
 	return r, nil

@@ -89,6 +89,8 @@ func Encode(r *Result) ([]byte, error) {
 	writePostHoc(&w, r.PostHoc)
 	w.Key("trend")
 	writeTrend(&w, r.Trend)
+	w.Key("protection")
+	writeProtection(&w, r.Protection)
 	w.Key("warnings")
 	writeStrings(&w, r.Warnings)
 	w.StringMember("decision", r.Decision)

@@ -10,6 +10,7 @@ import (
 	"midrank/core/adjust"
 	"midrank/core/jsonlite"
 	"midrank/core/posthoc"
+	"midrank/core/protect"
 	"midrank/core/table"
 	"midrank/core/trend"
 )
@@ -45,6 +46,11 @@ type Options struct {
 	// (the data's, or Order's): none (default), increasing, decreasing or
 	// two-sided.
 	Trend string `json:"trend,omitempty"`
+	// MinGroupSize protects small groups in what is shared: groups with
+	// fewer values (and those hidden with them, see package protect) show
+	// no figures in reports, files and links; 0 (default) for none. The
+	// analysis itself is the same.
+	MinGroupSize int `json:"min_group_size,omitempty"`
 
 	// Group edits, each naming groups by their labels as written in the data
 	// (see table.Edits): the groups to put first, in order; the groups to
@@ -60,6 +66,7 @@ const (
 	DefaultResamples = 100_000
 	DefaultSeed      = 1
 	MaxResamples     = 100_000_000
+	MaxMinGroupSize  = 1000 // the largest threshold for protecting small groups
 	// MaxSeed is 2⁵³ − 1, the largest whole number JavaScript holds exactly,
 	// so that a seed survives the page, its links and its JSON unchanged.
 	MaxSeed = 1<<53 - 1
@@ -182,6 +189,12 @@ func (o *Options) set(names []string, values map[string]jsonlite.Value, extra fu
 				return fmt.Errorf("%q must be a whole number from 1 to %d", name, MaxResamples)
 			}
 			o.Resamples = int(n)
+		case "min_group_size":
+			n, err := wholeNumber(name, v)
+			if err != nil || n < 0 || n > MaxMinGroupSize {
+				return fmt.Errorf("%q must be a whole number from 0 to %d", name, MaxMinGroupSize)
+			}
+			o.MinGroupSize = int(n)
 		case "seed":
 			n, err := wholeNumber(name, v)
 			if err != nil || n < 0 {
@@ -251,6 +264,9 @@ func (o Options) write(w *jsonlite.Writer) {
 		w.Key("seed")
 		w.Uint(*o.Seed)
 	}
+	if o.MinGroupSize != 0 {
+		w.IntMember("min_group_size", o.MinGroupSize)
+	}
 	if len(o.Measures) > 0 {
 		w.Key("measures")
 		w.Strings(o.Measures)
@@ -293,6 +309,8 @@ type settings struct {
 	adjust    adjust.Method
 	trend     trend.Alternative // "" when no trend test was asked for
 	reference string            // the reference group's label as written in the data, "" for every pair
+	// minGroupSize: groups under it are hidden in what is shared (0: none)
+	minGroupSize int
 	// effectBudget bounds the work of ε²'s interval (see EffectBudget)
 	effectBudget int
 	// listLimit bounds the values and tie blocks listed in the answer (see ListLimit)
@@ -374,6 +392,9 @@ func (o Options) validate() (settings, error) {
 		s.resamples = DefaultResamples
 	case s.resamples < 1 || s.resamples > MaxResamples:
 		return s, &OptionError{"resamples", fmt.Sprint(o.Resamples), fmt.Sprintf("choose a whole number from 1 to %d, for example %d", MaxResamples, DefaultResamples)}
+	}
+	if s.minGroupSize = o.MinGroupSize; s.minGroupSize < 0 || s.minGroupSize > MaxMinGroupSize {
+		return s, &OptionError{"min_group_size", fmt.Sprint(o.MinGroupSize), fmt.Sprintf("choose a whole number from 0 (no protection) to %d, for example %d", MaxMinGroupSize, protect.Suggested)}
 	}
 	s.seed = DefaultSeed
 	if o.Seed != nil {

@@ -23,6 +23,13 @@ func (r Request) JSON() []byte {
 	return w.Bytes()
 }
 
+// Check reports the first setting that cannot be used, nil when every one
+// can.
+func (o Options) Check() error {
+	_, err := o.validate()
+	return err
+}
+
 // ShareLink packs data and options into a link fragment (package link). The
 // link holds the data itself: whoever has the link can read it.
 func ShareLink(data []byte, opt Options) (string, error) {
@@ -38,6 +45,9 @@ func OpenLink(fragment string) (Request, error) {
 	raw, err := link.Decode(fragment)
 	if err != nil {
 		return Request{}, err
+	}
+	if link.CarriesResults(raw) {
+		return Request{}, &link.Error{Reason: "it carries results only, without the data, so there is nothing to analyse; open it in the page to read the results"}
 	}
 	return ParseRequest(raw)
 }

@@ -1,12 +1,16 @@
 package core
 
-import "midrank/core/report"
+import (
+	"midrank/core/protect"
+	"midrank/core/report"
+)
 
 // warnings are the cautions an answer carries (worded in report): small
 // groups under the chi-square approximation, pairs not compared, a Monte
 // Carlo interval that straddles alpha, a p-value below what a double holds,
 // heavy ties.
-func warnings(r *Result) []string {
+// A group that plan hides is named without its size.
+func warnings(r *Result, plan protect.Plan) []string {
 	c := report.Cautions{
 		Reading:       r.Input.Reason,
 		PairsSkipped:  r.K > MaxPairGroups && r.PostHoc == nil && r.pairsAsked,
@@ -18,9 +22,13 @@ func warnings(r *Result) []string {
 		TieCorrection: r.TieCorrection,
 	}
 	if r.PMethod == string(PValueAsymptotic) {
-		for _, g := range r.Groups {
+		for i, g := range r.Groups {
 			if g.N < report.SmallGroup {
-				c.SmallGroups = append(c.SmallGroups, report.GroupSize{Label: g.Label, N: g.N})
+				size := report.GroupSize{Label: g.Label, N: g.N}
+				if plan.Hidden(i) {
+					size.N = 0
+				}
+				c.SmallGroups = append(c.SmallGroups, size)
 			}
 		}
 	}

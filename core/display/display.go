@@ -49,6 +49,9 @@ const (
 // showNames are the keys of Show in JSON, in the order of the constants.
 var showNames = [...]string{"text", "count", "figure", "p", "share", "statistic", "effect", "flag", "as-read"}
 
+// ShowNames are the keys of every Show in JSON.
+func ShowNames() []string { return showNames[:] }
+
 // String is the key of s in JSON.
 func (s Show) String() string { return showNames[s] }
 

@@ -17,9 +17,11 @@ const (
 	String
 	List   // an array of strings
 	Record // an object whose members are strings
+	Array  // a nested array of any values (a Node, see ParseTree)
+	Object // a nested object of any values (a Node)
 )
 
-var kindNames = [...]string{"null", "bool", "number", "string", "list", "record"}
+var kindNames = [...]string{"null", "bool", "number", "string", "list", "record", "array", "object"}
 
 func (k Kind) String() string { return kindNames[k] }
 

@@ -109,6 +109,11 @@ func Against(ctx context.Context, method Method, r rank.Ranking, h, confidence f
 // studentized range of all k groups.
 func (m Method) ComparesAllPairs() bool { return m == DSCF }
 
+// JointRanks tells a procedure whose statistics come from the ranks of all
+// groups ranked together (Dunn's z and the Conover–Iman t: differences of
+// the groups' mean ranks), rather than from each pair ranked on its own.
+func (m Method) JointRanks() bool { return m == Dunn || m == Conover }
+
 // run fills in the pairs.
 func run(ctx context.Context, method Method, r rank.Ranking, h, confidence float64, pairs []Pair) ([]Pair, error) {
 	groups := tallies(r)

@@ -41,7 +41,7 @@ type Cautions struct {
 // GroupSize is a group's label and its number of values.
 type GroupSize struct {
 	Label string
-	N     int
+	N     int // 0: not told (a protected group)
 }
 
 // Interval is a confidence interval.
@@ -66,7 +66,11 @@ func Warnings(c Cautions) []string {
 			len(small), small[0].Label, small[1].Label, len(small)-2, SmallGroup))
 	default:
 		for _, g := range small {
-			w = append(w, fmt.Sprintf("Group %q has %d values, fewer than %d: the chi-square approximation is rough for groups this small.", g.Label, g.N, SmallGroup))
+			has := fmt.Sprintf("has %d values, fewer than %d", g.N, SmallGroup)
+			if g.N == 0 { // a protected group's size is not told
+				has = fmt.Sprintf("has fewer than %d values", SmallGroup)
+			}
+			w = append(w, fmt.Sprintf("Group %q %s: the chi-square approximation is rough for groups this small.", g.Label, has))
 		}
 	}
 	if c.PairsUndefined {

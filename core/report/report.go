@@ -4,9 +4,11 @@ package report
 
 import (
 	"fmt"
+	"slices"
+	"strings"
+
 	"midrank/core/bootstrap"
 	"midrank/core/display"
-	"strings"
 )
 
 // SmallGroup is the group size below which the chi-square approximation is
@@ -49,6 +51,12 @@ type Facts struct {
 	AdjustName  string // how the family was controlled, in words
 	PairsTested int
 	Differences []Difference // the significant pairs
+
+	// protection of small groups in what is shared: the groups (by index)
+	// spoken of without their figures, and how many pairs with them are
+	// left out (none of them is among Differences)
+	Withheld      []int
+	PairsWithheld int
 }
 
 // Difference is a pair that differs significantly.
@@ -85,6 +93,9 @@ func Decision(f Facts) string {
 		parts := make([]string, len(f.Labels))
 		for g, label := range f.Labels {
 			parts[g] = fmt.Sprintf("%s %s (%s to %s, n = %s)", label, Number(f.Medians[g]), Number(f.Q1[g]), Number(f.Q3[g]), thousands(int64(f.Sizes[g])))
+			if slices.Contains(f.Withheld, g) {
+				parts[g] = label + " not shown (protected)"
+			}
 		}
 		fmt.Fprintf(&b, "Medians (lower to upper quartile): %s. ", strings.Join(parts, "; "))
 	}
@@ -123,6 +134,14 @@ func Decision(f Facts) string {
 	}
 	if f.PairMethod != "" {
 		writePairs(&b, f)
+	}
+	if len(f.Withheld) > 0 {
+		hidden := make([]string, len(f.Withheld))
+		for i, g := range f.Withheld {
+			hidden[i] = f.Labels[g]
+		}
+		fmt.Fprintf(&b, "To protect the people in small groups, the figures of %s and the pairs that include %s are not shown. ",
+			listLabels(hidden), plural(len(hidden), "it", "them"))
 	}
 	b.WriteString("The test compares whole distributions; speak of a difference in medians only if the groups' distributions have a similar shape and spread. ")
 	if small := smallGroups(f.Labels, f.Sizes); len(small) > 0 && f.Method == "asymptotic" {
@@ -185,6 +204,9 @@ func writePairs(b *strings.Builder, f Facts) {
 	case len(f.Differences) == 0 && f.Reference != "":
 		fmt.Fprintf(b, "No group differs significantly from %s after the adjustment; the overall difference may lie between groups that were not compared with one another. ", f.Reference)
 		return
+	case len(f.Differences) == 0 && f.PairsWithheld > 0:
+		b.WriteString("No pair shown here differs significantly after the adjustment. ")
+		return
 	case len(f.Differences) == 0:
 		b.WriteString("No pair differs significantly after the adjustment, so the overall difference cannot be pinned on particular groups. ")
 		return
@@ -201,7 +223,7 @@ func writePairs(b *strings.Builder, f Facts) {
 		fmt.Fprintf(b, "Values in %s tend to be higher than in %s%s: adjusted %s, probability of superiority %s. ",
 			d.Higher, d.Lower, by, PValue(d.PAdjusted), display.Effect.Format(d.Superiority))
 	}
-	switch rest := f.PairsTested - len(f.Differences); {
+	switch rest := f.PairsTested - f.PairsWithheld - len(f.Differences); {
 	case rest == 1 && f.Reference != "":
 		fmt.Fprintf(b, "The other group shows no significant difference from %s. ", f.Reference)
 	case rest > 1 && f.Reference != "":

@@ -18,6 +18,7 @@ import (
 	"midrank/core/adjust"
 	"midrank/core/display"
 	"midrank/core/kruskal"
+	"midrank/core/protect"
 	"midrank/core/report"
 )
 
@@ -223,17 +224,35 @@ func optional[T any](v *T) any {
 // Of gives the tables of an analysis in the order a report shows them: the
 // test's figures, the trend test when asked for, the groups, for a table of counts the groups level by
 // level and, when pairs were compared, the pairs.
-func Of(r *core.Result) []Table {
+func Of(r *core.Result) []Table { return of(r, view{}) }
+
+// Shared gives the tables as outputs that leave the analyst's screen may
+// show them (results-only links; reports and files when small groups are
+// protected): no group's lowest or highest value, which are single
+// people's values; and when r.Plan hides groups (see package protect),
+// their rows without figures, their pairs left out, and no group's rank sum
+// or mean rank, nor the pairs' statistics and p-values of a procedure that
+// ranks all groups together: with the H statistic and the total, these
+// would let the hidden groups' rank sums be worked out.
+func Shared(r *core.Result) []Table { return of(r, view{shared: true, plan: r.Plan()}) }
+
+// view is what a set of tables may show.
+type view struct {
+	shared bool         // for sharing: no lowest or highest values
+	plan   protect.Plan // the groups hidden
+}
+
+func of(r *core.Result, v view) []Table {
 	out := []Table{Figures(r)}
 	if r.Trend != nil {
 		out = append(out, Trend(r))
 	}
-	out = append(out, Groups(r))
+	out = append(out, groups(r, v))
 	if r.Levels != nil {
-		out = append(out, Levels(r))
+		out = append(out, levels(r, v))
 	}
 	if r.PostHoc != nil {
-		out = append(out, Pairs(r))
+		out = append(out, pairs(r, v))
 	}
 	return out
 }
@@ -264,8 +283,11 @@ func Trend(r *core.Result) Table {
 	return t
 }
 
-// Groups is the table of the groups.
-func Groups(r *core.Result) Table {
+// withheld is the text of a figure not shown, in the row of a hidden group.
+const withheld = "not shown"
+
+// groups is the table of the groups.
+func groups(r *core.Result, v view) Table {
 	rows := make([]groupRow, len(r.Groups))
 	for i, g := range r.Groups {
 		rows[i].Group = g
@@ -277,18 +299,39 @@ func Groups(r *core.Result) Table {
 	if l := r.Levels; l != nil && l.Values[0] == 1 && l.Names[0] != "1" {
 		note += fmt.Sprintf(" Values are the levels' places on the scale: 1 (%s) to %d (%s).", l.Names[0], len(l.Names), l.Names[len(l.Names)-1])
 	}
-	columns := groupColumns
-	if r.PostHoc == nil || r.PostHoc.Reference != nil { // letters come only from comparing every pair
-		columns = slices.DeleteFunc(slices.Clone(columns), func(c column[groupRow]) bool { return c.Key == "letters" })
+	left := map[string]bool{"letters": r.PostHoc == nil || r.PostHoc.Reference != nil, // letters come only from comparing every pair
+		"lowest": v.shared, "highest": v.shared, "rank_sum": v.plan.Any(), "mean_rank": v.plan.Any()}
+	if v.plan.Any() {
+		left["letters"] = true // they would tell which shown groups a hidden one differs from
+		note += " " + r.ProtectionNote()
 	}
-	return build("groups", "Groups", note, r.Input.Measure, columns, rows)
+	columns := slices.DeleteFunc(slices.Clone(groupColumns), func(c column[groupRow]) bool { return left[c.Key] })
+	t := build("groups", "Groups", note, r.Input.Measure, columns, rows)
+	for g, row := range t.Rows {
+		if !v.plan.Hidden(g) {
+			continue
+		}
+		for j, c := range t.Columns {
+			switch c.Key {
+			case "group":
+			case "values":
+				row[j] = Cell{Value: v.plan.Size(g), Text: v.plan.Size(g)}
+			default:
+				row[j] = Cell{Text: withheld}
+			}
+		}
+	}
+	return t
 }
 
-// Levels is the table of a table of counts' groups level by level; call it
-// only when r.Levels is not nil.
-func Levels(r *core.Result) Table {
+// levels is the table of a table of counts' groups level by level, without
+// the hidden groups; call it only when r.Levels is not nil.
+func levels(r *core.Result, v view) Table {
 	var rows []levelRow
-	for _, g := range r.Levels.Groups {
+	for i, g := range r.Levels.Groups {
+		if v.plan.Hidden(i) {
+			continue
+		}
 		upTo := 0.0
 		for c, name := range r.Levels.Names {
 			upTo += g.Shares[c]
@@ -299,9 +342,9 @@ func Levels(r *core.Result) Table {
 	return build("levels", "Groups level by level", "Shares of each group's values; the median falls at the level marked, or between the two marked.", "", levelColumns, rows)
 }
 
-// Pairs is the table of the pairwise comparisons; call it only when pairs
-// were compared.
-func Pairs(r *core.Result) Table {
+// pairs is the table of the pairwise comparisons, without those of the
+// hidden groups; call it only when pairs were compared.
+func pairs(r *core.Result, v view) Table {
 	ph := r.PostHoc
 	adjusted := "adjusted by " + ph.Adjust.Name() + " for the whole family of comparisons"
 	if ph.Adjust == adjust.None {
@@ -318,7 +361,22 @@ func Pairs(r *core.Result) Table {
 	}
 	note := fmt.Sprintf("%s by %s, whose statistic is %s; p two-sided, %s. Chance first is higher: the probability that a value of the first group is higher than one of the second, a tie counting half (the probability of superiority). Shift: the Hodges–Lehmann estimate of how much higher the first group lies, %s.",
 		compared, ph.Method.Name(), ph.Method.Statistic(), adjusted, intervals)
-	t := build("pairs", "Pairs of groups", note, r.Input.Measure, pairColumns, ph.Pairs)
+	columns, shown := pairColumns, ph.Pairs
+	if v.plan.Any() {
+		hidden := map[string]bool{}
+		for g, group := range r.Groups {
+			hidden[group.Label] = v.plan.Hidden(g)
+		}
+		shown = slices.DeleteFunc(slices.Clone(shown), func(p core.PairResult) bool { return hidden[p.A] || hidden[p.B] })
+		note += fmt.Sprintf(" The %d pairs that include a protected group are not shown.", len(ph.Pairs)-len(shown))
+		if ph.Method.JointRanks() {
+			columns = slices.DeleteFunc(slices.Clone(columns), func(c column[core.PairResult]) bool {
+				return c.Key == "statistic" || c.Key == "p" || c.Key == "p_adjusted"
+			})
+			note += " Nor are the statistics and p-values: " + ph.Method.Name() + " works on the ranks of all groups together, so they would give the protected groups' ranks away; Differ gives each pair's decision."
+		}
+	}
+	t := build("pairs", "Pairs of groups", note, r.Input.Measure, columns, shown)
 	for i := range t.Columns {
 		if t.Columns[i].Key == "statistic" {
 			t.Columns[i].Heading = "Statistic " + ph.Method.Statistic()
@@ -355,4 +413,31 @@ func build[T any](name, title, note, measure string, columns []column[T], rows [
 		t.Rows[i] = cells
 	}
 	return t
+}
+
+// Keys are the column keys a table called name can have, in order (nil
+// for a name that is no table's): what a results-only link's tables are
+// checked against when it is opened.
+func Keys(name string) []string {
+	switch name {
+	case "figures":
+		return keysOf(figureColumns)
+	case "trend":
+		return keysOf(trendColumns)
+	case "groups":
+		return keysOf(groupColumns)
+	case "levels":
+		return keysOf(levelColumns)
+	case "pairs":
+		return keysOf(pairColumns)
+	}
+	return nil
+}
+
+func keysOf[T any](columns []column[T]) []string {
+	keys := make([]string, len(columns))
+	for i, c := range columns {
+		keys[i] = c.Key
+	}
+	return keys
 }

@@ -103,7 +103,7 @@ func TestAColumnIsAddedInOnePlace(t *testing.T) {
 	groupColumns = append(slices.Clip(groupColumns), column[groupRow]{Column{"spread", "Spread", MeasureUnit, display.Figure},
 		func(g groupRow) any { return g.Q3 - g.Q1 }})
 	r := plantGrowth(t, core.Options{})
-	g := Groups(r)
+	g := groups(r, view{})
 	last := g.Columns[len(g.Columns)-1]
 	if last.Key != "spread" || g.Rows[0][len(g.Columns)-1].Value != r.Groups[0].Q3-r.Groups[0].Q1 {
 		t.Errorf("added column missing: %+v", last)

@@ -1,0 +1,163 @@
+package findings
+
+import (
+	"bytes"
+	"encoding/csv"
+	"fmt"
+	"os"
+	"strconv"
+	"strings"
+	"testing"
+
+	"midrank/core"
+	"midrank/core/jsonlite"
+	"midrank/core/link"
+)
+
+// chicks reads R's chickwts (testdata/protect, tools/reference/protect.R),
+// keeps the first keep[feed] chicks of the feeds named (all of the
+// others), and makes every weight distinctive (w·1.000123 + 0.000456 +
+// row·0.000001: no ties, and the text of a weight found in an output can
+// only be that weight). Medians and quartiles are shared as in any
+// report, and the median of an odd number of values is one of them: the
+// tests keep groups of even size, where both interpolate. It gives the
+// data as CSV and the weights' texts.
+func chicks(t *testing.T, keep map[string]int) ([]byte, []string) {
+	t.Helper()
+	f, err := os.Open("../../testdata/protect/chickwts.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, err := csv.NewReader(f).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b bytes.Buffer
+	b.WriteString("feed,weight\n")
+	var weights []string
+	seen := map[string]int{}
+	for i, row := range rows[1:] {
+		if most, ok := keep[row[0]]; ok && seen[row[0]] >= most {
+			continue
+		}
+		seen[row[0]]++
+		w, _ := strconv.ParseFloat(row[1], 64)
+		text := strconv.FormatFloat(w*1.000123+0.000456+float64(i)*0.000001, 'f', 6, 64)
+		weights = append(weights, text)
+		fmt.Fprintf(&b, "%s,%s\n", row[0], text)
+	}
+	return b.Bytes(), weights
+}
+
+// shared analyses data and returns the results as shared, after a trip
+// through a results-only link, and the full result.
+func shared(t *testing.T, data []byte, opt core.Options) ([]byte, *core.Result) {
+	t.Helper()
+	r, err := core.Analyze(data, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fragment, err := Link(r, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	raw, err := link.Decode(fragment)
+	if err != nil {
+		t.Fatal(err)
+	}
+	doc, err := Open(raw)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Equal(doc, raw) {
+		t.Errorf("Open changed the JSON Encode wrote:\n%s\n%s", raw, doc)
+	}
+	return doc, r
+}
+
+// TestNoValueLeaves: the results as shared hold none of the weights and no
+// list of values or ranks, where the full answer holds every weight (so
+// the check can find one), with and without protection, for each way of
+// comparing pairs.
+func TestNoValueLeaves(t *testing.T) {
+	data, weights := chicks(t, map[string]int{"horsebean": 4, "meatmeal": 10})
+	for _, opt := range []core.Options{{}, {MinGroupSize: 5}, {PostHoc: "mann-whitney"}, {PostHoc: "dscf", MinGroupSize: 5},
+		{Trend: "increasing", MinGroupSize: 5}, {Reference: "casein", PostHoc: "conover"}} {
+		doc, r := shared(t, data, opt)
+		full, err := core.Encode(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, w := range weights {
+			if !bytes.Contains(full, []byte(strings.TrimRight(w, "0"))) {
+				t.Fatalf("the check cannot see weight %s in the full answer", w)
+			}
+			if bytes.Contains(doc, []byte(strings.TrimRight(w, "0"))) {
+				t.Errorf("%+v: weight %s is in the shared results", opt, w)
+			}
+		}
+		for _, key := range []string{`"ranks"`, `"ties"`, `"rank"`, `"value"`, `"min"`, `"max"`, `"lowest"`, `"highest"`} {
+			if bytes.Contains(doc, []byte(key)) {
+				t.Errorf("%+v: the shared results hold %s", opt, key)
+			}
+		}
+	}
+}
+
+// TestOpenRefuses: JSON that is not Midrank's results is refused with a
+// message that says what is wrong.
+func TestOpenRefuses(t *testing.T) {
+	data, _ := chicks(t, nil)
+	doc, _ := shared(t, data, core.Options{})
+	tests := []struct{ name, from, to, says string }{
+		{"another format", `{"findings":1,`, `{"findings":2,`, "format 2"},
+		{"a member more", `"k":6,`, `"k":6,"data":"x",`, `"data"`},
+		{"a member less", `"k":6,`, ``, `no "k"`},
+		{"a table not Midrank's", `"tables":{"figures"`, `"tables":{"people"`, `"people"`},
+		{"a column not the table's", `{"key":"median"`, `{"key":"salary"`, "not one of"},
+		{"a row too short", `[["horsebean",`, `[[`, "cells"},
+		{"a bad setting", `"options":{}`, `"options":{"alpha":7}`, "alpha"},
+		{"a number as text", `"n":71`, `"n":"71"`, "not a whole number"},
+	}
+	for _, tt := range tests {
+		bad := strings.Replace(string(doc), tt.from, tt.to, 1)
+		if bad == string(doc) {
+			t.Fatalf("%s: %q not in the JSON", tt.name, tt.from)
+		}
+		_, err := Open([]byte(bad))
+		if err == nil || !strings.Contains(err.Error(), tt.says) {
+			t.Errorf("%s: Open = %v, want an error saying %s", tt.name, err, tt.says)
+		}
+	}
+}
+
+// FuzzOpen: whatever the bytes, Open returns an error or JSON that opens
+// again unchanged; seeds are a real document and pieces of one.
+func FuzzOpen(f *testing.F) {
+	r, err := core.Analyze([]byte("site,minutes\nA,12\nA,15\nB,20\nB,22\nB,19\nC,14\nC,30\nC,25\n"), core.Options{MinGroupSize: 3})
+	if err != nil {
+		f.Fatal(err)
+	}
+	doc, err := Encode(r, core.Options{MinGroupSize: 3})
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Add(doc)
+	f.Add(doc[:len(doc)/2])
+	f.Add([]byte(`{"findings":1}`))
+	f.Add([]byte(`{"findings":1,"tables":{"groups":{"columns":[[[[[[[]]]]]]]}}}`))
+	f.Fuzz(func(t *testing.T, raw []byte) {
+		out, err := Open(raw)
+		if err != nil {
+			return
+		}
+		again, err := Open(out)
+		if err != nil || !bytes.Equal(again, out) {
+			t.Fatalf("Open(Open(x)) = %q, %v; want %q", again, err, out)
+		}
+		if _, err := jsonlite.ParseTree(out, depth); err != nil {
+			t.Fatal(err)
+		}
+	})
+}

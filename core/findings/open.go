@@ -1,0 +1,179 @@
+package findings
+
+import (
+	"fmt"
+	"slices"
+	"strconv"
+
+	"midrank/core"
+	"midrank/core/display"
+	"midrank/core/jsonlite"
+	"midrank/core/link"
+	"midrank/core/tables"
+)
+
+// depth bounds the nesting of results JSON: tables → table → values → row
+// → cell is five levels under the top.
+const depth = 6
+
+// Open checks the JSON of an opened results-only link (or of a sealed link
+// that held results) against the shape Encode writes — every member there
+// and of its kind, every table one of Midrank's with columns of that table,
+// every row as long as the columns, the settings valid — and returns it
+// written anew. Whatever the bytes, it returns an error or JSON of that
+// shape, never panics, and its work is bounded by the bytes' length.
+func Open(raw []byte) ([]byte, error) {
+	n, err := jsonlite.ParseTree(raw, depth)
+	if err == nil {
+		err = document(n)
+	}
+	if err != nil {
+		return nil, &link.Error{Reason: "what it holds is not a set of Midrank results (" + err.Error() + ")"}
+	}
+	var w jsonlite.Writer
+	w.Node(n)
+	return w.Bytes(), nil
+}
+
+// check is a rule for one JSON value, at path (for the message).
+type check func(path string, n jsonlite.Node) error
+
+func kind(want ...jsonlite.Kind) check {
+	return func(path string, n jsonlite.Node) error {
+		if !slices.Contains(want, n.Kind) {
+			return fmt.Errorf("%s is a %s, not a %s", path, n.Kind, want[0])
+		}
+		return nil
+	}
+}
+
+var (
+	text      = kind(jsonlite.String)
+	flag      = kind(jsonlite.Bool)
+	figure    = kind(jsonlite.Number, jsonlite.Null)
+	label     = kind(jsonlite.String, jsonlite.Null)
+	cellValue = kind(jsonlite.Number, jsonlite.String, jsonlite.Bool, jsonlite.Null)
+)
+
+// whole is a whole number from 0.
+func whole(path string, n jsonlite.Node) error {
+	if v, err := strconv.ParseUint(n.Text, 10, 31); n.Kind != jsonlite.Number || err != nil || v > 1<<30 {
+		return fmt.Errorf("%s is not a whole number", path)
+	}
+	return nil
+}
+
+// object checks an object with exactly these members.
+func object(members map[string]check) check {
+	return func(path string, n jsonlite.Node) error {
+		if n.Kind != jsonlite.Object {
+			return fmt.Errorf("%s is a %s, not an object", path, n.Kind)
+		}
+		for name, rule := range members {
+			m, ok := n.Member(name)
+			if !ok {
+				return fmt.Errorf("%s has no %q", path, name)
+			}
+			if err := rule(path+"."+name, m); err != nil {
+				return err
+			}
+		}
+		if len(n.Names) != len(members) {
+			for _, name := range n.Names {
+				if members[name] == nil {
+					return fmt.Errorf("%s holds %q, which is not part of Midrank's results", path, name)
+				}
+			}
+		}
+		return nil
+	}
+}
+
+// arrayOf checks an array whose items each pass item.
+func arrayOf(item check) check {
+	return func(path string, n jsonlite.Node) error {
+		if n.Kind != jsonlite.Array {
+			return fmt.Errorf("%s is a %s, not an array", path, n.Kind)
+		}
+		for i, v := range n.Items {
+			if err := item(fmt.Sprintf("%s[%d]", path, i), v); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+}
+
+// oneOf checks a string among choices.
+func oneOf(choices []string) check {
+	return func(path string, n jsonlite.Node) error {
+		if n.Kind != jsonlite.String || !slices.Contains(choices, n.Text) {
+			return fmt.Errorf("%s is not one of %q", path, choices)
+		}
+		return nil
+	}
+}
+
+// document is the rule for the whole JSON.
+func document(n jsonlite.Node) error {
+	if f, ok := n.Member("findings"); n.Kind == jsonlite.Object && ok && f.Text != strconv.Itoa(Format) {
+		return fmt.Errorf("it is in format %s of Midrank's results, and this version reads format %d; open it with the version that made it", f.Text, Format)
+	}
+	return object(map[string]check{
+		"findings": whole, "version": text, "n": whole, "k": whole, "alpha": kind(jsonlite.Number), "measure": text,
+		"significant": flag, "reference": label, "p_method_reason": text, "result_line": text, "decision": text,
+		"protection": text, "warnings": arrayOf(text), "options": options,
+		"groups": arrayOf(object(map[string]check{"label": text, "size": text, "median": figure, "q1": figure, "q3": figure, "mean_rank": figure})),
+		"tables": tableSet,
+	})("results", n)
+}
+
+// options are settings core.DecodeOptions accepts.
+func options(path string, n jsonlite.Node) error {
+	if n.Kind != jsonlite.Object {
+		return fmt.Errorf("%s is a %s, not an object", path, n.Kind)
+	}
+	var w jsonlite.Writer
+	w.Node(n)
+	o, err := core.DecodeOptions(w.Bytes())
+	if err != nil {
+		return err
+	}
+	return o.Check()
+}
+
+// tableSet checks the tables: each one of Midrank's, its columns that
+// table's, its rows as long as its columns, values and text alike.
+func tableSet(path string, n jsonlite.Node) error {
+	if n.Kind != jsonlite.Object {
+		return fmt.Errorf("%s is a %s, not an object", path, n.Kind)
+	}
+	for i, name := range n.Names {
+		keys := tables.Keys(name)
+		if keys == nil {
+			return fmt.Errorf("%s holds %q, which is not one of Midrank's tables", path, name)
+		}
+		t := n.Members[i]
+		err := object(map[string]check{
+			"title": text, "note": text, "list": flag,
+			"columns": arrayOf(object(map[string]check{"key": oneOf(keys), "heading": text, "unit": oneOf([]string{"", "measure"}), "show": oneOf(display.ShowNames())})),
+			"values":  arrayOf(arrayOf(cellValue)),
+			"text":    arrayOf(arrayOf(text)),
+		})(path+"."+name, t)
+		if err != nil {
+			return err
+		}
+		columns, _ := t.Member("columns")
+		values, _ := t.Member("values")
+		shown, _ := t.Member("text")
+		if len(values.Items) != len(shown.Items) {
+			return fmt.Errorf("%s.%s has %d rows of values and %d of text", path, name, len(values.Items), len(shown.Items))
+		}
+		for r := range values.Items {
+			if len(values.Items[r].Items) != len(columns.Items) || len(shown.Items[r].Items) != len(columns.Items) {
+				return fmt.Errorf("%s.%s row %d does not have %d cells", path, name, r+1, len(columns.Items))
+			}
+		}
+	}
+	return nil
+}

@@ -1,0 +1,141 @@
+package findings
+
+import (
+	"slices"
+	"strconv"
+	"strings"
+	"testing"
+
+	"midrank/core"
+	"midrank/core/display"
+	"midrank/core/jsonlite"
+)
+
+// TestProtectedGroupsCannotBeWorkedOut tries to recover a protected
+// group's size, rank sum and median from everything the shared results
+// hold — the total minus the shown groups, the groups' rank sums (which
+// with H and the total would give a hidden group's), the letters, the
+// pairs' statistics, the decision and the warnings — and fails each time.
+// The rule followed is complementary suppression (package protect).
+func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		keep map[string]int
+		opt  core.Options
+	}{
+		{"one small group, Dunn", map[string]int{"horsebean": 4}, core.Options{MinGroupSize: 5}},
+		{"one small group, Conover–Iman", map[string]int{"horsebean": 4}, core.Options{MinGroupSize: 5, PostHoc: "conover"}},
+		{"two small groups, DSCF", map[string]int{"horsebean": 4, "linseed": 2}, core.Options{MinGroupSize: 5, PostHoc: "dscf"}},
+		{"two small groups, Mann–Whitney, trend", map[string]int{"horsebean": 4, "linseed": 2}, core.Options{MinGroupSize: 5, PostHoc: "mann-whitney", Trend: "two-sided"}},
+		{"threshold 10: one small, reference group", map[string]int{"horsebean": 9}, core.Options{MinGroupSize: 10, Reference: "casein"}},
+	} {
+		data, _ := chicks(t, c.keep)
+		doc, r := shared(t, data, c.opt)
+		n, err := jsonlite.ParseTree(doc, depth)
+		if err != nil {
+			t.Fatal(err)
+		}
+		hidden := map[string]core.Group{}
+		for g, group := range r.Groups {
+			if r.Plan().Hidden(g) {
+				hidden[group.Label] = group
+			}
+		}
+		if len(hidden) < 2 {
+			t.Fatalf("%s: %d groups hidden", c.name, len(hidden))
+		}
+		// sizes: the total minus the shown groups leaves several splits
+		total, _ := strconv.Atoi(member(n, "n").Text)
+		left, sizes := total, map[string][2]int{}
+		for _, g := range member(n, "groups").Items {
+			label, size := member(g, "label").Text, member(g, "size").Text
+			if v, err := strconv.Atoi(size); err == nil {
+				left -= v
+				continue
+			}
+			top := total
+			if strings.HasPrefix(size, "< ") {
+				top, _ = strconv.Atoi(size[2:])
+				top--
+			}
+			sizes[label] = [2]int{1, top}
+		}
+		for label, span := range sizes {
+			others := 0 // the least the other hidden groups can hold
+			for other := range sizes {
+				if other != label {
+					others++
+				}
+			}
+			most := min(span[1], left-others)
+			if most <= span[0] {
+				t.Errorf("%s: %s's size follows: %d", c.name, label, most)
+			}
+			if most < hidden[label].N {
+				t.Fatalf("%s: %s's true size %d is outside %d to %d", c.name, label, hidden[label].N, span[0], most)
+			}
+		}
+		// rank sums and mean ranks of any group, letters, hidden figures
+		for _, g := range member(n, "groups").Items {
+			if member(g, "mean_rank").Kind != jsonlite.Null {
+				t.Errorf("%s: %s's mean rank is shared", c.name, member(g, "label").Text)
+			}
+			if _, ok := hidden[member(g, "label").Text]; ok && member(g, "median").Kind != jsonlite.Null {
+				t.Errorf("%s: a hidden group's median is shared", c.name)
+			}
+		}
+		groups := member(member(n, "tables"), "groups")
+		for _, col := range member(groups, "columns").Items {
+			if key := member(col, "key").Text; slices.Contains([]string{"rank_sum", "mean_rank", "letters", "lowest", "highest"}, key) {
+				t.Errorf("%s: the groups table has %s", c.name, key)
+			}
+		}
+		for i, row := range member(groups, "values").Items {
+			if _, ok := hidden[row.Items[0].Text]; !ok {
+				continue
+			}
+			for j, cell := range row.Items[1:] {
+				if cell.Kind == jsonlite.Number {
+					t.Errorf("%s: row %d of the groups table shows figure %d of a hidden group", c.name, i+1, j+2)
+				}
+			}
+		}
+		// pairs: none with a hidden group; no joint-rank statistics
+		if pairs, ok := member(n, "tables").Member("pairs"); ok {
+			for _, row := range member(pairs, "values").Items {
+				if _, a := hidden[row.Items[0].Text]; a {
+					t.Errorf("%s: a pair with %s is shared", c.name, row.Items[0].Text)
+				}
+				if _, b := hidden[row.Items[1].Text]; b {
+					t.Errorf("%s: a pair with %s is shared", c.name, row.Items[1].Text)
+				}
+			}
+			for _, col := range member(pairs, "columns").Items {
+				if key := member(col, "key").Text; r.PostHoc.Method.JointRanks() && (key == "statistic" || key == "p" || key == "p_adjusted") {
+					t.Errorf("%s: the pairs' %s, from the ranks of all groups, is shared", c.name, key)
+				}
+			}
+		}
+		// the words: no hidden group's size or median
+		words := member(n, "decision").Text
+		for _, w := range member(n, "warnings").Items {
+			words += " " + w.Text
+		}
+		for label, g := range hidden {
+			for _, figure := range []string{"n = " + strconv.Itoa(g.N), "has " + strconv.Itoa(g.N) + " values", display.Figure.Format(g.Median)} {
+				if strings.Contains(words, figure) {
+					t.Errorf("%s: the words give %s's %q", c.name, label, figure)
+				}
+			}
+		}
+		if !strings.Contains(member(n, "protection").Text, "Small groups protected") {
+			t.Errorf("%s: the results do not say which protection was applied: %q", c.name, member(n, "protection").Text)
+		}
+	}
+}
+
+// member is n's member called name (the zero Node when there is none).
+func member(n jsonlite.Node, name string) jsonlite.Node {
+	m, _ := n.Member(name)
+	return m
+}
