@@ -35,6 +35,7 @@ func (r *Result) facts(plan protect.Plan) report.Facts {
 	}
 	if ph := r.PostHoc; ph != nil {
 		f.PairMethod, f.AdjustName, f.PairsTested = ph.Method.Name(), ph.Adjust.Name(), len(ph.Pairs)
+		f.PairPWithheld = plan.Any() && ph.Method.JointRanks()
 		if ph.Reference != nil {
 			f.Reference = *ph.Reference
 		}

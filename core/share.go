@@ -46,15 +46,20 @@ func OpenLink(fragment string) (Request, error) {
 	if err != nil {
 		return Request{}, err
 	}
-	if link.CarriesResults(raw) {
-		return Request{}, &link.Error{Reason: "it carries results only, without the data, so there is nothing to analyse; open it in the page to read the results"}
+	if link.Results(fragment) {
+		return Request{}, errResultsOnly
 	}
 	return ParseRequest(raw)
 }
 
+var errResultsOnly = &link.Error{Reason: "it carries results only, without the data, so there is nothing to analyse; open it in the page to read the results"}
+
 // ParseRequest reads request JSON (as a link carries it), refusing unknown
 // keys and settings that cannot be used.
 func ParseRequest(raw []byte) (Request, error) {
+	if link.CarriesResults(raw) {
+		return Request{}, errResultsOnly
+	}
 	var r Request
 	names, values, err := jsonlite.ParseObject(raw)
 	if err == nil {

@@ -57,6 +57,9 @@ type Facts struct {
 	// left out (none of them is among Differences)
 	Withheld      []int
 	PairsWithheld int
+	// PairPWithheld: the pairs' p-values are not told (they come from the
+	// ranks of all groups together, hidden ones included)
+	PairPWithheld bool
 }
 
 // Difference is a pair that differs significantly.
@@ -220,8 +223,12 @@ func writePairs(b *strings.Builder, f Facts) {
 				by, named = by+" (the Hodges–Lehmann estimate of the shift)", true
 			}
 		}
-		fmt.Fprintf(b, "Values in %s tend to be higher than in %s%s: adjusted %s, probability of superiority %s. ",
-			d.Higher, d.Lower, by, PValue(d.PAdjusted), display.Effect.Format(d.Superiority))
+		p := "adjusted " + PValue(d.PAdjusted) + ", "
+		if f.PairPWithheld {
+			p = ""
+		}
+		fmt.Fprintf(b, "Values in %s tend to be higher than in %s%s: %sprobability of superiority %s. ",
+			d.Higher, d.Lower, by, p, display.Effect.Format(d.Superiority))
 	}
 	switch rest := f.PairsTested - f.PairsWithheld - len(f.Differences); {
 	case rest == 1 && f.Reference != "":

@@ -14,7 +14,9 @@ import (
 	"strings"
 
 	"midrank/core"
+	"midrank/core/findings"
 	"midrank/core/link"
+	"midrank/core/protect"
 	"midrank/core/sealed"
 	"midrank/core/table"
 )
@@ -57,7 +59,8 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	}
 	asJSON := fs.Bool("json", false, "print the result as JSON")
 	showRanks := fs.Bool("ranks", false, "list every value with its rank, and every tie")
-	printLink := fs.Bool("link", false, "print a share link that carries the data and settings, instead of the report")
+	printLink := fs.Bool("link", false, "print a share link instead of the report; --share says what it carries")
+	share := fs.String("share", "data", "with --link: data (the data and settings, for a colleague who must run the analysis again) or results (the results only, without any value of any person)")
 	linkBase := fs.String("link-base", "", "the page's address to put before the link fragment, e.g. http://intranet/midrank/")
 	fromLink := fs.String("open", "", "analyse the data and settings of a share link (its #r1. or #s1. fragment or the whole address; - reads it from standard input, @FILE from a file) instead of FILE")
 	passphrase := fs.String("passphrase", "", "with --link: seal the link with this passphrase; with --open: the passphrase of a sealed link (also read from MIDRANK_PASSPHRASE)")
@@ -102,6 +105,14 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	fs.StringVar(&opt.PostHoc, "posthoc", core.Keys("posthoc")[0], "pairwise comparisons: "+strings.Join(core.Keys("posthoc"), ", "))
 	fs.StringVar(&opt.Adjust, "adjust", core.Keys("adjust")[0], "multiplicity adjustment: "+strings.Join(core.Keys("adjust"), ", "))
 	fs.StringVar(&opt.Reference, "reference", "", "compare each group with this one (its label as written in the data) instead of every pair; the adjustment runs over those comparisons")
+	fs.Func("min-group-size", fmt.Sprintf("protect small groups in the report, its JSON and results links: groups with fewer values than this (%d is usual) show no figures, and no group's rank sum is shown; 0 for none", protect.Suggested), func(v string) error {
+		n, err := strconv.Atoi(v)
+		if err != nil || n < 0 || n > core.MaxMinGroupSize {
+			return refuse("min_group_size", v, fmt.Sprintf("choose a whole number from 0 (no protection) to %d, for example %d", core.MaxMinGroupSize, protect.Suggested))
+		}
+		opt.MinGroupSize = n
+		return nil
+	})
 	fs.StringVar(&opt.Trend, "trend", core.Keys("trend")[0], "test for a trend along the groups' order (as in the data, or set with --order), Jonckheere–Terpstra: "+strings.Join(core.Keys("trend"), ", "))
 	fs.Func("order", "put the group with this label (as written in the data) next; repeat to set the order of several", func(label string) error {
 		opt.Order = append(opt.Order, label)
@@ -157,6 +168,15 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	}
 	given := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { given[f.Name] = true })
+	if *share != "data" && *share != "results" {
+		return fail(exitSettings, fmt.Errorf("--share %q: choose data (the link carries the data) or results (the results only)", *share))
+	}
+	if given["share"] && !*printLink {
+		return fail(exitSettings, errors.New("--share says what a link carries; add --link"))
+	}
+	if *showRanks && opt.MinGroupSize > 0 {
+		return fail(exitSettings, errors.New("--ranks lists every value, which protecting small groups (--min-group-size) must not; leave one of them out"))
+	}
 	if given["passphrase"] && *passphrase == "" {
 		return fail(exitSettings, errors.New("--passphrase is empty; give a passphrase, or leave the flag out for an unsealed link"))
 	}
@@ -202,9 +222,19 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	}
 	if *printLink {
 		var fragment string
-		if p := passphraseOf(*passphrase); p != "" {
+		switch p := passphraseOf(*passphrase); {
+		case *share == "results" && battery != nil:
+			err = errors.New("a results-only link carries one measure's results: give one --measure")
+		case *share == "results" && p != "":
+			var b []byte
+			if b, err = findings.Encode(result, opt); err == nil {
+				fragment, err = sealed.Seal(b, p, rand.Reader)
+			}
+		case *share == "results":
+			fragment, err = findings.Link(result, opt)
+		case p != "":
 			fragment, err = sealLink(data, opt, p)
-		} else {
+		default:
 			fragment, err = core.ShareLink(data, opt)
 		}
 		if err != nil {
@@ -215,9 +245,12 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	}
 	if *asJSON {
 		var b []byte
-		if battery != nil {
+		switch {
+		case battery != nil:
 			b, err = core.EncodeBattery(battery)
-		} else {
+		case opt.MinGroupSize > 0: // what leaves: the results as shared
+			b, err = findings.Encode(result, opt)
+		default:
 			b, err = core.Encode(result)
 		}
 		if err != nil {

@@ -11,6 +11,9 @@ import (
 	"testing"
 
 	"midrank/core"
+	"midrank/core/findings"
+	"midrank/core/link"
+	"midrank/core/sealed"
 	"midrank/core/tables"
 	"midrank/core/testfiles"
 )
@@ -128,6 +131,18 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"adjust_across":"holm","summary":"2 measures compared`, ""},
 		{[]string{"--json", "--group", "site", "--measure", "all", "--adjust-across", "holm", "-"}, battery, exitOK, `"measures":[{"measure":"wait","p_adjusted_across":`, ""},
 		{[]string{"--group", "site", "--measure", "all", "--adjust-across", "bonferroni", "-"}, battery, exitSettings, "", "choose bh"},
+		// small groups protected, and what a link carries
+		{[]string{"--min-group-size", "3", "-"}, "A,B,C\n1,2,3\n4,5,6\n7,8,9\n", exitOK, "Small groups protected (fewer than 3 values): no group", ""},
+		{[]string{"--min-group-size", "4", "-"}, "A,B,C\n1,2,3\n4,5,6\n7,8,9\n", exitOK, "< 4", ""},
+		{[]string{"--min-group-size", "-1", "-"}, data, exitSettings, "", "from 0 (no protection)"},
+		{[]string{"--json", "--min-group-size", "4", "-"}, data, exitOK, `{"findings":1,`, ""},
+		{[]string{"--ranks", "--min-group-size", "4", "-"}, data, exitSettings, "", "--ranks lists every value"},
+		{[]string{"--share", "results", "-"}, data, exitSettings, "", "add --link"},
+		{[]string{"--link", "--share", "everything", "-"}, data, exitSettings, "", "choose data"},
+		{[]string{"--link", "--share", "results", "-"}, data, exitOK, "#f1.", ""},
+		{[]string{"--link", "--share", "results", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "one measure's results"},
+		{[]string{"--min-group-size", "5", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "one measure at a time"},
+		{[]string{"--open", "-"}, "#f1.q1ZKSSxJVLJS8kgsSsovLdIJyixLLSrOTEnlMjTSMTLkMrTQMTblUtJRSswpyAAqNNAzMKwFAA", exitData, "", "results only"},
 	}
 	for _, tt := range tests {
 		var stdout, stderr bytes.Buffer
@@ -219,6 +234,47 @@ func TestLinkRoundTrip(t *testing.T) {
 	var out, stderr bytes.Buffer
 	if code := run([]string{"--open", "#r1.$$$"}, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "cannot be opened") {
 		t.Errorf("a broken link: exit %d, %q", code, stderr.String())
+	}
+}
+
+// TestResultsLink: --link --share results carries the results as shared
+// (package findings), plain or sealed, and nothing of the data.
+func TestResultsLink(t *testing.T) {
+	// groups of 4: medians and quartiles interpolate; no difference of two
+	// values is a value
+	const data = "A,B,C\n101.17,202.53,303.71\n104.59,205.23,306.37\n107.73,208.61,309.29\n110.31,211.97,312.43\n"
+	for _, extra := range [][]string{nil, {"--passphrase", "blue kite"}} {
+		var out, stderr bytes.Buffer
+		if code := run(append([]string{"--link", "--share", "results", "--min-group-size", "2"}, append(extra, "-")...), strings.NewReader(data), &out, &stderr); code != exitOK {
+			t.Fatalf("%v: exit %d: %s", extra, code, stderr.String())
+		}
+		fragment := strings.TrimSpace(out.String())
+		var raw []byte
+		var err error
+		if extra == nil {
+			raw, err = link.Decode(fragment)
+		} else {
+			raw, err = sealed.Open(fragment, "blue kite")
+		}
+		if err != nil {
+			t.Fatalf("%v: %v", extra, err)
+		}
+		if _, err := findings.Open(raw); err != nil || !link.CarriesResults(raw) {
+			t.Fatalf("%v: %v", extra, err)
+		}
+		for _, v := range strings.FieldsFunc(data[6:], func(r rune) bool { return r == ',' || r == '\n' }) {
+			if strings.Contains(string(raw), v) {
+				t.Errorf("%v: the results link holds the value %s", extra, v)
+			}
+		}
+		stderr.Reset()
+		args := []string{"--open", fragment}
+		if extra != nil {
+			args = append(args, extra...)
+		}
+		if code := run(args, nil, &out, &stderr); code != exitData || !strings.Contains(stderr.String(), "results only") {
+			t.Errorf("%v: --open of a results link: exit %d, %q", extra, code, stderr.String())
+		}
 	}
 }
 

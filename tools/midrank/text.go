@@ -16,8 +16,13 @@ import (
 const tiesShown = 10
 
 // writeReport prints a result for people: the decision first, then the
-// figures, the groups, the ties and, when asked, every rank.
+// figures, the groups, the ties and, when asked, every rank; with small
+// groups protected, the results as shared (no ties, no ranks).
 func writeReport(w io.Writer, r *core.Result, showRanks bool) {
+	decision, warnings, all := r.Decision, r.Warnings, tables.Of(r)
+	if r.Protection != nil {
+		decision, warnings, all = r.SharedDecision(), r.SharedWarnings(), tables.Shared(r)
+	}
 	in := r.Input
 	read := fmt.Sprintf("%s layout, %s-separated, decimal %s", in.Layout, in.Separator, in.DecimalMark)
 	if in.Thousands != "none" {
@@ -42,19 +47,25 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 
 	fmt.Fprintln(w, "In plain words")
 	fmt.Fprintln(w, "  "+r.ResultLine)
-	fmt.Fprintln(w, wrap(r.Decision, 78, "  "))
+	fmt.Fprintln(w, wrap(decision, 78, "  "))
 	fmt.Fprintln(w)
+	if note := r.ProtectionNote(); note != "" {
+		fmt.Fprintln(w, wrap(note, 78, ""))
+		fmt.Fprintln(w)
+	}
 
-	for _, t := range tables.Of(r) {
+	for _, t := range all {
 		writeTable(w, t)
 	}
-	writeTies(w, r, showRanks)
+	if r.Protection == nil { // tied values are single people's values
+		writeTies(w, r, showRanks)
+	}
 	if showRanks {
 		writeRanks(w, r)
 	}
-	if len(r.Warnings) > 0 {
+	if len(warnings) > 0 {
 		fmt.Fprintln(w, "Take note")
-		for _, m := range r.Warnings {
+		for _, m := range warnings {
 			fmt.Fprintln(w, wrap("- "+m, 78, "  "))
 		}
 	}
