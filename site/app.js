@@ -19,6 +19,7 @@ import { renderRanks, wireRanks } from "./js/ranks.js";
 import { wireReports } from "./js/reports.js";
 import { wireShare } from "./js/share.js";
 import { SEALED } from "./js/seal.js";
+import { sharedResult } from "./js/outgoing.js";
 
 // The single-file build carries the worker's source, the module and the
 // demo data in inert text blocks (see tools/internal/sitebuild).
@@ -91,8 +92,15 @@ function restoreKept() {
   return kept.data.trim() !== "";
 }
 
-// openLink restores the data and settings a link carries; false when it
-// cannot be opened (the message is shown).
+// each table knows its name, which the views and reports go by
+function named(set) {
+  for (const [name, table] of Object.entries(set ?? {})) table.name = name;
+  return set;
+}
+
+// openLink restores the data and settings a link carries, or shows the
+// results a results-only link carries; false when it cannot be opened (the
+// message is shown).
 async function openLink(fragment) {
   const { body } = await bridge.ask({ kind: "open-link", fragment });
   if (body.error) {
@@ -101,12 +109,28 @@ async function openLink(fragment) {
     return false;
   }
   $("problem").hidden = true;
+  if (body.findings) {
+    showFindings(body.findings, "#f1." + fragment.slice(4)); // a sealed link comes opened as #r1. of the same bytes
+    return true;
+  }
   setText(body.data);
   setOptions(body.options, state.defaults);
   update({ edits: { order: body.options.order || [], exclude: body.options.exclude || [], rename: body.options.rename || {} }, undoable: [] });
   $("demo-note").hidden = true;
   analyse();
   return true;
+}
+
+// showFindings shows results that came without their data, read-only, with
+// the link that passes them on; the text box stays empty for the reader's
+// own data, and an analysis of it replaces them.
+function showFindings(f, link) {
+  setText("");
+  $("demo-note").hidden = true;
+  setStale(false);
+  update({ result: sharedResult(f), tables: named(f.tables), shared: f, sharedTables: named(f.tables), readOnly: true, readOnlyLink: link,
+    battery: null, batteryTables: null, drill: null, preview: null });
+  setStatus("These results came in a link without the data: read, print or save them; paste your own data to analyse it.");
 }
 
 // A fragment that looks like a link of some format ("#r1.", "#s1.", or one
@@ -169,24 +193,22 @@ async function analyse() {
   remember(RUNNING, null);
   $("cancel").hidden = true;
   $("progress").hidden = true;
-  const { body, tables } = reply;
+  const { body, tables, shared } = reply;
   if (body.error) {
     // results of another text (or of none) must not stay on screen
     setStale(false);
-    update({ result: null, tables: null, battery: null, batteryTables: null, drill: null });
+    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: null, batteryTables: null, drill: null });
     showProblem(body.error);
     return;
   }
   $("problem").hidden = true;
   const answered = performance.now();
-  // each table knows its name, which the views and reports go by
-  const named = (set) => { for (const [name, table] of Object.entries(set ?? {})) table.name = name; return set; };
   if (body.measures) {
     named({ overview: tables.overview });
     tables.measures.forEach(named);
-    update({ result: null, tables: null, battery: body, batteryTables: tables, drill: null });
+    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: body, batteryTables: tables, drill: null });
   } else {
-    update({ result: body, tables: named(tables), battery: null, batteryTables: null, drill: null });
+    update({ result: body, tables: named(tables), shared, sharedTables: named(shared && shared.tables), readOnly: false, battery: null, batteryTables: null, drill: null });
   }
   setStale(false);
   // how long the last analysis took, for the browser tests' notes and make bench-page

@@ -3,12 +3,13 @@
 // starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
 // data, options, edits} (answered by the module's workspace),
 // {id, kind: "page", list, offset, count[, measure]} (measure: the index of a battery's measure),
-// {id, kind: "link", data, options, edits}, {id, kind: "open-link",
-// fragment} and {id, kind: "sheet", bytes, sheet}; replies: {id, json}, for a sheet
+// {id, kind: "link", data, options, edits}, {id, kind: "results-link"} (of the
+// last analysis), {id, kind: "open-link", fragment} and {id, kind: "sheet",
+// bytes, sheet}; replies: {id, json}, for a sheet
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
 // copied), and for an analysis that answered
-// {id, json, tables} with the module's tables of results of that very
-// analysis. For "analyze" the preview of the text comes
+// {id, json, tables, shared} with the module's tables of results of that very
+// analysis and its results as shared (package findings). For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
 // total} during long computations. When the module itself fails, the reply
 // is {id, kind: "failed", message}. Served, it loads wasm_exec.js; in the
@@ -47,7 +48,7 @@ onmessage = async (event) => {
     begin(q.module);
     return;
   }
-  let json, tables, text;
+  let json, tables, shared, text;
   try {
     const m = await ready;
     switch (q.kind) {
@@ -56,6 +57,9 @@ onmessage = async (event) => {
         break;
       case "link":
         json = m.link(q.data, request(q));
+        break;
+      case "results-link":
+        json = m.resultsLink();
         break;
       case "open-link":
         json = m.openLink(q.fragment);
@@ -70,7 +74,10 @@ onmessage = async (event) => {
         json = m.workspace(new TextEncoder().encode(q.data), request(q),
           (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
           (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
-        if (!json.startsWith('{"error"')) tables = m.tables();
+        if (!json.startsWith('{"error"')) {
+          tables = m.tables();
+          shared = m.findings(); // an error for several measures, which are not shared this way
+        }
     }
   } catch (err) {
     // the module stopped (out of memory, a fault in it): the page is told,
@@ -78,5 +85,5 @@ onmessage = async (event) => {
     postMessage({ id: q.id, kind: "failed", message: String(err && err.message || err) });
     return;
   }
-  postMessage({ id: q.id, kind: q.kind, json, tables, text }, text ? [text.buffer] : []);
+  postMessage({ id: q.id, kind: q.kind, json, tables, shared, text }, text ? [text.buffer] : []);
 };

@@ -8,7 +8,9 @@
 //	globalThis.midrank.page(list, offset, count[, measure]) → pageJSON
 //	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
-//	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}
+//	globalThis.midrank.findings() → the last analysis's results as shared (package findings)
+//	globalThis.midrank.resultsLink() → {"link": "#f1.…"}, a results-only link to them
+//	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}, or {"findings": results} for results only
 //	globalThis.midrank.sheet(bytes[, sheet]) → {json: '{"format", "sheets", "sheet"}', text: Uint8Array}
 //	globalThis.midrank.version
 //	globalThis.midrank.defaults → the default settings as options JSON
@@ -59,22 +61,25 @@ func main() {
 var (
 	last        *core.Result
 	lastBattery *core.Battery
+	lastOptions core.Options // the settings of last
 )
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
-		"analyze":   guarded(analyze),
-		"preview":   guarded(preview),
-		"workspace": guarded(workspace),
-		"page":      guarded(page),
-		"tables":    guarded(resultTables),
-		"link":      guarded(shareLink),
-		"openLink":  guarded(openLink),
-		"sheet":     guarded(sheetText),
-		"version":   core.Version,
-		"defaults":  string(core.Defaults().JSON()),
-		"limits":    limits(),
-		"menus":     string(core.EncodeMenus()),
+		"analyze":     guarded(analyze),
+		"preview":     guarded(preview),
+		"workspace":   guarded(workspace),
+		"page":        guarded(page),
+		"tables":      guarded(resultTables),
+		"link":        guarded(shareLink),
+		"findings":    guarded(sharedFindings),
+		"resultsLink": guarded(resultsLink),
+		"openLink":    guarded(openLink),
+		"sheet":       guarded(sheetText),
+		"version":     core.Version,
+		"defaults":    string(core.Defaults().JSON()),
+		"limits":      limits(),
+		"menus":       string(core.EncodeMenus()),
 	}))
 }
 
@@ -116,6 +121,7 @@ func analyze(args []js.Value) (string, error) {
 	if err != nil {
 		return "", err
 	}
+	lastOptions = opt
 	return one(core.AnalyzeContext(context.Background(), data, opt, progress))
 }
 
@@ -138,6 +144,7 @@ func workspace(args []js.Value) (string, error) {
 		b, err := core.AnalyzeMeasures(context.Background(), data, opt, progress)
 		return answer(nil, b, err)
 	}
+	lastOptions = opt
 	return one(core.Workspace(context.Background(), data, opt,
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
 }
@@ -218,43 +225,6 @@ func resultTables([]js.Value) (string, error) {
 		return "", errors.New("tables: there is no analysis of the data last given")
 	}
 	return string(b), err
-}
-
-func shareLink(args []js.Value) (string, error) {
-	data, opt, err := inputOf("link(data, optionsJSON)", args)
-	if err != nil {
-		return "", err
-	}
-	var labels []string
-	for _, g := range core.PreviewOf(data, opt).Groups {
-		labels = append(labels, g.Label)
-	}
-	fragment, err := core.ShareLink(data, opt.ForLabels(labels))
-	if err != nil {
-		return "", err
-	}
-	var w jsonlite.Writer
-	w.BeginObject()
-	w.StringMember("link", fragment)
-	w.EndObject()
-	return string(w.Bytes()), nil
-}
-
-func openLink(args []js.Value) (string, error) {
-	if len(args) < 1 || args[0].Type() != js.TypeString {
-		return "", errors.New("openLink(fragment) needs the fragment as a string")
-	}
-	req, err := core.OpenLink(args[0].String())
-	if err != nil {
-		return "", err
-	}
-	var w jsonlite.Writer
-	w.BeginObject()
-	w.StringMember("data", req.Data)
-	w.Key("options")
-	w.Raw(req.Options.JSON())
-	w.EndObject()
-	return string(w.Bytes()), nil
 }
 
 // sheetText opens a spreadsheet file (a Uint8Array) and gives one sheet:

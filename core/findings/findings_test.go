@@ -2,52 +2,24 @@ package findings
 
 import (
 	"bytes"
-	"encoding/csv"
-	"fmt"
 	"os"
-	"strconv"
 	"strings"
 	"testing"
 
 	"midrank/core"
 	"midrank/core/jsonlite"
 	"midrank/core/link"
+	"midrank/core/testfiles"
 )
 
-// chicks reads R's chickwts (testdata/protect, tools/reference/protect.R),
-// keeps the first keep[feed] chicks of the feeds named (all of the
-// others), and makes every weight distinctive (w·1.000123 + 0.000456 +
-// row·0.000001: no ties, and the text of a weight found in an output can
-// only be that weight). Medians and quartiles are shared as in any
-// report, and the median of an odd number of values is one of them: the
-// tests keep groups of even size, where both interpolate. It gives the
-// data as CSV and the weights' texts.
+// chicks is testfiles.Chicks from the project's testdata.
 func chicks(t *testing.T, keep map[string]int) ([]byte, []string) {
 	t.Helper()
-	f, err := os.Open("../../testdata/protect/chickwts.csv")
+	data, weights, err := testfiles.Chicks(os.DirFS("../../testdata"), keep)
 	if err != nil {
 		t.Fatal(err)
 	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	var b bytes.Buffer
-	b.WriteString("feed,weight\n")
-	var weights []string
-	seen := map[string]int{}
-	for i, row := range rows[1:] {
-		if most, ok := keep[row[0]]; ok && seen[row[0]] >= most {
-			continue
-		}
-		seen[row[0]]++
-		w, _ := strconv.ParseFloat(row[1], 64)
-		text := strconv.FormatFloat(w*1.000123+0.000456+float64(i)*0.000001, 'f', 6, 64)
-		weights = append(weights, text)
-		fmt.Fprintf(&b, "%s,%s\n", row[0], text)
-	}
-	return b.Bytes(), weights
+	return data, weights
 }
 
 // shared analyses data and returns the results as shared, after a trip

@@ -63,26 +63,30 @@ func whole(path string, n jsonlite.Node) error {
 	return nil
 }
 
+// member is a member's name and its rule.
+type member struct {
+	name string
+	rule check
+}
+
 // object checks an object with exactly these members.
-func object(members map[string]check) check {
+func object(members ...member) check {
 	return func(path string, n jsonlite.Node) error {
 		if n.Kind != jsonlite.Object {
 			return fmt.Errorf("%s is a %s, not an object", path, n.Kind)
 		}
-		for name, rule := range members {
-			m, ok := n.Member(name)
+		for _, m := range members {
+			v, ok := n.Member(m.name)
 			if !ok {
-				return fmt.Errorf("%s has no %q", path, name)
+				return fmt.Errorf("%s has no %q", path, m.name)
 			}
-			if err := rule(path+"."+name, m); err != nil {
+			if err := m.rule(path+"."+m.name, v); err != nil {
 				return err
 			}
 		}
-		if len(n.Names) != len(members) {
-			for _, name := range n.Names {
-				if members[name] == nil {
-					return fmt.Errorf("%s holds %q, which is not part of Midrank's results", path, name)
-				}
+		for _, name := range n.Names {
+			if !slices.ContainsFunc(members, func(m member) bool { return m.name == name }) {
+				return fmt.Errorf("%s holds %q, which is not part of Midrank's results", path, name)
 			}
 		}
 		return nil
@@ -119,13 +123,13 @@ func document(n jsonlite.Node) error {
 	if f, ok := n.Member("findings"); n.Kind == jsonlite.Object && ok && f.Text != strconv.Itoa(Format) {
 		return fmt.Errorf("it is in format %s of Midrank's results, and this version reads format %d; open it with the version that made it", f.Text, Format)
 	}
-	return object(map[string]check{
-		"findings": whole, "version": text, "n": whole, "k": whole, "alpha": kind(jsonlite.Number), "measure": text,
-		"significant": flag, "reference": label, "p_method_reason": text, "result_line": text, "decision": text,
-		"protection": text, "warnings": arrayOf(text), "options": options,
-		"groups": arrayOf(object(map[string]check{"label": text, "size": text, "median": figure, "q1": figure, "q3": figure, "mean_rank": figure})),
-		"tables": tableSet,
-	})("results", n)
+	return object(member{"findings", whole}, member{"version", text}, member{"n", whole}, member{"k", whole},
+		member{"alpha", kind(jsonlite.Number)}, member{"measure", text}, member{"significant", flag}, member{"reference", label},
+		member{"p_method_reason", text}, member{"result_line", text}, member{"decision", text}, member{"protection", text},
+		member{"warnings", arrayOf(text)}, member{"options", options},
+		member{"groups", arrayOf(object(member{"label", text}, member{"size", text}, member{"median", figure}, member{"q1", figure},
+			member{"q3", figure}, member{"mean_rank", figure}))},
+		member{"tables", tableSet})("results", n)
 }
 
 // options are settings core.DecodeOptions accepts.
@@ -154,12 +158,10 @@ func tableSet(path string, n jsonlite.Node) error {
 			return fmt.Errorf("%s holds %q, which is not one of Midrank's tables", path, name)
 		}
 		t := n.Members[i]
-		err := object(map[string]check{
-			"title": text, "note": text, "list": flag,
-			"columns": arrayOf(object(map[string]check{"key": oneOf(keys), "heading": text, "unit": oneOf([]string{"", "measure"}), "show": oneOf(display.ShowNames())})),
-			"values":  arrayOf(arrayOf(cellValue)),
-			"text":    arrayOf(arrayOf(text)),
-		})(path+"."+name, t)
+		err := object(member{"title", text}, member{"note", text}, member{"list", flag},
+			member{"columns", arrayOf(object(member{"key", oneOf(keys)}, member{"heading", text}, member{"unit", oneOf([]string{"", "measure"})},
+				member{"show", oneOf(display.ShowNames())}))},
+			member{"values", arrayOf(arrayOf(cellValue))}, member{"text", arrayOf(arrayOf(text))})(path+"."+name, t)
 		if err != nil {
 			return err
 		}

@@ -45,10 +45,10 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 			t.Fatalf("%s: %d groups hidden", c.name, len(hidden))
 		}
 		// sizes: the total minus the shown groups leaves several splits
-		total, _ := strconv.Atoi(member(n, "n").Text)
+		total, _ := strconv.Atoi(field(n, "n").Text)
 		left, sizes := total, map[string][2]int{}
-		for _, g := range member(n, "groups").Items {
-			label, size := member(g, "label").Text, member(g, "size").Text
+		for _, g := range field(n, "groups").Items {
+			label, size := field(g, "label").Text, field(g, "size").Text
 			if v, err := strconv.Atoi(size); err == nil {
 				left -= v
 				continue
@@ -76,21 +76,21 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 			}
 		}
 		// rank sums and mean ranks of any group, letters, hidden figures
-		for _, g := range member(n, "groups").Items {
-			if member(g, "mean_rank").Kind != jsonlite.Null {
-				t.Errorf("%s: %s's mean rank is shared", c.name, member(g, "label").Text)
+		for _, g := range field(n, "groups").Items {
+			if field(g, "mean_rank").Kind != jsonlite.Null {
+				t.Errorf("%s: %s's mean rank is shared", c.name, field(g, "label").Text)
 			}
-			if _, ok := hidden[member(g, "label").Text]; ok && member(g, "median").Kind != jsonlite.Null {
+			if _, ok := hidden[field(g, "label").Text]; ok && field(g, "median").Kind != jsonlite.Null {
 				t.Errorf("%s: a hidden group's median is shared", c.name)
 			}
 		}
-		groups := member(member(n, "tables"), "groups")
-		for _, col := range member(groups, "columns").Items {
-			if key := member(col, "key").Text; slices.Contains([]string{"rank_sum", "mean_rank", "letters", "lowest", "highest"}, key) {
+		groups := field(field(n, "tables"), "groups")
+		for _, col := range field(groups, "columns").Items {
+			if key := field(col, "key").Text; slices.Contains([]string{"rank_sum", "mean_rank", "letters", "lowest", "highest"}, key) {
 				t.Errorf("%s: the groups table has %s", c.name, key)
 			}
 		}
-		for i, row := range member(groups, "values").Items {
+		for i, row := range field(groups, "values").Items {
 			if _, ok := hidden[row.Items[0].Text]; !ok {
 				continue
 			}
@@ -101,8 +101,8 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 			}
 		}
 		// pairs: none with a hidden group; no joint-rank statistics
-		if pairs, ok := member(n, "tables").Member("pairs"); ok {
-			for _, row := range member(pairs, "values").Items {
+		if pairs, ok := field(n, "tables").Member("pairs"); ok {
+			for _, row := range field(pairs, "values").Items {
 				if _, a := hidden[row.Items[0].Text]; a {
 					t.Errorf("%s: a pair with %s is shared", c.name, row.Items[0].Text)
 				}
@@ -110,15 +110,15 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 					t.Errorf("%s: a pair with %s is shared", c.name, row.Items[1].Text)
 				}
 			}
-			for _, col := range member(pairs, "columns").Items {
-				if key := member(col, "key").Text; r.PostHoc.Method.JointRanks() && (key == "statistic" || key == "p" || key == "p_adjusted") {
+			for _, col := range field(pairs, "columns").Items {
+				if key := field(col, "key").Text; r.PostHoc.Method.JointRanks() && (key == "statistic" || key == "p" || key == "p_adjusted") {
 					t.Errorf("%s: the pairs' %s, from the ranks of all groups, is shared", c.name, key)
 				}
 			}
 		}
 		// the words: no hidden group's size or median
-		words := member(n, "decision").Text
-		for _, w := range member(n, "warnings").Items {
+		words := field(n, "decision").Text
+		for _, w := range field(n, "warnings").Items {
 			words += " " + w.Text
 		}
 		for label, g := range hidden {
@@ -128,14 +128,14 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 				}
 			}
 		}
-		if !strings.Contains(member(n, "protection").Text, "Small groups protected") {
-			t.Errorf("%s: the results do not say which protection was applied: %q", c.name, member(n, "protection").Text)
+		if !strings.Contains(field(n, "protection").Text, "Small groups protected") {
+			t.Errorf("%s: the results do not say which protection was applied: %q", c.name, field(n, "protection").Text)
 		}
 	}
 }
 
-// member is n's member called name (the zero Node when there is none).
-func member(n jsonlite.Node, name string) jsonlite.Node {
+// field is n's member called name (the zero Node when there is none).
+func field(n jsonlite.Node, name string) jsonlite.Node {
 	m, _ := n.Member(name)
 	return m
 }

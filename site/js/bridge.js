@@ -88,10 +88,11 @@ export function createBridge(source, moduleBytes, on) {
     if (resolve) resolve(m);
   }
 
-  // ask sends a request; the reply is {id, body, tables, text}: body is the
-  // module's JSON, {cancelled: true}, or {failed, error} when the module
-  // stopped or answered something that is not JSON; tables, with an
-  // analysis, are the tables of results; text, with a sheet, its UTF-8 bytes.
+  // ask sends a request; the reply is {id, body, tables, shared, text}: body
+  // is the module's JSON, {cancelled: true}, or {failed, error} when the
+  // module stopped or answered something that is not JSON; tables, with an
+  // analysis, are the tables of results, and shared its results as shared
+  // (null for several measures); text, with a sheet, its UTF-8 bytes.
   function ask(message) {
     const id = nextId++;
     return new Promise((resolve) => {
@@ -100,7 +101,8 @@ export function createBridge(source, moduleBytes, on) {
     }).then((reply) => {
       let body = reply.failed ? reply : parse(reply.json);
       if (body.failed) body = failedBody(body.failed);
-      return { id, body, tables: reply.tables ? parse(reply.tables) : null, text: reply.text };
+      const shared = reply.shared ? parse(reply.shared) : null;
+      return { id, body, tables: reply.tables ? parse(reply.tables) : null, shared: shared && !shared.error && !shared.failed ? shared : null, text: reply.text };
     });
   }
 

@@ -14,7 +14,9 @@ function drawValues(r, width, height) {
   const slant = longest > band - 6;
   const room = slant ? Math.min(longest, 110) : band - 6;
   const bottom = slant ? 30 + room * 0.6 : 40;
-  const lo = Math.min(...r.groups.map((g) => g.min)), hi = Math.max(...r.groups.map((g) => g.max));
+  // results as shared have no lowest or highest values (the whiskers go), and no figures for a hidden group
+  const drawn = r.groups.filter((g) => g.median !== null);
+  const lo = drawn.length ? Math.min(...drawn.map((g) => g.min ?? g.q1)) : 0, hi = drawn.length ? Math.max(...drawn.map((g) => g.max ?? g.q3)) : 1;
   const pad = (hi - lo) * 0.05 || 1;
   const y = (v) => top + (height - top - bottom) * (1 - (v - (lo - pad)) / (hi - lo + 2 * pad));
   const measure = r.input.measure || "value";
@@ -25,11 +27,15 @@ function drawValues(r, width, height) {
   }
   r.groups.forEach((g, i) => {
     const cx = left + band * (i + 0.5), w = Math.min(60, band * 0.5);
-    svgEl("line", { x1: cx, x2: cx, y1: y(g.min), y2: y(g.max), stroke: "currentColor" }, svg);
-    svgEl("rect", { x: cx - w / 2, y: y(g.q3), width: w, height: Math.max(1, y(g.q1) - y(g.q3)), fill: "none", stroke: "currentColor" }, svg);
-    svgEl("line", { x1: cx - w / 2, x2: cx + w / 2, y1: y(g.median), y2: y(g.median), stroke: "currentColor", "stroke-width": 3 }, svg);
     const ly = height - bottom + 18;
     label(svg, cx, ly, g.label, room, slant ? { "text-anchor": "end", transform: `rotate(-35 ${cx} ${ly})` } : { "text-anchor": "middle" });
+    if (g.median === null) {
+      svgText(svg, cx, top + (height - top - bottom) / 2, "not shown", { "text-anchor": "middle" });
+      return;
+    }
+    if (g.min !== undefined) svgEl("line", { x1: cx, x2: cx, y1: y(g.min), y2: y(g.max), stroke: "currentColor" }, svg);
+    svgEl("rect", { x: cx - w / 2, y: y(g.q3), width: w, height: Math.max(1, y(g.q1) - y(g.q3)), fill: "none", stroke: "currentColor" }, svg);
+    svgEl("line", { x1: cx - w / 2, x2: cx + w / 2, y1: y(g.median), y2: y(g.median), stroke: "currentColor", "stroke-width": 3 }, svg);
   });
   const drawEach = r.ranks_complete && r.n <= MAX_MARKERS;
   if (drawEach) {
@@ -48,8 +54,11 @@ function drawValues(r, width, height) {
   }
   const middle = top + (height - top - bottom) / 2;
   label(svg, 14, middle, measure, height - top - bottom, { transform: `rotate(-90 14 ${middle})`, "text-anchor": "middle" });
-  const caption = "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
-    (drawEach ? "; every value is a marker beside its box, tied values side by side." : r.ranks_complete ? " (with " + r.n.toLocaleString() + " values, too many to draw each one)." : ".");
+  const caption = r.shared
+    ? "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median; no whiskers or single values, which would show people's own values" +
+      (drawn.length < r.groups.length ? "; a protected group is not shown." : ".")
+    : "Each group's values: the box runs from the lower to the upper quartile with a thick line at the median, the whisker from the lowest to the highest value" +
+      (drawEach ? "; every value is a marker beside its box, tied values side by side." : r.ranks_complete ? " (with " + r.n.toLocaleString() + " values, too many to draw each one)." : ".");
   return { svg, caption };
 }
 
@@ -92,15 +101,23 @@ function shownAt(id, draw) {
   });
 }
 
+// meanRanksShown reports whether r has every group's mean rank (results
+// shared with small groups protected have none).
+function meanRanksShown(r) {
+  return r.groups.every((g) => g.mean_rank !== null);
+}
+
 export function renderPictures(state, changed) {
   if (!changed.has("result") || !state.result) return;
   const r = state.result;
   shownAt("plot-values", (width, height) => drawValues(r, width, height));
-  shownAt("plot-ranks", (width) => drawMeanRanks(r, width));
+  $("mean-ranks-box").hidden = !meanRanksShown(r);
+  if (meanRanksShown(r)) shownAt("plot-ranks", (width) => drawMeanRanks(r, width));
 }
 
 // reportPictures are a result's pictures of its groups, drawn for a report
-// (as for a measure of a battery, which is not on screen): [{svg, caption}].
+// (as for a measure of a battery, which is not on screen, or for results
+// as shared): [{svg, caption}].
 export function reportPictures(r) {
-  return [drawValues(r, REPORT_WIDTH, 320), drawMeanRanks(r, REPORT_WIDTH)];
+  return meanRanksShown(r) ? [drawValues(r, REPORT_WIDTH, 320), drawMeanRanks(r, REPORT_WIDTH)] : [drawValues(r, REPORT_WIDTH, 320)];
 }

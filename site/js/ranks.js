@@ -46,6 +46,8 @@ async function showTies() {
 
 export function renderRanks(state, changed) {
   if (!changed.has("result") || !state.result) return;
+  $("ranks-box").hidden = Boolean(state.result.shared); // results shared without their values have no ranks
+  if (state.result.shared) return;
   shown = state.result;
   measure = state.drill;
   offset = 0;

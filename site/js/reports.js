@@ -6,6 +6,7 @@ import { formOptions } from "./settings.js";
 import { svgOf, svgSource } from "./savepicture.js";
 import { reportPictures } from "./pictures.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
+import { outgoing } from "./outgoing.js";
 
 // groupEditsText says which groups were shown under another name and which
 // were left out, for the reports ("" when the groups are as in the text).
@@ -31,7 +32,7 @@ function measurePictures(r) {
 // htmlPage wraps a report's body: it runs nothing and loads nothing,
 // wherever it is opened.
 function htmlPage(title, version, body, wide = false) {
-  const settings = formOptions();
+  const settings = state.readOnly ? state.shared.options : formOptions();
   return ["<!doctype html><html lang=\"en\"><head><meta charset=\"utf-8\">",
     "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">",
     "<title>" + escapeHTML(title) + "</title>",
@@ -44,11 +45,19 @@ function htmlPage(title, version, body, wide = false) {
     ...body, "</body></html>\n"].join("");
 }
 
+// protectionText says how the results were protected for sharing, and
+// that results from a results-only link came without their data.
+function protectionText(r) {
+  const came = state.readOnly ? "These results came in a link without the data. " : "";
+  return came + (r.protection_note || "");
+}
+
 // htmlAnalysis is one measure's analysis: the plain words, its tables and
 // its notes, with headings from level down.
 function htmlAnalysis(r, tables, level) {
   const h = (text) => "<h" + level + ">" + escapeHTML(text) + "</h" + level + ">";
   const parts = [groupEditsText(r) ? "<p class=\"note\">" + escapeHTML(groupEditsText(r)) + "</p>" : "",
+    protectionText(r) ? "<p class=\"note\"><strong>" + escapeHTML(protectionText(r)) + "</strong></p>" : "",
     h("In plain words") + "<p><strong>" + escapeHTML(r.result_line) + "</strong></p><p>" + escapeHTML(r.decision) + "</p>",
     ...Object.values(tables).map((t) => htmlOf(t, level) + (t.name === "figures" ? "<p class=\"note\">" + escapeHTML(r.p_method_reason) + "</p>" : ""))];
   if (r.warnings.length) parts.push(h("Take note") + "<ul>" + r.warnings.map((w) => "<li>" + escapeHTML(w) + "</li>").join("") + "</ul>");
@@ -56,14 +65,16 @@ function htmlAnalysis(r, tables, level) {
 }
 
 function htmlReport() {
-  const r = state.result;
-  return htmlPage("Kruskal–Wallis H test", r.version, [...htmlAnalysis(r, state.tables, 2),
-    "<h2>Pictures</h2>" + (r.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks")]);
+  const { r, tables } = outgoing();
+  const pictures = r.shared ? measurePictures(r).join("") // drawn from the results as shared
+    : (r.levels ? picture("plot-levels") : "") + picture("plot-values") + picture("plot-ranks");
+  return htmlPage("Kruskal–Wallis H test", r.version, [...htmlAnalysis(r, tables, 2), "<h2>Pictures</h2>" + pictures]);
 }
 
 // markdownAnalysis is htmlAnalysis in Markdown.
 function markdownAnalysis(r, tables, level) {
-  const lines = [...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), "**" + mdText(r.result_line) + "**", "", mdText(r.decision)];
+  const lines = [...(groupEditsText(r) ? [mdText(groupEditsText(r)), ""] : []), ...(protectionText(r) ? ["**" + mdText(protectionText(r)) + "**", ""] : []),
+    "**" + mdText(r.result_line) + "**", "", mdText(r.decision)];
   for (const t of Object.values(tables)) {
     lines.push("", ...markdownOf(t, level));
     if (t.name === "figures") lines.push("", mdText(r.p_method_reason));
@@ -73,9 +84,9 @@ function markdownAnalysis(r, tables, level) {
 }
 
 function markdownReport() {
-  const r = state.result;
+  const { r, tables } = outgoing();
   return ["# Kruskal–Wallis H test", "", "Midrank " + r.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    ...markdownAnalysis(r, state.tables, 2)].join("\n") + "\n";
+    ...markdownAnalysis(r, tables, 2)].join("\n") + "\n";
 }
 
 // inFull are the battery's measures its reports show in full, with their
@@ -111,9 +122,9 @@ export function wireReports() {
   const when = (id, make) => $(id).addEventListener("click", () => { if (state.result) make(); });
   when("save-html", () => download("midrank-report.html", "text/html", htmlReport()));
   when("save-markdown", () => download("midrank-report.md", "text/markdown", markdownReport()));
-  when("save-groups", () => download("midrank-groups.csv", "text/csv", csvOf(state.tables.groups)));
-  when("save-pairs", () => { if (state.tables.pairs) download("midrank-pairs.csv", "text/csv", csvOf(state.tables.pairs)); });
-  when("save-levels", () => { if (state.tables.levels) download("midrank-levels.csv", "text/csv", csvOf(state.tables.levels)); });
+  when("save-groups", () => download("midrank-groups.csv", "text/csv", csvOf(outgoing().tables.groups)));
+  when("save-pairs", () => { if (outgoing().tables.pairs) download("midrank-pairs.csv", "text/csv", csvOf(outgoing().tables.pairs)); });
+  when("save-levels", () => { if (outgoing().tables.levels) download("midrank-levels.csv", "text/csv", csvOf(outgoing().tables.levels)); });
   const whenBattery = (id, make) => $(id).addEventListener("click", () => { if (state.battery) make(); });
   whenBattery("save-battery-html", () => download("midrank-measures-report.html", "text/html", batteryHTML()));
   whenBattery("save-battery-markdown", () => download("midrank-measures-report.md", "text/markdown", batteryMarkdown()));

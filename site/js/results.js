@@ -25,7 +25,8 @@ export function renderResults(state, changed) {
   if (!r) return;
   const t = state.tables;
   if (changed.has("result")) {
-    fillReference(r.groups);
+    if (!r.shared) fillReference(r.groups);
+    showSharedNote(state);
     $("decision").textContent = r.decision;
     $("result-line").textContent = r.result_line;
     figureList($("figures"), t.figures);
@@ -42,6 +43,31 @@ export function renderResults(state, changed) {
     $("notes-box").hidden = notes.length === 0;
   }
   renderPairs(state);
+}
+
+// SMALL is the group size under which the page suggests protecting small
+// groups before sharing (protect.Worth in the core).
+const SMALL = 10;
+
+// showSharedNote says what of the results on screen leaves the tab: results
+// that came without data; results whose small groups are hidden in what is
+// shared (this page, private, shows everything); or a suggestion to protect
+// groups under SMALL values.
+function showSharedNote(state) {
+  const r = state.result, note = $("shared-note");
+  const small = r.shared ? [] : r.groups.filter((g) => g.n < SMALL).map((g) => g.label);
+  let text = "";
+  if (state.readOnly) {
+    text = "Results only: these came in a link without the data (Midrank " + r.version + "), so there is nothing to analyse again. " + (r.protection_note || "");
+  } else if (r.protection) {
+    text = "Not shared: this page shows you every figure. What you copy, download or link shows the results as shared. " + (state.shared ? state.shared.protection : "");
+  } else if (small.length) {
+    text = (small.length === 1 ? "Group " + small[0] + " has" : "Groups " + small.join(", ") + " have") + " fewer than " + SMALL +
+      " values. If the results will be shared, consider “Protect small groups in what I share” above: people in a small group can be recognised from its figures.";
+  }
+  note.textContent = text;
+  note.hidden = text === "";
+  document.querySelector(".link-kind").hidden = state.readOnly;
 }
 
 // pairsHint says how to read the pairs: by their letters, or as
@@ -65,7 +91,7 @@ function renderPairs(state) {
   const at = (key) => pairs.columns.findIndex((c) => c.key === key);
   const adjusted = at("p_adjusted"), differ = at("significant");
   const order = [...pairs.values.keys()];
-  if (state.pairsSorted) order.sort((x, y) => pairs.values[x][adjusted] - pairs.values[y][adjusted]);
+  if (state.pairsSorted && adjusted >= 0) order.sort((x, y) => pairs.values[x][adjusted] - pairs.values[y][adjusted]);
   pageTable($("pairs-table"), pairs, {
     order,
     rowClass: (values) => values[differ] ? "tied" : "",
@@ -80,9 +106,11 @@ function renderPairs(state) {
       th.replaceChildren(b);
     },
   });
-  // the matrix shows every pair: with a reference group it would be mostly empty
-  $("matrix-box").hidden = r.posthoc.reference !== null;
-  if (r.posthoc.reference === null) renderMatrix(r, pairs, adjusted, differ);
+  // the matrix shows every pair's adjusted p: with a reference group it
+  // would be mostly empty, and results shared with groups protected may have none
+  const matrix = r.posthoc.reference === null && adjusted >= 0 && !r.shared;
+  $("matrix-box").hidden = !matrix;
+  if (matrix) renderMatrix(r, pairs, adjusted, differ);
 }
 
 // renderMatrix shows the adjusted p of every pair at a glance.

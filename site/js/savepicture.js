@@ -1,7 +1,10 @@
 // A picture as a file that stands alone: SVG or PNG with its title, its
 // styles and its caption.
-import { $, download } from "./dom.js";
+import { $, download, setStatus } from "./dom.js";
+import { state } from "./state.js";
 import { svgEl, svgText } from "./svg.js";
+import { outgoing, protecting } from "./outgoing.js";
+import { reportPictures } from "./pictures.js";
 
 const TITLE_HEIGHT = 28; // pixels above the picture for its visible title
 
@@ -28,8 +31,14 @@ function standalone(drawn, caption) {
   return svg;
 }
 
-// onScreen is the picture drawn in box id and its caption.
+// onScreen is the picture drawn in box id and its caption; with small
+// groups protected, the picture drawn from the results as shared instead
+// (the screen, private, shows everything), or null when there is none.
 function onScreen(id) {
+  if (protecting() && !state.readOnly) {
+    const shared = { "plot-values": 0, "plot-ranks": 1 }[id], drawn = reportPictures(outgoing().r)[shared];
+    return drawn ? standalone(drawn.svg, drawn.caption) : null;
+  }
   return standalone($(id).querySelector("svg"), $(id + "-caption").textContent);
 }
 
@@ -39,14 +48,27 @@ export function svgOf(drawn, caption) {
   return new XMLSerializer().serializeToString(standalone(drawn, caption));
 }
 
-// svgSource is a picture on screen as a standalone SVG file.
+// svgSource is a picture on screen as a standalone SVG file (null when
+// it is not shared).
 export function svgSource(id) {
-  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(onScreen(id));
+  const svg = onScreen(id);
+  return svg && '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(svg);
+}
+
+// NOT_SHARED says why a picture is not saved.
+const NOT_SHARED = "This picture is not shared while small groups are protected: it would show the protected groups' figures.";
+
+// saveSVG saves a picture as SVG.
+function saveSVG(id) {
+  const source = svgSource(id);
+  if (!source) return setStatus(NOT_SHARED);
+  download("midrank-" + id + ".svg", "image/svg+xml", source);
 }
 
 // savePNG draws a picture at twice its size and saves it as PNG.
 function savePNG(id) {
   const svg = onScreen(id);
+  if (!svg) return setStatus(NOT_SHARED);
   const box = svg.viewBox.baseVal;
   const image = new Image();
   const url = URL.createObjectURL(new Blob([new XMLSerializer().serializeToString(svg)], { type: "image/svg+xml" }));
@@ -66,7 +88,7 @@ function savePNG(id) {
 export function wirePictures(shown) {
   for (const button of document.querySelectorAll(".save-svg")) {
     button.addEventListener("click", () => {
-      if (shown()) download("midrank-" + button.dataset.plot + ".svg", "image/svg+xml", svgSource(button.dataset.plot));
+      if (shown()) saveSVG(button.dataset.plot);
     });
   }
   for (const button of document.querySelectorAll(".save-png")) {

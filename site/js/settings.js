@@ -1,8 +1,8 @@
 // The settings on the form, by the module's request keys.
 import { $ } from "./dom.js";
 
-export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust", "reference", "trend"];
-const numeric = new Set(["alpha", "resamples", "seed"]);
+export const fields = ["layout", "separator", "decimal", "thousands", "group", "measure", "alpha", "pvalue", "resamples", "seed", "posthoc", "adjust", "reference", "trend", "min_group_size"];
+const numeric = new Set(["alpha", "resamples", "seed", "min_group_size"]);
 
 // Several measures: the columns ticked, kept by key while the text's
 // columns are not known yet (a kept workspace, a link).

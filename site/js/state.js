@@ -7,6 +7,10 @@ export const state = {
   menus: {}, // the methods the module offers, by setting
   result: null, // the last analysis (the module's JSON), null when none is shown
   tables: null, // its tables of results as the core shows them
+  shared: null, // its results as shared (package findings), null for several measures
+  sharedTables: null, // their tables
+  readOnly: false, // the results on screen came in a results-only link: there is no data behind them
+  readOnlyLink: "", // that link's fragment, to pass the results on
   preview: null, // how the text was read, with its groups as written
   edits: { order: [], exclude: [], rename: {} }, // group edits beside the text
   undoable: [], // earlier edits, newest last
