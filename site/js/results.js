@@ -37,7 +37,9 @@ export function renderResults(state, changed) {
       figureList($("trend-figures"), t.trend);
       $("trend-note").textContent = t.trend.note;
     }
-    pageTable($("groups-table"), t.groups);
+    // groups hidden in what is shared are marked on this private page
+    const hidden = new Set(r.protection ? [...r.protection.small, ...r.protection.others] : []);
+    pageTable($("groups-table"), t.groups, { rowClass: (values) => hidden.has(values[0]) ? "not-shared" : "" });
     const notes = r.warnings.map((w) => { const li = document.createElement("li"); li.textContent = w; return li; });
     $("notes").replaceChildren(...notes);
     $("notes-box").hidden = notes.length === 0;
@@ -49,24 +51,26 @@ export function renderResults(state, changed) {
 // groups before sharing (protect.Worth in the core).
 const SMALL = 10;
 
-// showSharedNote says what of the results on screen leaves the tab: results
-// that came without data; results whose small groups are hidden in what is
-// shared (this page, private, shows everything); or a suggestion to protect
-// groups under SMALL values.
+// showSharedNote says what of the results on screen leaves the tab: at the
+// top, that results came without data; beside the sharing, that small
+// groups are hidden in what is shared (this page, private, shows
+// everything), or a suggestion to protect groups under SMALL values.
 function showSharedNote(state) {
-  const r = state.result, note = $("shared-note");
+  const r = state.result;
   const small = r.shared ? [] : r.groups.filter((g) => g.n < SMALL).map((g) => g.label);
-  let text = "";
+  let top = "", beside = "";
   if (state.readOnly) {
-    text = "Results only: these came in a link without the data (Midrank " + r.version + "), so there is nothing to analyse again. " + (r.protection_note || "");
+    top = "Results only: these came in a link without the data (Midrank " + r.version + "), so there is nothing to analyse again. " + (r.protection_note || "");
   } else if (r.protection) {
-    text = "Not shared: this page shows you every figure. What you copy, download or link shows the results as shared. " + (state.shared ? state.shared.protection : "");
+    beside = "Not shared: this page shows you every figure. What you copy, download or link shows the results as shared. " + (state.shared ? state.shared.protection : "");
   } else if (small.length) {
-    text = (small.length === 1 ? "Group " + small[0] + " has" : "Groups " + small.join(", ") + " have") + " fewer than " + SMALL +
-      " values. If the results will be shared, consider “Protect small groups in what I share” above: people in a small group can be recognised from its figures.";
+    beside = (small.length === 1 ? "Group " + small[0] + " has" : "Groups " + small.join(", ") + " have") + " fewer than " + SMALL +
+      " values. If the results will be shared, consider \u201cProtect small groups in what I share\u201d among the settings: people in a small group can be recognised from its figures.";
   }
-  note.textContent = text;
-  note.hidden = text === "";
+  for (const [id, text] of [["shared-note", top], ["protect-note", beside]]) {
+    $(id).textContent = text;
+    $(id).hidden = text === "";
+  }
   document.querySelector(".link-kind").hidden = state.readOnly;
 }
 

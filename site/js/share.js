@@ -8,7 +8,7 @@ import { htmlOf, plainOf } from "./tableview.js";
 import { dataText } from "./input.js";
 import { formOptions } from "./settings.js";
 import { seal, unseal } from "./seal.js";
-import { outgoing } from "./outgoing.js";
+import { outgoing, protecting } from "./outgoing.js";
 
 // Links longer than this are cut by some mail and chat programs.
 const SAFE_LINK = 2000;
@@ -26,8 +26,9 @@ function contents(kind, sealed) {
     return "This link carries the results only — the figures, the group summaries, the pairs and the settings — and no value of any person" +
       (r.protection_note ? "; small groups are protected as the report says" : "") + (sealed ? ", encrypted: only someone who also has the passphrase can open it. Send the passphrase another way. " : ". ");
   }
-  return sealed ? "This link contains your data, encrypted: only someone who also has the passphrase can open it. Send the passphrase another way. "
-    : "This link contains your data itself: anyone who has it can see the data. ";
+  const unprotected = protecting() ? "Small groups are not protected in it: choose \u201cthe results only\u201d for that. " : "";
+  return (sealed ? "This link contains your data, encrypted: only someone who also has the passphrase can open it. Send the passphrase another way. "
+    : "This link contains your data itself: anyone who has it can see the data. ") + unprotected;
 }
 
 async function makeLink(ask) {

@@ -37,7 +37,7 @@ func TestSharedOutputs(t *testing.T) {
 		t.Fatal(err)
 	}
 	b.analyse(t, string(data))
-	if got := b.text(t, "#shared-note"); !strings.HasPrefix(got, "Not shared") || !strings.Contains(got, "horsebean") {
+	if got := b.text(t, "#protect-note"); !strings.HasPrefix(got, "Not shared") || !strings.Contains(got, "horsebean") {
 		t.Errorf("the page does not say what is not shared: %q", got)
 	}
 	if got := b.text(t, "#decision"); got != want.Decision { // the page, private, shows everything
