@@ -37,6 +37,8 @@ const bridge = createBridge(
       $("progress").value = pct;
       $("progress").hidden = false;
     },
+    // parts of Monte Carlo estimates run by helper workers, for the browser tests and make bench-page
+    part: () => { document.documentElement.dataset.monteCarloParts = String(Number(document.documentElement.dataset.monteCarloParts || 0) + 1); },
   });
 
 // The demo's text, fetched while the module loads (index.html preloads it).

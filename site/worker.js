@@ -1,9 +1,10 @@
 // Worker: owns Go's wasm_exec.js and the statistics module, so the page never
 // freezes. The page compiles the module once and sends it to every worker it
 // starts: {kind: "module", module}. Then messages: {id, kind: "analyze",
-// data, options, edits} (answered by the module's workspace),
-// {id, kind: "page", list, offset, count[, measure]} (measure: the index of a battery's measure),
-// {id, kind: "link", data, options, edits}, {id, kind: "results-link"} (of the
+// data, options, edits, helpers} (answered by the module's workspace, with
+// the help of that many other workers for a Monte Carlo estimate: see farm
+// below), {id, kind: "page", list, offset, count[, measure]} (measure: the
+// index of a battery's measure), {id, kind: "link", data, options, edits}, {id, kind: "results-link"} (of the
 // last analysis), {id, kind: "open-link", fragment} and {id, kind: "sheet",
 // bytes, sheet}; replies: {id, json}, for a sheet
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
@@ -42,10 +43,38 @@ function request(q) {
   return JSON.stringify({ ...q.options, ...q.edits });
 }
 
+// A Monte Carlo estimate is shared with the page's other workers: the
+// module hands parts of it to share (a farm, see wasm/farm.go), which the
+// page passes to a helper worker as {kind: "mc-part", part, job, from, to}
+// and whose count comes back as {kind: "mc-part-done", part, json}. A
+// helper answers {kind: "mc-part-done", part, json} with the module's
+// monteCarloPart.
+const parts = new Map(); // part → {resolve, reject}
+let nextPart = 1;
+
+function farm(q) {
+  if (!q.helpers) return undefined;
+  return {
+    helpers: q.helpers,
+    share: (job, from, to) => new Promise((resolve, reject) => {
+      const part = nextPart++;
+      parts.set(part, { resolve, reject });
+      postMessage({ id: q.id, kind: "mc-part", part, job, from, to });
+    }),
+  };
+}
+
 onmessage = async (event) => {
   const q = event.data;
   if (q.kind === "module") {
     begin(q.module);
+    return;
+  }
+  if (q.kind === "mc-part-done") { // a helper's count, for the analysis running here
+    const waiting = parts.get(q.part);
+    parts.delete(q.part);
+    const answer = JSON.parse(q.json);
+    if (waiting) answer.error ? waiting.reject(answer.error.message) : waiting.resolve(answer.exceed);
     return;
   }
   let json, tables, shared, text;
@@ -64,6 +93,9 @@ onmessage = async (event) => {
       case "open-link":
         json = m.openLink(q.fragment);
         break;
+      case "mc-part": // this worker helps another with its Monte Carlo estimate
+        postMessage({ kind: "mc-part-done", part: q.part, json: m.monteCarloPart(q.job, q.from, q.to) });
+        return;
       case "sheet": { // the sheet's text comes as bytes beside the JSON, or an error as JSON alone
         const answer = m.sheet(q.bytes, q.sheet);
         if (typeof answer === "string") json = answer;
@@ -71,9 +103,9 @@ onmessage = async (event) => {
         break;
       }
       default:
-        json = m.workspace(new TextEncoder().encode(q.data), request(q),
+        json = await m.workspace(new TextEncoder().encode(q.data), request(q),
           (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
-          (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }));
+          (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }), farm(q));
         if (!json.startsWith('{"error"')) {
           tables = m.tables();
           shared = m.findings(); // an error for several measures, which are not shared this way

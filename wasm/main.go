@@ -4,7 +4,8 @@
 //
 //	globalThis.midrank.analyze(data, optionsJSON[, onProgress]) → responseJSON
 //	globalThis.midrank.preview(data, optionsJSON) → previewJSON
-//	globalThis.midrank.workspace(data, optionsJSON, onPreview[, onProgress]) → responseJSON
+//	globalThis.midrank.workspace(data, optionsJSON, onPreview[, onProgress[, farm]]) → Promise of responseJSON
+//	globalThis.midrank.monteCarloPart(jobJSON, from, to) → {"exceed": n}, a farm's part (see wasm/farm.go)
 //	globalThis.midrank.page(list, offset, count[, measure]) → pageJSON
 //	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
@@ -47,6 +48,7 @@ import (
 	"midrank/core"
 	"midrank/core/jsonlite"
 	"midrank/core/link"
+	"midrank/core/montecarlo"
 	"midrank/core/table"
 	"midrank/core/tables"
 )
@@ -66,20 +68,21 @@ var (
 
 func register() {
 	js.Global().Set("midrank", js.ValueOf(map[string]any{
-		"analyze":     guarded(analyze),
-		"preview":     guarded(preview),
-		"workspace":   guarded(workspace),
-		"page":        guarded(page),
-		"tables":      guarded(resultTables),
-		"link":        guarded(shareLink),
-		"findings":    guarded(sharedFindings),
-		"resultsLink": guarded(resultsLink),
-		"openLink":    guarded(openLink),
-		"sheet":       guarded(sheetText),
-		"version":     core.Version,
-		"defaults":    string(core.Defaults().JSON()),
-		"limits":      limits(),
-		"menus":       string(core.EncodeMenus()),
+		"analyze":        guarded(analyze),
+		"preview":        guarded(preview),
+		"workspace":      promised(workspace),
+		"page":           guarded(page),
+		"tables":         guarded(resultTables),
+		"link":           guarded(shareLink),
+		"findings":       guarded(sharedFindings),
+		"resultsLink":    guarded(resultsLink),
+		"monteCarloPart": guarded(monteCarloPart),
+		"openLink":       guarded(openLink),
+		"sheet":          guarded(sheetText),
+		"version":        core.Version,
+		"defaults":       string(core.Defaults().JSON()),
+		"limits":         limits(),
+		"menus":          string(core.EncodeMenus()),
 	}))
 }
 
@@ -97,7 +100,13 @@ func limits() string {
 // (a bug, a callback that throws) comes back as an error answer instead of
 // stopping the module, which would need a reload of the page.
 func guarded[T string | js.Value](fn func([]js.Value) (T, error)) js.Func {
-	return js.FuncOf(func(_ js.Value, args []js.Value) (out any) {
+	call := guardedCall(fn)
+	return js.FuncOf(func(_ js.Value, args []js.Value) any { return call(args) })
+}
+
+// guardedCall is fn with a failure or a panic turned into an error answer.
+func guardedCall[T string | js.Value](fn func([]js.Value) (T, error)) func([]js.Value) any {
+	return func(args []js.Value) (out any) {
 		defer func() {
 			if p := recover(); p != nil {
 				out = string(core.EncodeError(fmt.Errorf("internal error in the module: %v; reload the page, and please report it", p)))
@@ -108,7 +117,7 @@ func guarded[T string | js.Value](fn func([]js.Value) (T, error)) js.Func {
 			return string(core.EncodeError(err))
 		}
 		return answer
-	})
+	}
 }
 
 func analyze(args []js.Value) (string, error) {
@@ -126,7 +135,7 @@ func analyze(args []js.Value) (string, error) {
 }
 
 func workspace(args []js.Value) (string, error) {
-	const call = "workspace(data, optionsJSON, onPreview[, onProgress])"
+	const call = "workspace(data, optionsJSON, onPreview[, onProgress[, farm]])"
 	data, opt, err := inputOf(call, args)
 	if err != nil {
 		return "", err
@@ -139,13 +148,21 @@ func workspace(args []js.Value) (string, error) {
 	if err != nil {
 		return "", err
 	}
+	ctx := context.Background()
+	farm, err := farmOf(call, args, 4)
+	if err != nil {
+		return "", err
+	}
+	if farm != nil {
+		ctx = montecarlo.WithFarm(ctx, farm)
+	}
 	if opt.Several() { // a battery: the preview follows the first measure
 		onPreview(string(core.EncodePreview(core.PreviewOf(data, opt))))
-		b, err := core.AnalyzeMeasures(context.Background(), data, opt, progress)
+		b, err := core.AnalyzeMeasures(ctx, data, opt, progress)
 		return answer(nil, b, err)
 	}
 	lastOptions = opt
-	return one(core.Workspace(context.Background(), data, opt,
+	return one(core.Workspace(ctx, data, opt,
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
 }
 

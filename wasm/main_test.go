@@ -96,10 +96,47 @@ func TestWorkspace(t *testing.T) {
 		return nil
 	})
 	defer cb.Release()
-	got := m.Call("workspace", data, `{"exclude":["B","Z"]}`, cb).String()
+	got := await(m.Call("workspace", data, `{"exclude":["B","Z"]}`, cb)).String()
 	want := m.Call("analyze", data, `{"exclude":["B"]}`).String()
 	if got != want || len(previews) != 1 || !strings.Contains(previews[0], `"groups":[{"label":"A"`) {
 		t.Errorf("workspace = %.200s with previews %q, want %.200s", got, previews, want)
+	}
+}
+
+// await waits for a Promise and gives what it resolves to.
+func await(promise js.Value) js.Value {
+	done := make(chan js.Value, 1)
+	then := js.FuncOf(func(_ js.Value, args []js.Value) any { done <- args[0]; return nil })
+	defer then.Release()
+	promise.Call("then", then)
+	return <-done
+}
+
+// TestFarm: a Monte Carlo estimate shared with a farm of helpers — here
+// JavaScript functions that run monteCarloPart in this same module, as the
+// page's other workers do — is the estimate made alone, to the last bit.
+func TestFarm(t *testing.T) {
+	m := module()
+	data := "A,B,C\n1,2,3\n4,5,6\n7,8,9\n10,11,2\n"
+	const options = `{"pvalue":"monte-carlo","resamples":100000,"posthoc":"none"}`
+	noop := js.FuncOf(func(js.Value, []js.Value) any { return nil })
+	defer noop.Release()
+	parts := 0
+	share := js.FuncOf(func(_ js.Value, args []js.Value) any {
+		parts++
+		answer := m.Call("monteCarloPart", args[0], args[1], args[2]).String()
+		exceed := js.Global().Get("JSON").Call("parse", answer).Get("exceed")
+		return js.Global().Get("Promise").Call("resolve", exceed)
+	})
+	defer share.Release()
+	farm := js.ValueOf(map[string]any{"helpers": 2, "share": share})
+	shared := await(m.Call("workspace", data, options, noop, js.Undefined(), farm)).String()
+	alone := m.Call("analyze", data, options).String()
+	if shared != alone || parts != 2 {
+		t.Errorf("with a farm (%d parts shared):\n%.300s\nalone:\n%.300s", parts, shared, alone)
+	}
+	if bad := m.Call("monteCarloPart", `{"sizes":[1]}`, 0, 1).String(); !strings.Contains(bad, `"error"`) {
+		t.Errorf("a bad job: %s", bad)
 	}
 }
 
@@ -201,7 +238,7 @@ func TestBattery(t *testing.T) {
 	var previews int
 	onPreview := js.FuncOf(func(js.Value, []js.Value) any { previews++; return nil })
 	defer onPreview.Release()
-	got := m.Call("workspace", data, `{"group":"site","measures":["wait","stay"],"adjust_across":"holm"}`, onPreview).String()
+	got := await(m.Call("workspace", data, `{"group":"site","measures":["wait","stay"],"adjust_across":"holm"}`, onPreview)).String()
 	if previews != 1 || !strings.Contains(got, `"adjust_across":"holm","summary":"2 measures compared`) || !strings.Contains(got, `"measures":[{"measure":"wait","p_adjusted_across":`) {
 		t.Fatalf("workspace with two measures (%d previews) = %.300s", previews, got)
 	}

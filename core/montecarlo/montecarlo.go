@@ -48,19 +48,19 @@ type Progress func(done, total int)
 // X = Σ sᵢ²/nᵢ at least that of the observed group sums, sᵢ the sum of the
 // scores dealt to group i; X orders deals as H does, and the comparison is
 // exact (see reach). It stops with ctx.
+//
+// With a Farm in ctx (WithFarm) that has helpers, and at least MinShared
+// chunks, the chunks are shared out in equal runs, the first kept here.
 func PValue(ctx context.Context, sizes []int, scores []int64, observedSums []int64, resamples int, seed uint64, progress Progress) (Result, error) {
-	var total int64
-	for _, s := range scores {
-		total += s
-	}
-	target, err := newReach(sizes, observedSums, total)
+	j := Job{Sizes: sizes, Scores: scores, Observed: observedSums, Resamples: resamples, Seed: seed}
+	target, err := j.target()
 	if err != nil {
 		return Result{}, err
 	}
-	return Estimate(ctx, resamples, seed, progress, func() Chunk {
-		d := newDealer(sizes, scores, total)
-		return func(g *random.Xoshiro, count int) int { return d.chunk(g, count, target) }
-	})
+	if f, ok := ctx.Value(farmKey{}).(Farm); ok && f.Helpers() > 0 && j.chunks() >= MinShared {
+		return shared(ctx, f, j, target, progress)
+	}
+	return Estimate(ctx, resamples, seed, progress, func() Chunk { return j.newChunk(target) })
 }
 
 // Chunk draws count random deals from g and says how many are at least as
@@ -100,10 +100,15 @@ func Estimate(ctx context.Context, resamples int, seed uint64, progress Progress
 	if err := ctx.Err(); err != nil {
 		return Result{}, err
 	}
-	b := int(exceed.Load())
+	return resultOf(resamples, seed, int(exceed.Load())), nil
+}
+
+// resultOf is the estimate from b of B resamples reaching the observed
+// statistic.
+func resultOf(resamples int, seed uint64, b int) Result {
 	r := Result{Resamples: resamples, Seed: seed, Exceed: b, P: float64(b+1) / float64(resamples+1)}
 	r.Low, r.High = dist.ClopperPearson(b, resamples, 1-Level)
-	return r, nil
+	return r
 }
 
 // dealer holds one worker's two copies of the scores and their group sums.

@@ -1,7 +1,10 @@
 // The bridge to the worker that runs the statistics module. It knows no
 // element of the page: it starts the worker, sends requests, lets the
 // latest analysis win (a new one stops a running one), cancels by
-// terminating the worker, and answers every request with its id.
+// terminating the worker, and answers every request with its id. A Monte
+// Carlo estimate is shared with helper workers, one for each other core,
+// started when first needed: the worker asks for a part, the bridge hands
+// it to a helper and the count back to the worker.
 
 // LARGE_TEXT is the length, in characters, from which a text's analysis
 // leaves the worker's memory large (about 1 million values).
@@ -25,7 +28,8 @@ function parse(text) {
 // createBridge starts the worker. source: {script} (served: the worker's
 // file name) or {inline} (the single-file build: the worker's source text,
 // with moduleBytes). on: {ready(info), startFailed(message), preview(json),
-// progress(stage, done, total)}, called for the latest analysis only.
+// progress(stage, done, total)}, called for the latest analysis only, and
+// part(), told of each part of a Monte Carlo estimate handed to a helper.
 export function createBridge(source, moduleBytes, on) {
   let worker = null;
   let nextId = 1;
@@ -33,6 +37,10 @@ export function createBridge(source, moduleBytes, on) {
   let running = false; // an analysis is running in the worker
   let heavy = false; // the worker's memory holds a large text's analysis
   const pending = new Map();
+  // HELPERS share a Monte Carlo estimate with the worker: one for each other core, at most 7
+  const HELPERS = Math.max(0, Math.min(7, (navigator.hardwareConcurrency || 1) - 1));
+  let helpers = []; // started when first asked for a part: {worker, busy}
+  const queued = []; // parts waiting for a helper
 
   // The module is compiled once, here, and handed to every worker started,
   // so that a Cancel (which starts a fresh worker) costs no second compilation.
@@ -41,15 +49,61 @@ export function createBridge(source, moduleBytes, on) {
     : WebAssembly.compileStreaming(fetch(source.module))
       .catch(async () => WebAssembly.compile(await (await fetch(source.module)).arrayBuffer()));
 
-  function start() {
+  // spawn starts a worker with the compiled module.
+  function spawn(onmessage) {
     const w = source.inline
       ? new Worker(URL.createObjectURL(new Blob([source.inline], { type: "text/javascript" })))
       : new Worker(source.script);
-    w.onmessage = receive;
-    w.onerror = (e) => { e.preventDefault(); if (w === worker) failed(e.message || "the worker stopped"); };
+    w.onmessage = onmessage;
     compiled.then((module) => w.postMessage({ kind: "module", module }),
       (err) => on.startFailed("The statistics module could not be loaded: " + err));
+    return w;
+  }
+
+  function start() {
+    const w = spawn(receive);
+    w.onerror = (e) => { e.preventDefault(); if (w === worker) failed(e.message || "the worker stopped"); };
     worker = w;
+  }
+
+  // share hands a part of a Monte Carlo estimate to an idle helper, starting
+  // the helpers when first needed; a part waits while every helper is busy.
+  function share(part) {
+    on.part?.();
+    if (helpers.length === 0) {
+      for (let i = 0; i < HELPERS; i++) {
+        const helper = { worker: null, busy: null };
+        helper.worker = spawn((event) => helped(helper, event.data));
+        helper.worker.onerror = (e) => { e.preventDefault(); helped(helper, { kind: "failed", message: e.message || "a helper stopped" }); };
+        helpers.push(helper);
+      }
+    }
+    const idle = helpers.find((h) => !h.busy);
+    if (!idle) {
+      queued.push(part);
+      return;
+    }
+    idle.busy = part;
+    idle.worker.postMessage(part);
+  }
+
+  // helped passes a helper's count (or its failure) to the worker and gives
+  // the helper the next part waiting.
+  function helped(helper, m) {
+    if (m.kind !== "mc-part-done" && !(m.kind === "failed" && helper.busy)) return;
+    const part = helper.busy;
+    helper.busy = null;
+    const json = m.kind === "failed" ? JSON.stringify({ error: { message: m.message } }) : m.json;
+    worker.postMessage({ kind: "mc-part-done", part: part.part, json });
+    if (queued.length) share(queued.shift());
+  }
+
+  // stopHelpers ends the helpers, whatever they are computing (for an
+  // analysis that is stopped); new ones start when next needed.
+  function stopHelpers() {
+    for (const h of helpers) h.worker.terminate();
+    helpers = [];
+    queued.length = 0;
   }
 
   // failed answers every waiting request with the failure and starts a
@@ -58,6 +112,7 @@ export function createBridge(source, moduleBytes, on) {
     const waiting = [...pending.values()];
     pending.clear();
     worker.terminate();
+    stopHelpers();
     running = false;
     start();
     for (const resolve of waiting) resolve({ failed: message });
@@ -81,6 +136,9 @@ export function createBridge(source, moduleBytes, on) {
         return;
       case "progress":
         if (m.id === latest) on.progress(m.stage, m.done, m.total);
+        return;
+      case "mc-part":
+        share({ kind: "mc-part", part: m.part, job: m.job, from: m.from, to: m.to });
         return;
     }
     const resolve = pending.get(m.id);
@@ -110,6 +168,7 @@ export function createBridge(source, moduleBytes, on) {
   // requests waiting for it are answered as cancelled.
   function restart() {
     worker.terminate();
+    stopHelpers();
     for (const resolve of pending.values()) resolve({ json: { cancelled: true } });
     pending.clear();
     latest = nextId++; // any reply still on its way is stale
@@ -127,7 +186,7 @@ export function createBridge(source, moduleBytes, on) {
     heavy = message.data.length > LARGE_TEXT;
     running = true;
     latest = nextId; // the id ask is about to use
-    const reply = await ask({ kind: "analyze", ...message });
+    const reply = await ask({ kind: "analyze", helpers: HELPERS, ...message });
     if (reply.id !== latest) return null;
     running = false;
     return reply.body.cancelled ? null : reply;

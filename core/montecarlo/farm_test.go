@@ -1,0 +1,103 @@
+package montecarlo
+
+import (
+	"context"
+	"strings"
+	"testing"
+)
+
+// localFarm runs each part in a goroutine of this process, through the
+// job's JSON as the page's workers receive it.
+type localFarm struct{ helpers int }
+
+func (f localFarm) Helpers() int { return f.helpers }
+
+func (f localFarm) Share(job []byte, from, to int) func() (int, error) {
+	done := make(chan struct{})
+	var n int
+	var err error
+	go func() {
+		defer close(done)
+		var j Job
+		if j, err = ParseJob(job); err == nil {
+			n, err = Part(context.Background(), j, from, to)
+		}
+	}()
+	return func() (int, error) { <-done; return n, err }
+}
+
+// TestFarmGivesTheSameEstimate: shared among 1 to 4 helpers (with the
+// chunks split unevenly), the estimate is the one computed alone, to the
+// last bit, and progress reaches the total.
+func TestFarmGivesTheSameEstimate(t *testing.T) {
+	sizes := []int{7, 8, 9}
+	scores := untied(24)
+	observed := []int64{60, 90, 126}
+	alone, err := PValue(context.Background(), sizes, scores, observed, 50_000, 11, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for helpers := 1; helpers <= 4; helpers++ {
+		last := 0
+		r, err := PValue(WithFarm(context.Background(), localFarm{helpers}), sizes, scores, observed, 50_000, 11, func(done, total int) { last = done })
+		if err != nil {
+			t.Fatal(err)
+		}
+		if r != alone {
+			t.Errorf("%d helpers: %+v, alone %+v", helpers, r, alone)
+		}
+		if last != 50_000 {
+			t.Errorf("%d helpers: progress ended at %d", helpers, last)
+		}
+	}
+	// too few chunks to share: the farm is not asked
+	few, _ := PValue(WithFarm(context.Background(), panicFarm{}), sizes, scores, observed, ChunkSize*(MinShared-1), 11, nil)
+	if few.Resamples != ChunkSize*(MinShared-1) {
+		t.Errorf("%+v", few)
+	}
+}
+
+// panicFarm fails the test if it is asked for anything but its helpers.
+type panicFarm struct{}
+
+func (panicFarm) Helpers() int { return 3 }
+func (panicFarm) Share([]byte, int, int) func() (int, error) {
+	panic("a run of too few chunks was shared")
+}
+
+// TestPartRefuses: a job that does not hold together, or chunks it does
+// not have, are refused with a message.
+func TestPartRefuses(t *testing.T) {
+	good := Job{Sizes: []int{2, 2}, Scores: []int64{0, 1, 2, 3}, Observed: []int64{1, 5}, Resamples: 5000, Seed: 1}
+	if _, err := Part(context.Background(), good, 0, 3); err == nil || !strings.Contains(err.Error(), "not among") {
+		t.Errorf("chunks beyond the job: %v", err)
+	}
+	for _, text := range []string{`{}`, `{"sizes":[2,3],"scores":[0,1,2,3],"observed":[1,5],"resamples":5000,"seed":1}`,
+		`{"sizes":[2,2],"scores":[0,1,2,"x"],"observed":[1,5],"resamples":5000,"seed":1}`, `[`} {
+		if _, err := ParseJob([]byte(text)); err == nil {
+			t.Errorf("ParseJob(%s) accepted", text)
+		}
+	}
+	back, err := ParseJob(good.JSON())
+	if err != nil || back.Resamples != good.Resamples || len(back.Scores) != 4 {
+		t.Errorf("ParseJob(JSON()) = %+v, %v", back, err)
+	}
+	_, err = Part(context.Background(), Job{Sizes: []int{1, 1}, Scores: []int64{0, 1 << 60}, Observed: []int64{0, 1 << 60}, Resamples: 10, Seed: 1}, 0, 1)
+	if err == nil {
+		t.Error("a job whose sums are beyond exact comparison was run")
+	}
+}
+
+// FuzzParseJob: whatever the bytes, ParseJob gives an error or a job whose
+// parts can be run without a panic.
+func FuzzParseJob(f *testing.F) {
+	f.Add(Job{Sizes: []int{2, 2}, Scores: []int64{0, 1, 2, 3}, Observed: []int64{1, 5}, Resamples: 5000, Seed: 1}.JSON())
+	f.Add([]byte(`{"sizes":[1],"scores":[-5],"observed":[-5],"resamples":1,"seed":0}`))
+	f.Fuzz(func(t *testing.T, b []byte) {
+		j, err := ParseJob(b)
+		if err != nil || j.Resamples > 20_000 || len(j.Scores) > 100 {
+			return
+		}
+		Part(context.Background(), j, 0, j.chunks())
+	})
+}

@@ -1,0 +1,51 @@
+package browsertest
+
+import (
+	"context"
+	"fmt"
+	"strings"
+	"testing"
+
+	"github.com/chromedp/cdproto/cdp"
+	"github.com/chromedp/cdproto/emulation"
+	"github.com/chromedp/chromedp"
+
+	"midrank/core"
+)
+
+// TestMonteCarloOnEveryCore: with four cores, a Monte Carlo estimate is
+// shared with three helper workers, and the page's decision (p, its
+// interval, the seed) is the command line's, which draws the same seeded
+// chunks alone (the module's TestFarm checks the count to the last bit).
+func TestMonteCarloOnEveryCore(t *testing.T) {
+	b := start(t)
+	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
+	four := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		_, err := cdp.Call(ctx, tg, emulation.SetHardwareConcurrencyOverride, emulation.SetHardwareConcurrencyOverrideParams{HardwareConcurrency: 4})
+		return err
+	})
+	if err := chromedp.Do(b.ctx, four, chromedp.Reload()); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && navigator.hardwareConcurrency === 4`)
+	var text strings.Builder
+	text.WriteString("unit,score\n")
+	for i := range 100 {
+		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
+	}
+	if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "monte-carlo"), chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5")); err != nil {
+		t.Fatal(err)
+	}
+	b.analyse(t, text.String())
+	want, err := core.Analyze([]byte(text.String()), core.Options{PValue: "monte-carlo", Resamples: 200_000, Seed: new(uint64(5))})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := b.text(t, "#decision"); got != want.Decision {
+		t.Errorf("the page's decision:\n%s\nthe command line's:\n%s", got, want.Decision)
+	}
+	parts, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.monteCarloParts ?? "0"`))
+	if err != nil || parts != "3" {
+		t.Errorf("%s parts of the estimate went to helpers, want 3 (%v)", parts, err)
+	}
+}
