@@ -35,9 +35,12 @@ func Open(raw []byte) ([]byte, error) {
 	return w.Bytes(), nil
 }
 
-// check is a rule for one JSON value, at path (for the message).
+// check is a rule for one JSON value, at path (for the message). The
+// functions that make rules are kept from being inlined: inlined, each call
+// would compile its own copy of the rule's closure (27 KB of the module).
 type check func(path string, n jsonlite.Node) error
 
+//go:noinline
 func kind(want ...jsonlite.Kind) check {
 	return func(path string, n jsonlite.Node) error {
 		if !slices.Contains(want, n.Kind) {
@@ -70,6 +73,8 @@ type member struct {
 }
 
 // object checks an object with exactly these members.
+//
+//go:noinline
 func object(members ...member) check {
 	return func(path string, n jsonlite.Node) error {
 		if n.Kind != jsonlite.Object {
@@ -94,6 +99,8 @@ func object(members ...member) check {
 }
 
 // arrayOf checks an array whose items each pass item.
+//
+//go:noinline
 func arrayOf(item check) check {
 	return func(path string, n jsonlite.Node) error {
 		if n.Kind != jsonlite.Array {
@@ -109,6 +116,8 @@ func arrayOf(item check) check {
 }
 
 // oneOf checks a string among choices.
+//
+//go:noinline
 func oneOf(choices []string) check {
 	return func(path string, n jsonlite.Node) error {
 		if n.Kind != jsonlite.String || !slices.Contains(choices, n.Text) {
