@@ -3,7 +3,6 @@ package core
 import (
 	"cmp"
 	"context"
-	"fmt"
 	"runtime"
 	"strconv"
 	"sync"
@@ -68,10 +67,6 @@ func (m Measured) DiffersAcross() bool {
 // cannot be analysed keeps its error in its Measured.
 func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Progress) (*Battery, error) {
 	across, measures := cmp.Or(adjust.Method(opt.AdjustAcross), DefaultAcross), opt.Measures
-	if opt.MinGroupSize > 0 {
-		return nil, &OptionError{"min_group_size", fmt.Sprint(opt.MinGroupSize),
-			"protecting small groups works on one measure at a time for now: analyse the measures one by one, or leave the protection off"}
-	}
 	s, t, text, sheetName, err := opt.readTable(data)
 	if err != nil {
 		return nil, err

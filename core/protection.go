@@ -71,7 +71,7 @@ func quoteList(labels []string) string {
 	if len(quoted) == 1 {
 		return quoted[0]
 	}
-	return strings.Join(quoted[:len(quoted)-1], ", ") + " and " + quoted[len(quoted)-1] + " have"
+	return strings.Join(quoted[:len(quoted)-1], ", ") + " and " + quoted[len(quoted)-1]
 }
 
 func pronoun(n int, one, many string) string {

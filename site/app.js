@@ -131,7 +131,7 @@ function showFindings(f, link) {
   $("demo-note").hidden = true;
   setStale(false);
   update({ result: sharedResult(f), tables: named(f.tables), shared: f, sharedTables: named(f.tables), readOnly: true, readOnlyLink: link,
-    battery: null, batteryTables: null, drill: null, preview: null });
+    battery: null, batteryTables: null, batteryShared: null, drill: null, preview: null });
   setStatus("These results came in a link without the data: read, print or save them; paste your own data to analyse it.");
 }
 
@@ -199,7 +199,7 @@ async function analyse() {
   if (body.error) {
     // results of another text (or of none) must not stay on screen
     setStale(false);
-    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: null, batteryTables: null, drill: null });
+    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: null, batteryTables: null, batteryShared: null, drill: null });
     showProblem(body.error);
     return;
   }
@@ -208,9 +208,13 @@ async function analyse() {
   if (body.measures) {
     named({ overview: tables.overview });
     tables.measures.forEach(named);
-    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: body, batteryTables: tables, drill: null });
+    if (shared) {
+      named({ overview: shared.overview });
+      for (const m of shared.measures) if (m) named(m.tables);
+    }
+    update({ result: null, tables: null, shared: null, sharedTables: null, readOnly: false, battery: body, batteryTables: tables, batteryShared: shared, drill: null });
   } else {
-    update({ result: body, tables: named(tables), shared, sharedTables: named(shared && shared.tables), readOnly: false, battery: null, batteryTables: null, drill: null });
+    update({ result: body, tables: named(tables), shared, sharedTables: named(shared && shared.tables), readOnly: false, battery: null, batteryTables: null, batteryShared: null, drill: null });
   }
   setStale(false);
   // how long the last analysis took, for the browser tests' notes and make bench-page

@@ -4,8 +4,9 @@
 // data, options, edits, helpers} (answered by the module's workspace, with
 // the help of that many other workers for a Monte Carlo estimate: see farm
 // below), {id, kind: "page", list, offset, count[, measure]} (measure: the
-// index of a battery's measure), {id, kind: "link", data, options, edits}, {id, kind: "results-link"} (of the
-// last analysis), {id, kind: "open-link", fragment} and {id, kind: "sheet",
+// index of a battery's measure), {id, kind: "link", data, options, edits},
+// {id, kind: "results-link"[, measure]} (of the last analysis, or of one
+// measure of its battery), {id, kind: "open-link", fragment} and {id, kind: "sheet",
 // bytes, sheet}; replies: {id, json}, for a sheet
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
 // copied), and for an analysis that answered
@@ -88,7 +89,7 @@ onmessage = async (event) => {
         json = m.link(q.data, request(q));
         break;
       case "results-link":
-        json = m.resultsLink();
+        json = q.measure === null || q.measure === undefined ? m.resultsLink() : m.resultsLink(q.measure);
         break;
       case "open-link":
         json = m.openLink(q.fragment);
@@ -108,7 +109,7 @@ onmessage = async (event) => {
           (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }), farm(q));
         if (!json.startsWith('{"error"')) {
           tables = m.tables();
-          shared = m.findings(); // an error for several measures, which are not shared this way
+          shared = m.findings();
         }
     }
   } catch (err) {

@@ -9,8 +9,8 @@
 //	globalThis.midrank.page(list, offset, count[, measure]) → pageJSON
 //	globalThis.midrank.tables() → tablesJSON
 //	globalThis.midrank.link(data, optionsJSON) → {"link": "#r1.…"}
-//	globalThis.midrank.findings() → the last analysis's results as shared (package findings)
-//	globalThis.midrank.resultsLink() → {"link": "#f1.…"}, a results-only link to them
+//	globalThis.midrank.findings() → the last analysis's results as shared (package findings; of every measure of a battery)
+//	globalThis.midrank.resultsLink([measure]) → {"link": "#f1.…"}, a results-only link to them (to one measure of a battery)
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}, or {"findings": results} for results only
 //	globalThis.midrank.sheet(bytes[, sheet]) → {json: '{"format", "sheets", "sheet"}', text: Uint8Array}
 //	globalThis.midrank.version
@@ -156,12 +156,12 @@ func workspace(args []js.Value) (string, error) {
 	if farm != nil {
 		ctx = montecarlo.WithFarm(ctx, farm)
 	}
+	lastOptions = opt
 	if opt.Several() { // a battery: the preview follows the first measure
 		onPreview(string(core.EncodePreview(core.PreviewOf(data, opt))))
 		b, err := core.AnalyzeMeasures(ctx, data, opt, progress)
 		return answer(nil, b, err)
 	}
-	lastOptions = opt
 	return one(core.Workspace(ctx, data, opt,
 		func(p core.Preview) { onPreview(string(core.EncodePreview(p))) }, progress))
 }

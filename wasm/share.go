@@ -3,6 +3,7 @@
 package main
 
 import (
+	"cmp"
 	"errors"
 	"syscall/js"
 
@@ -64,22 +65,37 @@ func openLink(args []js.Value) (string, error) {
 	return string(w.Bytes()), nil
 }
 
-// sharedFindings are the results of the last analysis of one measure as
-// they may be shared.
+// sharedFindings are the results of the last analysis as they may be
+// shared: of one measure, or of several (findings.EncodeBattery).
 func sharedFindings([]js.Value) (string, error) {
-	if last == nil {
-		return "", errors.New("findings: there is no analysis of one measure to share")
+	var b []byte
+	var err error
+	switch {
+	case lastBattery != nil:
+		b, err = findings.EncodeBattery(lastBattery, lastOptions)
+	case last != nil:
+		b, err = findings.Encode(last, lastOptions)
+	default:
+		return "", errors.New("findings: there is no analysis to share")
 	}
-	b, err := findings.Encode(last, lastOptions)
 	return string(b), err
 }
 
-// resultsLink is a results-only link to the last analysis of one measure.
-func resultsLink([]js.Value) (string, error) {
-	if last == nil {
-		return "", errors.New("resultsLink: there is no analysis of one measure to share")
+// resultsLink is a results-only link to the last analysis of one measure,
+// or to measure i (the argument) of the last battery.
+func resultsLink(args []js.Value) (string, error) {
+	r := last
+	if lastBattery != nil && len(args) > 0 {
+		i, err := wholeOf("resultsLink(measure)", "measure", args[0])
+		if err != nil || i >= len(lastBattery.Measures) || lastBattery.Measures[i].Result == nil {
+			return "", cmp.Or(err, errors.New("resultsLink: the battery has no such measure analysed"))
+		}
+		r = lastBattery.Measures[i].Result
 	}
-	fragment, err := findings.Link(last, lastOptions)
+	if r == nil {
+		return "", errors.New("a results-only link carries one measure: open a measure from the overview, then make the link")
+	}
+	fragment, err := findings.Link(r, lastOptions)
 	if err != nil {
 		return "", err
 	}

@@ -89,6 +89,37 @@ func Encode(r *core.Result, opt core.Options) ([]byte, error) {
 	return w.Bytes(), w.Err()
 }
 
+// EncodeBattery writes the results of a battery of measures, analysed
+// with opt, as they may be shared (the page's reports of a battery):
+//
+//	{"overview": the overview table as shared, "measures": [each measure's results as Encode writes them, or null]}
+func EncodeBattery(b *core.Battery, opt core.Options) ([]byte, error) {
+	var w jsonlite.Writer
+	w.BeginObject()
+	overview, err := tables.EncodeTable(tables.SharedOverview(b))
+	if err != nil {
+		return nil, err
+	}
+	w.Key("overview")
+	w.Raw(overview)
+	w.Key("measures")
+	w.BeginArray()
+	for _, m := range b.Measures {
+		if m.Result == nil {
+			w.Null()
+			continue
+		}
+		one, err := Encode(m.Result, opt)
+		if err != nil {
+			return nil, err
+		}
+		w.Raw(one)
+	}
+	w.EndArray()
+	w.EndObject()
+	return w.Bytes(), w.Err()
+}
+
 // Link is a results-only link to the results of r, analysed with opt.
 func Link(r *core.Result, opt core.Options) (string, error) {
 	b, err := Encode(r, opt)

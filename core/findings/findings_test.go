@@ -2,6 +2,8 @@ package findings
 
 import (
 	"bytes"
+	"context"
+	"fmt"
 	"os"
 	"strings"
 	"testing"
@@ -132,4 +134,58 @@ func FuzzOpen(f *testing.F) {
 			t.Fatal(err)
 		}
 	})
+}
+
+// TestBatteryShared: a battery of two measures of R's chickwts (the
+// weights, and the same weights made distinctive another way), protected:
+// the results as shared hold none of the values, every measure says its
+// protection, and the overview names no highest or lowest group.
+func TestBatteryShared(t *testing.T) {
+	data, weights := chicks(t, map[string]int{"horsebean": 4, "meatmeal": 10})
+	var b strings.Builder
+	b.WriteString("feed,weight,again\n")
+	for i, line := range strings.Split(strings.TrimSpace(string(data)), "\n")[1:] {
+		feed, w, _ := strings.Cut(line, ",")
+		fmt.Fprintf(&b, "%s,%s,%d.%d\n", feed, w, 1000+i, 7*i%10)
+	}
+	opt := core.Options{Group: "feed", Measures: []string{core.AllMeasures}, MinGroupSize: 5}
+	battery, err := core.AnalyzeMeasures(context.Background(), []byte(b.String()), opt, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	doc, err := EncodeBattery(battery, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range weights {
+		if bytes.Contains(doc, []byte(strings.TrimRight(w, "0"))) {
+			t.Errorf("weight %s is in the shared battery", w)
+		}
+	}
+	n, err := jsonlite.ParseTree(doc, depth+2)
+	if err != nil {
+		t.Fatal(err)
+	}
+	measures := field(n, "measures").Items
+	if len(measures) != 2 {
+		t.Fatalf("%d measures", len(measures))
+	}
+	for i, m := range measures {
+		var w jsonlite.Writer
+		w.Node(m)
+		if _, err := Open(w.Bytes()); err != nil {
+			t.Errorf("measure %d: %v", i+1, err)
+		}
+		if !strings.Contains(field(m, "protection").Text, "horsebean") {
+			t.Errorf("measure %d does not say its protection", i+1)
+		}
+	}
+	overview := field(n, "overview")
+	for r, row := range field(overview, "text").Items {
+		for j, col := range field(overview, "columns").Items {
+			if key := field(col, "key").Text; (key == "highest" || key == "lowest") && row.Items[j].Text != "not shown" {
+				t.Errorf("row %d names the %s group: %s", r+1, key, row.Items[j].Text)
+			}
+		}
+	}
 }

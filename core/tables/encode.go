@@ -35,6 +35,13 @@ func Encode(tables []Table) ([]byte, error) {
 	return w.Bytes(), w.Err()
 }
 
+// EncodeTable writes one table as Encode writes each.
+func EncodeTable(t Table) ([]byte, error) {
+	var w jsonlite.Writer
+	writeTable(&w, t)
+	return w.Bytes(), w.Err()
+}
+
 // writeTable writes one table as Encode describes it.
 func writeTable(w *jsonlite.Writer, t Table) {
 	w.BeginObject()

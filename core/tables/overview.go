@@ -76,3 +76,21 @@ func Overview(b *core.Battery) Table {
 		b.GroupColumn, len(b.Measures), b.AdjustAcross.Name(), kruskal.SizeRule())
 	return build("overview", "Measures at a glance", note, "", overviewColumns, b.Measures)
 }
+
+// SharedOverview is the overview as shared (see Shared): on a measure where
+// small groups are protected, the groups with the highest and lowest mean
+// rank are not named, as no mean rank is shown.
+func SharedOverview(b *core.Battery) Table {
+	t := Overview(b)
+	for i, m := range b.Measures {
+		if m.Result == nil || !m.Result.Plan().Any() {
+			continue
+		}
+		for j, c := range t.Columns {
+			if c.Key == "highest" || c.Key == "lowest" {
+				t.Rows[i][j] = Cell{Text: withheld}
+			}
+		}
+	}
+	return t
+}

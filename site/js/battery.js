@@ -139,12 +139,13 @@ export function renderBattery(state, changed) {
 // drill shows measure i's whole analysis in the results; the overview
 // stays one step back.
 function drill(state, i) {
-  update({ drill: i, result: state.battery.measures[i], tables: state.batteryTables.measures[i] });
+  const shared = state.batteryShared ? state.batteryShared.measures[i] : null;
+  update({ drill: i, result: state.battery.measures[i], tables: state.batteryTables.measures[i], shared, sharedTables: shared && shared.tables });
   $("results-title").scrollIntoView({ block: "start" });
 }
 
 export function wireBattery() {
-  $("back-to-battery").addEventListener("click", () => update({ drill: null, result: null, tables: null }));
+  $("back-to-battery").addEventListener("click", () => update({ drill: null, result: null, tables: null, shared: null, sharedTables: null }));
   for (const [id, by] of [["battery-sort-p", "p"], ["battery-sort-effect", "effect"], ["battery-sort-none", null]]) {
     $(id).addEventListener("click", () => update({ batterySort: by }));
   }

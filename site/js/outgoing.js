@@ -18,10 +18,19 @@ export function sharedResult(f) {
 
 // protecting reports whether what leaves the tab is the results as shared.
 export function protecting() {
-  return state.readOnly || Boolean(state.result && state.result.protection);
+  return state.readOnly || Boolean(state.result ? state.result.protection : state.battery && state.battery.measures.some((m) => m.protection));
 }
 
 // outgoing is {r, tables}: the result and its tables as they may leave the tab.
 export function outgoing() {
   return protecting() ? { r: sharedResult(state.shared), tables: state.sharedTables } : { r: state.result, tables: state.tables };
+}
+
+// outgoingBattery is {overview, measures: [{r, tables} or null]}: a
+// battery's overview and measures as they may leave the tab.
+export function outgoingBattery() {
+  const b = state.battery;
+  if (!protecting()) return { overview: state.batteryTables.overview, measures: b.measures.map((m, i) => m.error ? null : { r: m, tables: state.batteryTables.measures[i] }) };
+  const s = state.batteryShared;
+  return { overview: s.overview, measures: s.measures.map((f) => f && { r: sharedResult(f), tables: f.tables }) };
 }

@@ -6,7 +6,7 @@ import { formOptions } from "./settings.js";
 import { svgOf, svgSource } from "./savepicture.js";
 import { reportPictures } from "./pictures.js";
 import { csvOf, escapeHTML, htmlOf, markdownOf, mdText } from "./tableview.js";
-import { outgoing } from "./outgoing.js";
+import { outgoing, outgoingBattery, protecting } from "./outgoing.js";
 
 // groupEditsText says which groups were shown under another name and which
 // were left out, for the reports ("" when the groups are as in the text).
@@ -93,8 +93,8 @@ function markdownReport() {
 // tables (every one analysed, or only those that differ), and a note that
 // says which.
 function inFull() {
-  const b = state.battery, onlyDiffering = $("battery-report").value === "differ";
-  const shown = b.measures.flatMap((m, i) => m.error || onlyDiffering && !m.differs_across ? [] : [{ m, tables: state.batteryTables.measures[i] }]);
+  const b = state.battery, onlyDiffering = $("battery-report").value === "differ", out = outgoingBattery();
+  const shown = b.measures.flatMap((m, i) => m.error || onlyDiffering && !m.differs_across ? [] : [{ m, ...out.measures[i] }]);
   const note = onlyDiffering ? shown.length + " of the " + b.measures.length + " measures follow in full: those that differ after the adjustment across measures."
     : "Every measure analysed follows in full.";
   return { shown, note };
@@ -102,18 +102,19 @@ function inFull() {
 
 function batteryHTML() {
   const b = state.battery, { shown, note } = inFull();
+  // the picture of every group's mean rank is not shared while small groups are protected
   return htmlPage("Kruskal–Wallis H test, " + b.measures.length + " measures", b.version, [
     "<p><strong>" + escapeHTML(b.summary) + "</strong></p>",
-    htmlOf(state.batteryTables.overview), picture("plot-battery"), "<p class=\"note\">" + escapeHTML(note) + "</p>",
-    ...shown.flatMap(({ m, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(m, tables, 3), ...measurePictures(m)])], true);
+    htmlOf(outgoingBattery().overview), protecting() ? "" : picture("plot-battery"), "<p class=\"note\">" + escapeHTML(note) + "</p>",
+    ...shown.flatMap(({ m, r, tables }) => ["<h2>" + escapeHTML(m.measure) + "</h2>", ...htmlAnalysis(r, tables, 3), ...measurePictures(r)])], true);
 }
 
 function batteryMarkdown() {
   const b = state.battery, { shown, note } = inFull();
   return ["# Kruskal–Wallis H test, " + b.measures.length + " measures", "", "Midrank " + b.version + ", " + new Date().toISOString().slice(0, 10) + ".", "",
-    "**" + mdText(b.summary) + "**", "", ...markdownOf(state.batteryTables.overview), "",
+    "**" + mdText(b.summary) + "**", "", ...markdownOf(outgoingBattery().overview), "",
     note,
-    ...shown.flatMap(({ m, tables }) => ["", "## " + mdText(m.measure), "", ...markdownAnalysis(m, tables, 3)])].join("\n") + "\n";
+    ...shown.flatMap(({ m, r, tables }) => ["", "## " + mdText(m.measure), "", ...markdownAnalysis(r, tables, 3)])].join("\n") + "\n";
 }
 
 // wireReports connects the download buttons; nothing is saved while no
@@ -128,5 +129,5 @@ export function wireReports() {
   const whenBattery = (id, make) => $(id).addEventListener("click", () => { if (state.battery) make(); });
   whenBattery("save-battery-html", () => download("midrank-measures-report.html", "text/html", batteryHTML()));
   whenBattery("save-battery-markdown", () => download("midrank-measures-report.md", "text/markdown", batteryMarkdown()));
-  whenBattery("save-overview", () => download("midrank-overview.csv", "text/csv", csvOf(state.batteryTables.overview)));
+  whenBattery("save-overview", () => download("midrank-overview.csv", "text/csv", csvOf(outgoingBattery().overview)));
 }

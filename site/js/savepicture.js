@@ -36,7 +36,8 @@ function standalone(drawn, caption) {
 // (the screen, private, shows everything), or null when there is none.
 function onScreen(id) {
   if (protecting() && !state.readOnly) {
-    const shared = { "plot-values": 0, "plot-ranks": 1 }[id], drawn = reportPictures(outgoing().r)[shared];
+    const shared = { "plot-values": 0, "plot-ranks": 1 }[id]; // the others (levels, every measure's mean ranks) are not shared
+    const drawn = shared === undefined ? null : reportPictures(outgoing().r)[shared];
     return drawn ? standalone(drawn.svg, drawn.caption) : null;
   }
   return standalone($(id).querySelector("svg"), $(id + "-caption").textContent);

@@ -35,7 +35,7 @@ async function makeLink(ask) {
   const passphrase = $("link-passphrase").value, kind = linkKind();
   setStatus(passphrase ? "Sealing the link with the passphrase…" : "Making the link…");
   const { body } = kind === "results" && state.readOnly ? { body: { link: state.readOnlyLink } }
-    : await ask(kind === "results" ? { kind: "results-link" } : { kind: "link", data: dataText(), options: formOptions(), edits: state.edits });
+    : await ask(kind === "results" ? { kind: "results-link", measure: state.drill } : { kind: "link", data: dataText(), options: formOptions(), edits: state.edits });
   if (body.error) {
     showProblem(body.error);
     return;

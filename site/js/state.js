@@ -17,6 +17,7 @@ export const state = {
   pairsSorted: false, // the pairs sorted by adjusted p
   battery: null, // the last analysis when it was of several measures (the module's JSON), else null
   batteryTables: null, // its tables: {overview, measures: [tables of each measure, or null]}
+  batteryShared: null, // its results as shared: {overview, measures: [results as shared, or null]}
   batterySort: null, // the overview's order: null (the columns'), "p" or "effect"
   drill: null, // the index of the battery's measure shown in full in the results, null for the overview
 };

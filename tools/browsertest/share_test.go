@@ -1,6 +1,7 @@
 package browsertest
 
 import (
+	"fmt"
 	"os"
 	"strings"
 	"testing"
@@ -122,6 +123,50 @@ func TestSharedOutputs(t *testing.T) {
 	s.waitFor(t, `document.getElementById("decision").textContent.length > 0`)
 	if got := s.text(t, "#decision"); got != want.SharedDecision() {
 		t.Errorf("the sealed results' decision:\n%s\nwant\n%s", got, want.SharedDecision())
+	}
+
+	// several measures at once: the weights and the same chicks' weights
+	// made distinctive another way; the battery's reports and overview hold
+	// no value, and a measure opened from the overview gives a results link
+	var battery strings.Builder
+	battery.WriteString("feed,weight,again\n")
+	for i, line := range strings.Split(strings.TrimSpace(string(data)), "\n")[1:] {
+		feed, w, _ := strings.Cut(line, ",")
+		fmt.Fprintf(&battery, "%s,%s,%d.%d\n", feed, w, 1000+i, 7*i%10)
+	}
+	b.analyse(t, battery.String())
+	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("status").textContent = "";
+		document.getElementById("group").value = "feed";
+		document.getElementById("measures-all").checked = true;
+		document.getElementById("measures-box").dispatchEvent(new Event("change", { bubbles: true })); true`)); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `document.getElementById("status").textContent === "Done: 2 measures."`)
+	for _, button := range []string{"save-battery-html", "save-battery-markdown", "save-overview"} {
+		text := b.saved(t, button)
+		clean(button, text)
+		if button != "save-overview" && (!strings.Contains(text, "Small groups protected") || strings.Contains(text, "Where each group lies")) {
+			t.Errorf("%s does not say its protection, or holds the picture of every group's mean rank", button)
+		}
+	}
+	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("link-passphrase").value = ""; true`)); err != nil {
+		t.Fatal(err)
+	}
+	if err := chromedp.Do(b.ctx, chromedp.Click(`#battery-table tbody tr:nth-child(2) button`), chromedp.Click(`input[name=link-kind][value=results]`), chromedp.Click("#make-link")); err != nil {
+		t.Fatal(err)
+	}
+	b.waitFor(t, `document.getElementById("link-text").value.includes("#f1.") || !document.getElementById("problem").hidden`)
+	if problem, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("problem").hidden ? "" : document.getElementById("problem").textContent`)); problem != "" {
+		t.Fatalf("making a measure's results link: %s", problem)
+	}
+	url, _ = chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("link-text").value`))
+	_, fragment, _ = strings.Cut(url, "#")
+	if raw, err = link.Decode("#" + fragment); err != nil {
+		t.Fatal(err)
+	}
+	clean("a measure's results-only link", string(raw))
+	if !strings.Contains(string(raw), `"measure":"again"`) {
+		t.Errorf("the measure's link does not carry the measure opened: %.200s", raw)
 	}
 }
 

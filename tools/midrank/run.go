@@ -246,9 +246,11 @@ func run(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	if *asJSON {
 		var b []byte
 		switch {
+		case battery != nil && opt.MinGroupSize > 0: // what leaves: the results as shared
+			b, err = findings.EncodeBattery(battery, opt)
 		case battery != nil:
 			b, err = core.EncodeBattery(battery)
-		case opt.MinGroupSize > 0: // what leaves: the results as shared
+		case opt.MinGroupSize > 0:
 			b, err = findings.Encode(result, opt)
 		default:
 			b, err = core.Encode(result)

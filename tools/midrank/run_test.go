@@ -141,7 +141,8 @@ func TestExitStatus(t *testing.T) {
 		{[]string{"--link", "--share", "everything", "-"}, data, exitSettings, "", "choose data"},
 		{[]string{"--link", "--share", "results", "-"}, data, exitOK, "#f1.", ""},
 		{[]string{"--link", "--share", "results", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "one measure's results"},
-		{[]string{"--min-group-size", "5", "--group", "site", "--measure", "all", "-"}, battery, exitSettings, "", "one measure at a time"},
+		{[]string{"--min-group-size", "3", "--group", "site", "--measure", "all", "-"}, battery, exitOK, "Small groups protected: “A”, “B” and “C” have fewer than 3 values (every", ""},
+		{[]string{"--json", "--min-group-size", "3", "--group", "site", "--measure", "all", "-"}, battery, exitOK, `"overview":{"title":"Measures at a glance"`, ""},
 		{[]string{"--open", "-"}, "#f1.q1ZKSSxJVLJS8kgsSsovLdIJyixLLSrOTEnlMjTSMTLkMrTQMTblUtJRSswpyAAqNNAzMKwFAA", exitData, "", "results only"},
 	}
 	for _, tt := range tests {

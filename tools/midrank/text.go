@@ -176,9 +176,19 @@ func wrap(text string, width int, indent string) string {
 
 // writeBattery prints a battery of measures for people: the overview, then
 // each measure's report, or why it could not be analysed.
+// protected reports whether small groups are protected in a battery's
+// report (each measure analysed has the same settings).
+func protected(b *core.Battery) bool {
+	return slices.ContainsFunc(b.Measures, func(m core.Measured) bool { return m.Result != nil && m.Result.Protection != nil })
+}
+
 func writeBattery(w io.Writer, b *core.Battery, showRanks bool) {
 	fmt.Fprintf(w, "Midrank %s · Kruskal–Wallis H test on %d measures by %q\n\n%s\n\n", core.Version, len(b.Measures), b.GroupColumn, wrap(b.Summary, 78, ""))
-	writeTable(w, tables.Overview(b))
+	if protected(b) {
+		writeTable(w, tables.SharedOverview(b))
+	} else {
+		writeTable(w, tables.Overview(b))
+	}
 	for _, m := range b.Measures {
 		fmt.Fprintf(w, "\n%s\n%s\n", m.Measure, strings.Repeat("=", len([]rune(m.Measure))))
 		if m.Result == nil {
