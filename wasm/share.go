@@ -23,7 +23,11 @@ func shareLink(args []js.Value) (string, error) {
 	for _, g := range core.PreviewOf(data, opt).Groups {
 		labels = append(labels, g.Label)
 	}
-	fragment, err := core.ShareLink(data, opt.ForLabels(labels))
+	return linkAnswer(core.ShareLink(data, opt.ForLabels(labels)))
+}
+
+// linkAnswer is a link made, as {"link": fragment}.
+func linkAnswer(fragment string, err error) (string, error) {
 	if err != nil {
 		return "", err
 	}
@@ -95,13 +99,5 @@ func resultsLink(args []js.Value) (string, error) {
 	if r == nil {
 		return "", errors.New("a results-only link carries one measure: open a measure from the overview, then make the link")
 	}
-	fragment, err := findings.Link(r, lastOptions)
-	if err != nil {
-		return "", err
-	}
-	var w jsonlite.Writer
-	w.BeginObject()
-	w.StringMember("link", fragment)
-	w.EndObject()
-	return string(w.Bytes()), nil
+	return linkAnswer(findings.Link(r, lastOptions))
 }

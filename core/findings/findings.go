@@ -94,30 +94,7 @@ func Encode(r *core.Result, opt core.Options) ([]byte, error) {
 //
 //	{"overview": the overview table as shared, "measures": [each measure's results as Encode writes them, or null]}
 func EncodeBattery(b *core.Battery, opt core.Options) ([]byte, error) {
-	var w jsonlite.Writer
-	w.BeginObject()
-	overview, err := tables.EncodeTable(tables.SharedOverview(b))
-	if err != nil {
-		return nil, err
-	}
-	w.Key("overview")
-	w.Raw(overview)
-	w.Key("measures")
-	w.BeginArray()
-	for _, m := range b.Measures {
-		if m.Result == nil {
-			w.Null()
-			continue
-		}
-		one, err := Encode(m.Result, opt)
-		if err != nil {
-			return nil, err
-		}
-		w.Raw(one)
-	}
-	w.EndArray()
-	w.EndObject()
-	return w.Bytes(), w.Err()
+	return tables.EncodeMeasures(tables.SharedOverview(b), b, func(r *core.Result) ([]byte, error) { return Encode(r, opt) })
 }
 
 // Link is a results-only link to the results of r, analysed with opt.

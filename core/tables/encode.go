@@ -35,13 +35,6 @@ func Encode(tables []Table) ([]byte, error) {
 	return w.Bytes(), w.Err()
 }
 
-// EncodeTable writes one table as Encode writes each.
-func EncodeTable(t Table) ([]byte, error) {
-	var w jsonlite.Writer
-	writeTable(&w, t)
-	return w.Bytes(), w.Err()
-}
-
 // writeTable writes one table as Encode describes it.
 func writeTable(w *jsonlite.Writer, t Table) {
 	w.BeginObject()
@@ -89,10 +82,16 @@ func writeTable(w *jsonlite.Writer, t Table) {
 // with each measure's tables as Encode writes them, in the battery's
 // order, or null for a measure that could not be analysed.
 func EncodeBattery(b *core.Battery) ([]byte, error) {
+	return EncodeMeasures(Overview(b), b, func(r *core.Result) ([]byte, error) { return Encode(Of(r)) })
+}
+
+// EncodeMeasures writes {"overview": overview, "measures": [each measure's
+// JSON by each, or null for a measure that could not be analysed]}.
+func EncodeMeasures(overview Table, b *core.Battery, each func(*core.Result) ([]byte, error)) ([]byte, error) {
 	var w jsonlite.Writer
 	w.BeginObject()
 	w.Key("overview")
-	writeTable(&w, Overview(b))
+	writeTable(&w, overview)
 	w.Key("measures")
 	w.BeginArray()
 	for _, m := range b.Measures {
@@ -100,7 +99,7 @@ func EncodeBattery(b *core.Battery) ([]byte, error) {
 			w.Null()
 			continue
 		}
-		one, err := Encode(Of(m.Result))
+		one, err := each(m.Result)
 		if err != nil {
 			return nil, err
 		}

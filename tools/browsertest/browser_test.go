@@ -211,8 +211,14 @@ func (b *browser) startLongRun(t *testing.T, data string) {
 // caught instead of saved.
 func (b *browser) saved(t *testing.T, button string) string {
 	t.Helper()
+	return b.savedBy(t, `#`+button)
+}
+
+// savedBy is saved for the button that a CSS selector finds.
+func (b *browser) savedBy(t *testing.T, selector string) string {
+	t.Helper()
 	catch := `URL.createObjectURL = (blob) => { window.savedBlob = blob; return "data:,"; }; HTMLAnchorElement.prototype.click = () => {}; ` +
-		`document.getElementById("` + button + `").click(); true`
+		`document.querySelector(` + strconv.Quote(selector) + `).click(); true`
 	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](catch)); err != nil {
 		t.Fatal(err)
 	}

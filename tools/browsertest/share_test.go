@@ -64,7 +64,7 @@ func TestSharedOutputs(t *testing.T) {
 			}
 		}
 	}
-	svg := b.savedPicture(t, "plot-values")
+	svg := b.savedBy(t, `.save-svg[data-plot="plot-values"]`)
 	clean("the picture saved", svg)
 	if !strings.Contains(svg, "not shown") {
 		t.Errorf("the picture saved does not mark the hidden groups")
@@ -168,20 +168,4 @@ func TestSharedOutputs(t *testing.T) {
 	if !strings.Contains(string(raw), `"measure":"again"`) {
 		t.Errorf("the measure's link does not carry the measure opened: %.200s", raw)
 	}
-}
-
-// savedPicture presses a picture's SVG download button and returns the
-// file the page made, caught instead of saved.
-func (b *browser) savedPicture(t *testing.T, plot string) string {
-	t.Helper()
-	catch := `URL.createObjectURL = (blob) => { window.savedBlob = blob; return "data:,"; }; HTMLAnchorElement.prototype.click = () => {}; ` +
-		`document.querySelector('.save-svg[data-plot="` + plot + `"]').click(); true`
-	if _, err := chromedp.Run(b.ctx, chromedp.Evaluate[bool](catch)); err != nil {
-		t.Fatal(err)
-	}
-	text, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`window.savedBlob.text()`, chromedp.EvalAwaitPromise))
-	if err != nil {
-		t.Fatal(err)
-	}
-	return text
 }
