@@ -23,13 +23,6 @@ func (r Request) JSON() []byte {
 	return w.Bytes()
 }
 
-// Check reports the first setting that cannot be used, nil when every one
-// can.
-func (o Options) Check() error {
-	_, err := o.validate()
-	return err
-}
-
 // ShareLink packs data and options into a link fragment (package link). The
 // link holds the data itself: whoever has the link can read it.
 func ShareLink(data []byte, opt Options) (string, error) {
