@@ -133,6 +133,7 @@ function showFindings(f, link) {
   update({ result: sharedResult(f), tables: named(f.tables), shared: f, sharedTables: named(f.tables), readOnly: true, readOnlyLink: link,
     battery: null, batteryTables: null, batteryShared: null, drill: null, preview: null });
   setStatus("These results came in a link without the data: read, print or save them; paste your own data to analyse it.");
+  $("results-title").scrollIntoView({ block: "start" }); // on a narrow screen the empty data box would come first
 }
 
 // A fragment that looks like a link of some format ("#r1.", "#s1.", or one
