@@ -248,7 +248,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 		r.Ties = ranking.Ties
 	}
 
-	r.Warnings = warnings(r, protect.Plan{})
+	r.Warnings = warnings(r, protect.Plan{}, false)
 	r.plan = protect.For(sizes, s.minGroupSize)
 	if s.minGroupSize > 0 {
 		r.Protection = protectionOf(r)

@@ -37,9 +37,9 @@ func (r *Result) Plan() protect.Plan { return r.plan }
 // screen give it: the hidden groups without their figures.
 func (r *Result) SharedDecision() string { return report.Decision(r.facts(r.plan)) }
 
-// SharedWarnings are the warnings as shared: the hidden groups without
-// their sizes.
-func (r *Result) SharedWarnings() []string { return warnings(r, r.plan) }
+// SharedWarnings are the warnings as shared: no cell of the data, the
+// hidden groups without their sizes.
+func (r *Result) SharedWarnings() []string { return warnings(r, r.plan, true) }
 
 // ProtectionNote says in a sentence which protection the shared outputs
 // apply, "" when none was asked for.

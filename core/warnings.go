@@ -9,8 +9,9 @@ import (
 // groups under the chi-square approximation, pairs not compared, a Monte
 // Carlo interval that straddles alpha, a p-value below what a double holds,
 // heavy ties.
-// A group that plan hides is named without its size.
-func warnings(r *Result, plan protect.Plan) []string {
+// For what is shared (shared), no cell of the data is named and a group
+// that plan hides is named without its size.
+func warnings(r *Result, plan protect.Plan, shared bool) []string {
 	c := report.Cautions{
 		Reading:       r.Input.Reason,
 		PairsSkipped:  r.K > MaxPairGroups && r.PostHoc == nil && r.pairsAsked,
@@ -20,6 +21,7 @@ func warnings(r *Result, plan protect.Plan) []string {
 		PZero:         r.PValue == 0,
 		HeavyTies:     r.TieCorrection < HeavyTies,
 		TieCorrection: r.TieCorrection,
+		Shared:        shared,
 	}
 	if r.PMethod == string(PValueAsymptotic) {
 		for i, g := range r.Groups {

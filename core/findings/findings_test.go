@@ -5,6 +5,7 @@ import (
 	"context"
 	"fmt"
 	"os"
+	"slices"
 	"strings"
 	"testing"
 
@@ -187,5 +188,43 @@ func TestBatteryShared(t *testing.T) {
 				t.Errorf("row %d names the %s group: %s", r+1, key, row.Items[j].Text)
 			}
 		}
+	}
+}
+
+// TestNoCellInWarnings: R's chickwts weights in hundreds of grams written
+// with a decimal comma and three decimals ("1,790"), which could also be
+// read with a comma between thousands: the analyst's warning quotes a
+// cell, the shared one does not.
+func TestNoCellInWarnings(t *testing.T) {
+	data, _ := chicks(t, map[string]int{"horsebean": 4, "meatmeal": 10})
+	var b strings.Builder
+	b.WriteString("feed;weight\n")
+	var cells []string
+	for _, line := range strings.Split(strings.TrimSpace(string(data)), "\n")[1:] {
+		feed, w, _ := strings.Cut(line, ",")
+		grams, _, _ := strings.Cut(w, ".")
+		cell := grams[:len(grams)-2] + "," + grams[len(grams)-2:] + "0"
+		cells = append(cells, cell)
+		fmt.Fprintf(&b, "%s;%s\n", feed, cell)
+	}
+	r, err := core.Analyze([]byte(b.String()), core.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	quoted := strings.Join(r.Warnings, " ")
+	if !slices.ContainsFunc(cells, func(c string) bool { return strings.Contains(quoted, c) }) {
+		t.Fatalf("the analyst's warnings quote no cell (the check would not see one): %q", quoted)
+	}
+	doc, err := Encode(r, core.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range cells {
+		if bytes.Contains(doc, []byte(`"`+c+`"`)) || bytes.Contains(doc, []byte("\\\""+c+"\\\"")) {
+			t.Errorf("the shared results quote the cell %s", c)
+		}
+	}
+	if !bytes.Contains(doc, []byte("could be read two ways")) {
+		t.Error("the shared results do not say that numbers could be read two ways")
 	}
 }

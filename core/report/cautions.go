@@ -14,6 +14,9 @@ type Cautions struct {
 	// OtherNumbers names cells whose marks could be read two ways, how they
 	// were read and what to choose for the other way ("" when none)
 	OtherNumbers string
+	// Shared: the cautions go into what is shared, which names no cell of
+	// the data (a cell is one person's value)
+	Shared bool
 	// SmallGroups are the groups with fewer than SmallGroup values, when
 	// the chi-square approximation gave p
 	SmallGroups []GroupSize
@@ -54,7 +57,10 @@ func Warnings(c Cautions) []string {
 		w = append(w, fmt.Sprintf("The text was read with %s. It could also be read with %s: if that is meant, choose the group and measure columns (on the command line --group and --measure).",
 			c.Reading, c.OtherReadings))
 	}
-	if c.OtherNumbers != "" {
+	switch {
+	case c.OtherNumbers != "" && c.Shared:
+		w = append(w, "Some numbers in the data could be read two ways (a comma or a point as the decimal mark or between thousands); the analyst chose how they were read.")
+	case c.OtherNumbers != "":
 		w = append(w, fmt.Sprintf("Some numbers could be read two ways: %s (on the command line --decimal or --thousands).", c.OtherNumbers))
 	}
 	if c.Groups == 2 {
