@@ -111,8 +111,9 @@ type Result struct {
 
 	table      *table.Table
 	ranking    rank.Ranking
-	pairsAsked bool         // a post-hoc method was asked for
-	plan       protect.Plan // the groups what is shared hides
+	pairsAsked bool          // a post-hoc method was asked for
+	plan       protect.Plan  // the groups what is shared hides
+	choice     report.Choice // how p was found, for PMethodReason
 	byRank     struct {
 		once  sync.Once
 		order []int32 // indices of the values, smallest first, stable
@@ -205,7 +206,7 @@ func analyzeTable(ctx context.Context, t *table.Table, s settings, progress Prog
 	if err != nil {
 		return nil, err
 	}
-	r.PMethod, r.PValue, r.PMethodReason = string(pv.method), pv.p, pv.reason
+	r.PMethod, r.PValue, r.PMethodReason, r.choice = string(pv.method), pv.p, pv.reason, pv.choice
 	r.PExact, r.ExactCriticalValue, r.ExactAttainedAlpha, r.MonteCarlo = pv.exact, pv.critical, pv.attained, pv.monteCarlo
 	if pv.monteCarlo != nil {
 		r.PMonteCarlo = &pv.p

@@ -37,6 +37,17 @@ func (r *Result) Plan() protect.Plan { return r.plan }
 // screen give it: the hidden groups without their figures.
 func (r *Result) SharedDecision() string { return report.Decision(r.facts(r.plan)) }
 
+// SharedMethodReason is how p was found, as shared: with groups hidden,
+// without the groups' sizes.
+func (r *Result) SharedMethodReason() string {
+	if !r.plan.Any() {
+		return r.PMethodReason
+	}
+	c := r.choice
+	c.SizesWithheld = true
+	return report.MethodReason(c)
+}
+
 // SharedWarnings are the warnings as shared: no cell of the data, the
 // hidden groups without their sizes.
 func (r *Result) SharedWarnings() []string { return warnings(r, r.plan, true) }

@@ -119,7 +119,7 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 		switch {
 		case err == nil:
 			choice.Method = string(PValueExact)
-			pv.method, pv.reason = PValueExact, report.MethodReason(choice)
+			pv.method, pv.reason, pv.choice = PValueExact, report.MethodReason(choice), choice
 			return pv, nil
 		case !errors.Is(err, exact.ErrTooLarge):
 			return pvalue{}, err
@@ -136,7 +136,7 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 	}
 	choice.Method = string(method)
 	if method == PValueAsymptotic {
-		return pvalue{method: method, p: pAsymptotic, reason: report.MethodReason(choice)}, nil
+		return pvalue{method: method, p: pAsymptotic, reason: report.MethodReason(choice), choice: choice}, nil
 	}
 	p := newProblem(ranking)
 	var mcProgress montecarlo.Progress
@@ -148,7 +148,7 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 		return pvalue{}, err
 	}
 	choice.Resamples, choice.Seed = mc.Resamples, mc.Seed
-	return pvalue{method: method, p: mc.P, reason: report.MethodReason(choice),
+	return pvalue{method: method, p: mc.P, reason: report.MethodReason(choice), choice: choice,
 		monteCarlo: &MonteCarlo{Resamples: mc.Resamples, Seed: mc.Seed, Exceed: mc.Exceed, CILow: mc.Low, CIHigh: mc.High}}, nil
 }
 
@@ -168,8 +168,9 @@ type pvalue struct {
 	method     PValueMethod
 	p          float64
 	reason     string
-	exact      *float64 // the exact p-value, when computed
-	critical   *float64 // exact_critical_value and exact_attained_alpha
+	choice     report.Choice // what reason says, kept to say it again without the sizes
+	exact      *float64      // the exact p-value, when computed
+	critical   *float64      // exact_critical_value and exact_attained_alpha
 	attained   *float64
 	monteCarlo *MonteCarlo
 }

@@ -45,7 +45,7 @@ func Encode(r *core.Result, opt core.Options) ([]byte, error) {
 	} else {
 		w.Null()
 	}
-	w.StringMember("p_method_reason", r.PMethodReason)
+	w.StringMember("p_method_reason", r.SharedMethodReason())
 	w.StringMember("result_line", r.ResultLine)
 	w.StringMember("decision", r.SharedDecision())
 	w.StringMember("protection", r.ProtectionNote())

@@ -1,6 +1,7 @@
 package findings
 
 import (
+	"fmt"
 	"slices"
 	"strconv"
 	"strings"
@@ -28,6 +29,8 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 		{"two small groups, DSCF", map[string]int{"horsebean": 4, "linseed": 2}, core.Options{MinGroupSize: 5, PostHoc: "dscf"}},
 		{"two small groups, Mann–Whitney, trend", map[string]int{"horsebean": 4, "linseed": 2}, core.Options{MinGroupSize: 5, PostHoc: "mann-whitney", Trend: "two-sided"}},
 		{"threshold 10: one small, reference group", map[string]int{"horsebean": 9}, core.Options{MinGroupSize: 10, Reference: "casein"}},
+		{"exact p", map[string]int{"horsebean": 3, "linseed": 6, "soybean": 6, "sunflower": 0, "casein": 0, "meatmeal": 0},
+			core.Options{MinGroupSize: 5, PValue: "exact", Trend: "increasing"}},
 	} {
 		data, _ := chicks(t, c.keep)
 		doc, r := shared(t, data, c.opt)
@@ -116,16 +119,33 @@ func TestProtectedGroupsCannotBeWorkedOut(t *testing.T) {
 				}
 			}
 		}
+		// the exact critical values and the method's reason depend on every group's size
+		for _, name := range []string{"figures", "trend"} {
+			if table, ok := field(n, "tables").Member(name); ok {
+				for j, col := range field(table, "columns").Items {
+					if field(col, "key").Text == "exact_critical_value" && field(table, "values").Items[0].Items[j].Kind != jsonlite.Null {
+						t.Errorf("%s: the %s table gives the exact critical value", c.name, name)
+					}
+				}
+			}
+		}
+		if reason := field(n, "p_method_reason").Text; strings.Contains(reason, "groups of") {
+			t.Errorf("%s: the method's reason gives the sizes: %s", c.name, reason)
+		}
 		// the words: no hidden group's size or median
 		words := field(n, "decision").Text
 		for _, w := range field(n, "warnings").Items {
 			words += " " + w.Text
 		}
 		for label, g := range hidden {
-			for _, figure := range []string{"n = " + strconv.Itoa(g.N), "has " + strconv.Itoa(g.N) + " values", display.Figure.Format(g.Median)} {
+			median := display.Figure.Format(g.Median)
+			for _, figure := range []string{label + " " + median, fmt.Sprintf("%q has %d values", label, g.N)} {
 				if strings.Contains(words, figure) {
 					t.Errorf("%s: the words give %s's %q", c.name, label, figure)
 				}
+			}
+			if !strings.Contains(words, label+" not shown (protected)") {
+				t.Errorf("%s: the decision does not speak of %s as protected", c.name, label)
 			}
 		}
 		if !strings.Contains(field(n, "protection").Text, "Small groups protected") {

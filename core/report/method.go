@@ -12,6 +12,8 @@ type Choice struct {
 	Method    string // "asymptotic", "exact" or "monte-carlo"
 	Automatic bool   // chosen by the automatic rule rather than asked for
 	Sizes     []int  // the groups' sizes
+	// SizesWithheld: the sizes are not told (small groups are protected)
+	SizesWithheld bool
 	// why the automatic rule passed over a method
 	ExactTooLarge     bool // the exact distribution is beyond the budget
 	MonteCarloTooLong bool // values × resamples beyond the automatic budget
@@ -30,6 +32,9 @@ func MethodReason(c Choice) string {
 	case "exact":
 		reason := fmt.Sprintf("Exact: every one of the %s equally likely ways to deal these ranks into groups of %s was accounted for.",
 			dealCount(c.Sizes), Sizes(c.Sizes))
+		if c.SizesWithheld {
+			reason = "Exact: every one of the equally likely ways to deal these ranks into the groups was accounted for."
+		}
 		if c.Automatic {
 			reason = "Chosen automatically. " + reason
 		}

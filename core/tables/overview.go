@@ -82,15 +82,6 @@ func Overview(b *core.Battery) Table {
 // rank are not named, as no mean rank is shown.
 func SharedOverview(b *core.Battery) Table {
 	t := Overview(b)
-	for i, m := range b.Measures {
-		if m.Result == nil || !m.Result.Plan().Any() {
-			continue
-		}
-		for j, c := range t.Columns {
-			if c.Key == "highest" || c.Key == "lowest" {
-				t.Rows[i][j] = Cell{Text: withheld}
-			}
-		}
-	}
+	withhold(t, func(i int) bool { return b.Measures[i].Result != nil && b.Measures[i].Result.Plan().Any() }, "highest", "lowest")
 	return t
 }

@@ -1,6 +1,8 @@
 package tables
 
 import (
+	"slices"
+
 	"midrank/core"
 	"midrank/core/protect"
 )
@@ -17,7 +19,8 @@ func Of(r *core.Result) []Table { return of(r, view{}) }
 // their rows without figures, their pairs left out, and no group's rank sum
 // or mean rank, nor the pairs' statistics and p-values of a procedure that
 // ranks all groups together: with the H statistic and the total, these
-// would let the hidden groups' rank sums be worked out.
+// would let the hidden groups' rank sums be worked out; nor the exact
+// critical values, which depend on every group's size.
 func Shared(r *core.Result) []Table { return of(r, view{shared: true, plan: r.Plan()}) }
 
 // view is what a set of tables may show.
@@ -31,6 +34,11 @@ func of(r *core.Result, v view) []Table {
 	if r.Trend != nil {
 		out = append(out, Trend(r))
 	}
+	if v.plan.Any() {
+		for i := range out {
+			withhold(out[i], func(int) bool { return true }, "exact_critical_value")
+		}
+	}
 	out = append(out, groups(r, v))
 	if r.Levels != nil {
 		out = append(out, levels(r, v))
@@ -39,6 +47,21 @@ func of(r *core.Result, v view) []Table {
 		out = append(out, pairs(r, v))
 	}
 	return out
+}
+
+// withhold replaces the cells of the columns keys in the rows that hide
+// reports as hidden by "not shown".
+func withhold(t Table, hide func(row int) bool, keys ...string) {
+	for j, c := range t.Columns {
+		if !slices.Contains(keys, c.Key) {
+			continue
+		}
+		for i := range t.Rows {
+			if hide(i) {
+				t.Rows[i][j] = Cell{Text: withheld}
+			}
+		}
+	}
 }
 
 // Keys are the column keys a table called name can have, in order (nil
