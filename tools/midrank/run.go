@@ -337,7 +337,8 @@ func readInput(name string, stdin io.Reader) ([]byte, error) {
 	var buf bytes.Buffer
 	if f, ok := in.(*os.File); ok { // a file says its size: one buffer, not one grown by copying
 		if info, err := f.Stat(); err == nil && info.Mode().IsRegular() {
-			buf.Grow(int(min(info.Size(), table.MaxText) + 1))
+			// ReadFrom grows the buffer when less than MinRead is free, even for the read that finds the end
+			buf.Grow(int(min(info.Size(), table.MaxText) + bytes.MinRead))
 		}
 	}
 	_, err := buf.ReadFrom(io.LimitReader(in, table.MaxText+1))
