@@ -145,34 +145,34 @@ func Analyze(data []byte, opt Options) (*Result, error) {
 // p-values): it stops when ctx is done, returning ctx.Err(), and tells
 // progress, when not nil, how far it is.
 func AnalyzeContext(ctx context.Context, data []byte, opt Options, progress Progress) (*Result, error) {
-	s, t, _, sheetName, err := opt.readTable(data)
+	s, t, _, from, err := opt.readTable(data)
 	if err != nil {
 		return nil, err
 	}
 	r, err := analyzeTable(ctx, t, s, progress)
-	if r != nil && sheetName != "" {
-		r.Input.Sheet = &sheetName
+	if r != nil {
+		from.describe(&r.Input)
 	}
 	return r, err
 }
 
 // readTable checks the options and reads the table: it gives the
-// settings, the table, the text read (data, or the chosen sheet of a
-// spreadsheet file) and the sheet's name.
-func (o Options) readTable(data []byte) (settings, *table.Table, []byte, string, error) {
+// settings, the table, the text read (data as UTF-8, or the chosen sheet of
+// a spreadsheet file) and where it came from.
+func (o Options) readTable(data []byte) (settings, *table.Table, []byte, source, error) {
 	s, err := o.validate()
 	if err != nil {
-		return s, nil, nil, "", err
+		return s, nil, nil, source{}, err
 	}
-	text, sheetName, err := textOf(data, o.Sheet)
+	text, from, err := textOf(data, o.Sheet)
 	if err != nil {
-		return s, nil, nil, "", err
+		return s, nil, nil, source{}, err
 	}
 	t, err := table.Parse(text, s.read)
 	if err != nil {
-		return s, nil, nil, "", err
+		return s, nil, nil, source{}, err
 	}
-	return s, t, text, sheetName, nil
+	return s, t, text, from, nil
 }
 
 // analyzeTable applies the group edits to a table just read and analyses it.

@@ -67,7 +67,7 @@ func (m Measured) DiffersAcross() bool {
 // cannot be analysed keeps its error in its Measured.
 func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Progress) (*Battery, error) {
 	across, measures := cmp.Or(adjust.Method(opt.AdjustAcross), DefaultAcross), opt.Measures
-	s, t, text, sheetName, err := opt.readTable(data)
+	s, t, text, from, err := opt.readTable(data)
 	if err != nil {
 		return nil, err
 	}
@@ -99,8 +99,8 @@ func AnalyzeMeasures(ctx context.Context, data []byte, opt Options, progress Pro
 					m.Measure = mt.Measure
 					m.Result, err = analyzeTable(ctx, mt, one, nil)
 				}
-				if m.Result != nil && sheetName != "" {
-					m.Result.Input.Sheet = &sheetName
+				if m.Result != nil {
+					from.describe(&m.Result.Input)
 				}
 				m.Err = err
 				b.Measures[i] = m

@@ -10,12 +10,15 @@ import (
 type Input struct {
 	Layout string `json:"layout"` // wide or long
 	// Sheet is the sheet read from a spreadsheet file, null for text
-	Sheet       *string `json:"sheet"`
-	Separator   string  `json:"separator"`    // tab, semicolon or comma
-	DecimalMark string  `json:"decimal_mark"` // point or comma
-	Thousands   string  `json:"thousands"`    // the thousands separator: none, comma, point, space or apostrophe
-	Header      bool    `json:"header"`       // long layout: the first line was a header
-	Measure     string  `json:"measure"`      // long layout: what the header calls the values
+	Sheet *string `json:"sheet"`
+	// Encoding is the text file's encoding, which it was made UTF-8 from:
+	// UTF-8, UTF-16LE, UTF-16BE or Windows-1252 (UTF-8 for a sheet)
+	Encoding    string `json:"encoding"`
+	Separator   string `json:"separator"`    // tab, semicolon or comma
+	DecimalMark string `json:"decimal_mark"` // point or comma
+	Thousands   string `json:"thousands"`    // the thousands separator: none, comma, point, space or apostrophe
+	Header      bool   `json:"header"`       // long layout: the first line was a header
+	Measure     string `json:"measure"`      // long layout: what the header calls the values
 	// long layout: the columns of the groups and of the values, by header
 	// (or "column N"); "" in the wide layout
 	GroupColumn   string  `json:"group_column"`

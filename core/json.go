@@ -147,6 +147,7 @@ func writeInput(w *jsonlite.Writer, in Input) {
 	w.StringMember("layout", in.Layout)
 	w.Key("sheet")
 	w.OptString(in.Sheet)
+	w.StringMember("encoding", in.Encoding)
 	w.StringMember("separator", in.Separator)
 	w.StringMember("decimal_mark", in.DecimalMark)
 	w.StringMember("thousands", in.Thousands)

@@ -34,7 +34,7 @@ type PreviewRow struct {
 // PreviewOf reads data with the reading options of opt (layout, separator,
 // decimal mark); the group edits and test settings play no part.
 func PreviewOf(data []byte, opt Options) Preview {
-	p, _, _, _ := read(data, opt)
+	p, _, _, _, _ := read(data, opt)
 	return p
 }
 
@@ -44,7 +44,7 @@ func PreviewOf(data []byte, opt Options) Preview {
 // out rather than refused (see table.Edits.For), so that they wait while a
 // label is being retyped.
 func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Preview), progress Progress) (*Result, error) {
-	p, s, t, err := read(data, opt)
+	p, s, t, from, err := read(data, opt)
 	onPreview(p)
 	if err != nil {
 		return nil, err
@@ -56,20 +56,20 @@ func Workspace(ctx context.Context, data []byte, opt Options, onPreview func(Pre
 	s.edits = s.edits.For(labels)
 	r, err := analyzeTable(ctx, t, s, progress)
 	if r != nil {
-		r.Input.Sheet = p.Input.Sheet
+		from.describe(&r.Input)
 	}
 	return r, err
 }
 
-// read validates the options, reads the text and describes it; the table
-// is nil when the text cannot be analysed.
-func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
+// read validates the options, reads the text and describes it, and says
+// where it came from; the table is nil when the text cannot be analysed.
+func read(data []byte, opt Options) (Preview, settings, *table.Table, source, error) {
 	p := Preview{Input: Input{Excluded: []Left{}, Alternatives: []Alternative{}}, Rows: []PreviewRow{}, Groups: []Left{}, Columns: table.Profile{Columns: []table.ColumnProfile{}},
 		Problems: []ProblemDetail{}}
 	s, err := opt.validate()
-	var sheetName string
+	var from source
 	if err == nil {
-		data, sheetName, err = textOf(data, opt.Sheet)
+		data, from, err = textOf(data, opt.Sheet)
 	}
 	if err == nil {
 		for _, r := range table.Records(data, s.read.Separator, PreviewRows) {
@@ -78,9 +78,7 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 		var t *table.Table
 		if t, err = table.Parse(data, s.read); t != nil {
 			p.Input = describeInput(t) // how it was read, even when reading stopped
-			if sheetName != "" {
-				p.Input.Sheet = &sheetName
-			}
+			from.describe(&p.Input)
 			p.Columns = t.Profile
 		}
 		var ps table.Problems
@@ -94,12 +92,12 @@ func read(data []byte, opt Options) (Preview, settings, *table.Table, error) {
 			}
 		}
 		if err == nil {
-			return p, s, t, nil
+			return p, s, t, from, nil
 		}
 	}
 	d := Detail(err)
 	p.Problems, p.Option, p.Message = d.Problems, d.Option, &d.Message
-	return p, s, nil, err
+	return p, s, nil, from, err
 }
 
 // writeProfile writes the columns of a text as

@@ -4,6 +4,7 @@ import (
 	"midrank/core/jsonlite"
 	"midrank/core/sheet"
 	"midrank/core/table"
+	"midrank/core/textenc"
 )
 
 // Sheets is a spreadsheet file turned into text: its format, its sheets,
@@ -57,15 +58,47 @@ func (s *Sheets) JSON() []byte {
 	return w.Bytes()
 }
 
-// textOf gives the text to read: data itself, or the chosen sheet of a
-// spreadsheet file, whose name it returns.
-func textOf(data []byte, ref string) ([]byte, string, error) {
+// source is where a text read came from: a sheet of a spreadsheet file, or
+// a text file in some encoding, which the text was made UTF-8 from.
+type source struct {
+	sheet    string // the sheet's name, "" for a text file
+	encoding textenc.Encoding
+}
+
+// textOf gives the text to read, as UTF-8: data itself, or converted from
+// its encoding (package textenc), or the chosen sheet of a spreadsheet file.
+func textOf(data []byte, ref string) ([]byte, source, error) {
 	if !sheet.IsSpreadsheet(data) {
-		return data, "", nil
+		text, enc := textenc.ToUTF8(data)
+		return text, source{encoding: enc}, nil
 	}
 	s, err := SheetText(data, ref)
 	if err != nil {
-		return nil, "", err
+		return nil, source{}, err
 	}
-	return s.Text, s.Names[s.Chosen], nil
+	return s.Text, source{sheet: s.Names[s.Chosen], encoding: textenc.UTF8}, nil
+}
+
+// describe adds the source to how the text was read: the sheet, and the
+// encoding, said in the reading's reason when it is not UTF-8 (the
+// conversion is a reading like any other, never made silently).
+func (s source) describe(in *Input) {
+	if s.sheet != "" {
+		in.Sheet = &s.sheet
+	}
+	in.Encoding = string(s.encoding)
+	if note := EncodingNote(s.encoding); note != "" {
+		in.Reason += "; " + note
+	}
+}
+
+// EncodingNote says how a text file in encoding enc was read, "" for UTF-8.
+func EncodingNote(enc textenc.Encoding) string {
+	switch enc {
+	case textenc.UTF16LE, textenc.UTF16BE:
+		return "the file is " + string(enc) + " text (as spreadsheets save \u201cUnicode text\u201d), read as such"
+	case textenc.Windows1252:
+		return "the file is not UTF-8, so it was read as Windows-1252, the Western European encoding of text saved on Windows (if letters look wrong, save the file as UTF-8 and open it again)"
+	}
+	return ""
 }

@@ -6,7 +6,8 @@
 // below), {id, kind: "page", list, offset, count[, measure]} (measure: the
 // index of a battery's measure), {id, kind: "link", data, options, edits},
 // {id, kind: "results-link"[, measure]} (of the last analysis, or of one
-// measure of its battery), {id, kind: "open-link", fragment} and {id, kind: "sheet",
+// measure of its battery), {id, kind: "open-link", fragment} and {id, kind: "text-file", bytes} (a text file
+// that is not UTF-8, made UTF-8), {id, kind: "sheet",
 // bytes, sheet}; replies: {id, json}, for a sheet
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
 // copied), and for an analysis that answered
@@ -97,8 +98,9 @@ onmessage = async (event) => {
       case "mc-part": // this worker helps another with its Monte Carlo estimate
         postMessage({ kind: "mc-part-done", part: q.part, json: m.monteCarloPart(q.job, q.from, q.to) });
         return;
-      case "sheet": { // the sheet's text comes as bytes beside the JSON, or an error as JSON alone
-        const answer = m.sheet(q.bytes, q.sheet);
+      case "sheet": // the text comes as bytes beside the JSON, or an error as JSON alone
+      case "text-file": {
+        const answer = q.kind === "sheet" ? m.sheet(q.bytes, q.sheet) : m.textFile(q.bytes);
         if (typeof answer === "string") json = answer;
         else ({ json, text } = answer);
         break;

@@ -13,6 +13,7 @@
 //	globalThis.midrank.resultsLink([measure]) → {"link": "#f1.…"}, a results-only link to them (to one measure of a battery)
 //	globalThis.midrank.openLink(fragment) → {"data": …, "options": {…}}, or {"findings": results} for results only
 //	globalThis.midrank.sheet(bytes[, sheet]) → {json: '{"format", "sheets", "sheet"}', text: Uint8Array}
+//	globalThis.midrank.textFile(bytes) → {json: '{"encoding", "note"}', text: Uint8Array}, a text file made UTF-8
 //	globalThis.midrank.version
 //	globalThis.midrank.defaults → the default settings as options JSON
 //	globalThis.midrank.limits → {"text": bytes of the largest text read, "link": characters of the longest link}
@@ -51,6 +52,7 @@ import (
 	"midrank/core/montecarlo"
 	"midrank/core/table"
 	"midrank/core/tables"
+	"midrank/core/textenc"
 )
 
 func main() {
@@ -79,6 +81,7 @@ func register() {
 		"monteCarloPart": guarded(monteCarloPart),
 		"openLink":       guarded(openLink),
 		"sheet":          guarded(sheetText),
+		"textFile":       guarded(textFile),
 		"version":        core.Version,
 		"defaults":       string(core.Defaults().JSON()),
 		"limits":         limits(),
@@ -244,6 +247,37 @@ func resultTables([]js.Value) (string, error) {
 	return string(b), err
 }
 
+// textFile makes a text file that is not UTF-8 (a Uint8Array) UTF-8:
+// {json: '{"encoding", "note"}', text: a Uint8Array of the UTF-8 text}
+// (package textenc; the note says how it was read).
+func textFile(args []js.Value) (js.Value, error) {
+	const call = "textFile(bytes)"
+	if len(args) < 1 {
+		return js.Value{}, fmt.Errorf("%s needs the file's bytes", call)
+	}
+	data, err := bytesOf(call, args[0])
+	if err != nil {
+		return js.Value{}, err
+	}
+	text, enc := textenc.ToUTF8(data)
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.StringMember("encoding", string(enc))
+	w.StringMember("note", core.EncodingNote(enc))
+	w.EndObject()
+	return bytesAnswer(w.Bytes(), text), nil
+}
+
+// bytesAnswer is {json, text: a Uint8Array copy of text}.
+func bytesAnswer(json, text []byte) js.Value {
+	array := js.Global().Get("Uint8Array").New(len(text))
+	js.CopyBytesToJS(array, text)
+	answer := js.Global().Get("Object").New()
+	answer.Set("json", string(json))
+	answer.Set("text", array)
+	return answer
+}
+
 // sheetText opens a spreadsheet file (a Uint8Array) and gives one sheet:
 // {json: '{"format", "sheets", "sheet"}' (see core.Sheets.JSON), text: a
 // Uint8Array of the sheet's UTF-8 text}, the text as bytes because a sheet
@@ -265,12 +299,7 @@ func sheetText(args []js.Value) (js.Value, error) {
 	if err != nil {
 		return js.Value{}, err
 	}
-	text := js.Global().Get("Uint8Array").New(len(s.Text))
-	js.CopyBytesToJS(text, s.Text)
-	answer := js.Global().Get("Object").New()
-	answer.Set("json", string(s.JSON()))
-	answer.Set("text", text)
-	return answer, nil
+	return bytesAnswer(s.JSON(), s.Text), nil
 }
 
 // inputOf reads the data in args[0] and the options in args[1] of call.

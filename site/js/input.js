@@ -28,6 +28,13 @@ export function setText(text) {
   }
 }
 
+// fileNote says how the file opened was read when it was not UTF-8 ("":
+// nothing to say).
+function fileNote(text) {
+  $("file-note").textContent = text;
+  $("file-note").hidden = text === "";
+}
+
 function showHeldAsText() {
   const text = heldText;
   heldText = null;
@@ -54,11 +61,13 @@ export function selectLine(line) {
 // spreadsheet, a large paste); ask sends the worker a request.
 export function wireInput(newText, ask) {
   wireSheets(ask, newText);
+  $("held-clear").addEventListener("click", () => fileNote(""));
   // a large paste is held rather than laid out in the box (it replaces the box's text)
   $("data").addEventListener("paste", (e) => {
     const text = e.clipboardData?.getData("text/plain") ?? "";
     if (text.length <= HOLD_LIMIT) return;
     e.preventDefault();
+    fileNote("");
     forgetSpreadsheet();
     newText(text);
   });
@@ -77,10 +86,27 @@ export function wireInput(newText, ask) {
       return;
     }
     forgetSpreadsheet();
-    const reader = new FileReader();
-    reader.onload = () => newText(reader.result);
-    reader.onerror = () => showProblem({ message: "The file " + file.name + " could not be read: " + reader.error });
-    reader.readAsText(file);
+    let bytes;
+    try {
+      bytes = new Uint8Array(await file.arrayBuffer());
+    } catch (err) {
+      showProblem({ message: "The file " + file.name + " could not be read: " + err });
+      return;
+    }
+    try {
+      const text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+      fileNote("");
+      newText(text);
+    } catch {
+      // not UTF-8: the module reads UTF-16 and Windows-1252 (core/textenc), and says how
+      const { body, text } = await ask({ kind: "text-file", bytes });
+      if (body.error) {
+        showProblem({ ...body.error, message: file.name + ": " + body.error.message });
+        return;
+      }
+      fileNote(file.name + ": " + body.note + ".");
+      newText(new TextDecoder().decode(text));
+    }
   }
   $("file").addEventListener("change", () => { if ($("file").files[0]) readFile($("file").files[0]); });
   for (const target of [$("data"), $("held")]) {

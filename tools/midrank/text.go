@@ -25,6 +25,9 @@ func writeReport(w io.Writer, r *core.Result, showRanks bool) {
 	}
 	in := r.Input
 	read := fmt.Sprintf("%s layout, %s-separated, decimal %s", in.Layout, in.Separator, in.DecimalMark)
+	if in.Encoding != "UTF-8" {
+		read = in.Encoding + " text, " + read
+	}
 	if in.Thousands != "none" {
 		read += fmt.Sprintf(", %s between thousands", in.Thousands)
 	}
