@@ -5,8 +5,8 @@ import (
 	"os"
 	"strings"
 	"testing"
-	"unicode/utf16"
 
+	"midrank/core/testfiles"
 	"midrank/core/textenc"
 )
 
@@ -16,27 +16,17 @@ import (
 // — with one feed renamed to a label with accents, is read as the UTF-8
 // file is: the same groups and H, and the reading says the encoding.
 func TestTextFileEncodings(t *testing.T) {
-	raw, err := os.ReadFile("../testdata/protect/chickwts.csv")
+	text, utf16le, cp1252, err := testfiles.Exports(os.DirFS("../testdata"))
 	if err != nil {
 		t.Fatal(err)
 	}
-	text := strings.ReplaceAll(strings.ReplaceAll(string(raw), `"`, ""), "linseed", "graine de lin à Zürich")
-	want, err := Analyze([]byte(text), Options{})
+	want, err := Analyze(text, Options{})
 	if err != nil {
 		t.Fatal(err)
 	}
 	// R 4.2.2: kruskal.test(weight ~ feed, data = chickwts)$statistic
 	if math.Abs(want.H-37.342717694256208) > 1e-12 {
 		t.Fatalf("chickwts: H = %.17g, R 37.342717694256208", want.H)
-	}
-	tabbed := strings.ReplaceAll(text, ",", "\t")
-	utf16le := []byte{0xFF, 0xFE}
-	for _, u := range utf16.Encode([]rune(tabbed)) {
-		utf16le = append(utf16le, byte(u), byte(u>>8))
-	}
-	var cp1252 []byte
-	for _, r := range strings.ReplaceAll(text, ",", ";") {
-		cp1252 = append(cp1252, byte(r)) // à and ü are the same bytes in Windows-1252 as their code points
 	}
 	for _, c := range []struct {
 		name string
@@ -47,7 +37,7 @@ func TestTextFileEncodings(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: %v", c.name, err)
 		}
-		if r.H != want.H || len(r.Groups) != len(want.Groups) || r.Groups[1].Label != "graine de lin à Zürich" {
+		if r.H != want.H || len(r.Groups) != len(want.Groups) || r.Groups[1].Label != testfiles.AccentedFeed {
 			t.Errorf("%s: H %v, groups %v; want H %v, the label with its accents", c.name, r.H, r.Groups, want.H)
 		}
 		if r.Input.Encoding != string(c.enc) || !strings.Contains(r.Input.Reason, string(c.enc)) {

@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"io/fs"
 	"strconv"
+	"strings"
+	"unicode/utf16"
 )
 
 // Chicks reads R's chickwts (protect/chickwts.csv in fsys, written by
@@ -47,3 +49,27 @@ func Chicks(fsys fs.FS, keep map[string]int) ([]byte, []string, error) {
 	}
 	return b.Bytes(), weights, nil
 }
+
+// Exports are R's chickwts (protect/chickwts.csv in fsys) with the feed
+// "linseed" renamed "graine de lin à Zürich" (a label with accents), as
+// spreadsheets save text: UTF-8 with commas, UTF-16LE with its byte-order
+// mark and tabs ("Unicode text"), and Windows-1252 with semicolons (CSV
+// saved on Windows): the input of the tests of reading encodings.
+func Exports(fsys fs.FS) (utf8, utf16le, cp1252 []byte, err error) {
+	raw, err := fs.ReadFile(fsys, "protect/chickwts.csv")
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	text := strings.ReplaceAll(strings.ReplaceAll(string(raw), `"`, ""), "linseed", AccentedFeed)
+	utf16le = []byte{0xFF, 0xFE}
+	for _, u := range utf16.Encode([]rune(strings.ReplaceAll(text, ",", "\t"))) {
+		utf16le = append(utf16le, byte(u), byte(u>>8))
+	}
+	for _, r := range strings.ReplaceAll(text, ",", ";") {
+		cp1252 = append(cp1252, byte(r)) // à and ü are their code points in Windows-1252
+	}
+	return []byte(text), utf16le, cp1252, nil
+}
+
+// AccentedFeed is the label Exports gives the feed "linseed".
+const AccentedFeed = "graine de lin à Zürich"

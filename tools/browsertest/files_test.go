@@ -5,9 +5,10 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
-	"unicode/utf16"
 
 	"github.com/chromedp/chromedp"
+
+	"midrank/core/testfiles"
 )
 
 // TestTextFileEncodings: R's chickwts saved as spreadsheets save text —
@@ -15,25 +16,16 @@ import (
 // semicolons — with one feed renamed to a label with accents, opens with
 // the label whole, and the page says how the file was read.
 func TestTextFileEncodings(t *testing.T) {
-	raw, err := os.ReadFile("../../testdata/protect/chickwts.csv")
+	text, utf16le, cp1252, err := testfiles.Exports(os.DirFS("../../testdata"))
 	if err != nil {
 		t.Fatal(err)
-	}
-	text := strings.ReplaceAll(strings.ReplaceAll(string(raw), `"`, ""), "linseed", "graine de lin à Zürich")
-	utf16le := []byte{0xFF, 0xFE}
-	for _, u := range utf16.Encode([]rune(strings.ReplaceAll(text, ",", "\t"))) {
-		utf16le = append(utf16le, byte(u), byte(u>>8))
-	}
-	var cp1252 []byte
-	for _, r := range strings.ReplaceAll(text, ",", ";") {
-		cp1252 = append(cp1252, byte(r)) // à and ü are their code points in Windows-1252
 	}
 	b := start(t)
 	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
 	for _, c := range []struct {
 		name, encoding string
 		data           []byte
-	}{{"unicode.txt", "UTF-16LE", utf16le}, {"windows.csv", "Windows-1252", cp1252}, {"plain.csv", "", []byte(text)}} {
+	}{{"unicode.txt", "UTF-16LE", utf16le}, {"windows.csv", "Windows-1252", cp1252}, {"plain.csv", "", text}} {
 		file := filepath.Join(t.TempDir(), c.name)
 		if err := os.WriteFile(file, c.data, 0o644); err != nil {
 			t.Fatal(err)
@@ -43,7 +35,7 @@ func TestTextFileEncodings(t *testing.T) {
 			t.Fatal(err)
 		}
 		b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
-		if groups := b.text(t, "#groups-table"); !strings.Contains(groups, "graine de lin à Zürich") {
+		if groups := b.text(t, "#groups-table"); !strings.Contains(groups, testfiles.AccentedFeed) {
 			t.Errorf("%s: the label with accents is not whole: %.300s", c.name, groups)
 		}
 		note, _ := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.getElementById("file-note").hidden ? "" : document.getElementById("file-note").textContent`))
