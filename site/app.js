@@ -7,7 +7,7 @@ import { createBridge } from "./js/bridge.js";
 import { onUpdate, state, update } from "./js/state.js";
 import { KEPT, RUNNING, recall, recallWorkspace, remember } from "./js/storage.js";
 import { fields, fillMenus, formOptions, setOptions } from "./js/settings.js";
-import { dataText, setText, wireInput } from "./js/input.js";
+import { dataInput, dataSize, dataText, heldFile, setText, wireInput } from "./js/input.js";
 import { renderPreview } from "./js/preview.js";
 import { NO_EDITS, UNDO_KEPT, editGroups, renderEditor, undoEdit, whenEdited } from "./js/editor.js";
 import { renderResults, setStale } from "./js/results.js";
@@ -79,10 +79,11 @@ addEventListener("pagehide", () => remember(RUNNING, null));
 const keptText = $("kept-text").textContent; // what the note says while keeping works
 
 function keep() {
-  const kept = remember(KEPT, JSON.stringify({ data: dataText(), options: formOptions(), edits: state.edits, undoable: state.undoable.slice(-UNDO_KEPT) }));
-  $("kept-text").textContent = kept ? keptText
-    : "This browser's storage is full or switched off, so what you type here is not kept: a reload would lose it. Save your text as a file if you need it later.";
-  $("kept-note").classList.toggle("warning", !kept);
+  // a large file is not kept (browsers keep a few megabytes): its settings are
+  const kept = remember(KEPT, JSON.stringify({ data: heldFile() ? "" : dataText(), options: formOptions(), edits: state.edits, undoable: state.undoable.slice(-UNDO_KEPT) }));
+  $("kept-text").textContent = !kept ? "This browser's storage is full or switched off, so what you type here is not kept: a reload would lose it. Save your text as a file if you need it later."
+    : heldFile() ? "The file opened is too large to keep in this browser, so a reload would lose it; your settings are kept." : keptText;
+  $("kept-note").classList.toggle("warning", !kept || heldFile());
 }
 
 function restoreKept() {
@@ -191,7 +192,7 @@ async function analyse() {
   $("link-box").hidden = true;
   $("cancel").hidden = false;
   remember(RUNNING, "1");
-  const reply = await bridge.analyse({ data: dataText(), options: formOptions(), edits: state.edits });
+  const reply = await bridge.analyse({ data: dataInput(), options: formOptions(), edits: state.edits });
   if (!reply) return; // a later analysis, or a cancel, took its place
   remember(RUNNING, null);
   $("cancel").hidden = true;
@@ -240,7 +241,7 @@ function reanalyseSoon(pause) {
   setStale(true);
   clearTimeout(typingTimer);
   if ($("pvalue").value !== "monte-carlo") {
-    typingTimer = setTimeout(analyse, dataText().length <= LIVE_LIMIT ? pause : Math.max(pause, 1500));
+    typingTimer = setTimeout(analyse, dataSize() <= LIVE_LIMIT ? pause : Math.max(pause, 1500));
   }
 }
 

@@ -106,7 +106,7 @@ onmessage = async (event) => {
         break;
       }
       default:
-        json = await m.workspace(new TextEncoder().encode(q.data), request(q),
+        json = await m.workspace(typeof q.data === "string" ? new TextEncoder().encode(q.data) : q.data, request(q),
           (preview) => postMessage({ id: q.id, kind: "preview", json: preview }),
           (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }), farm(q));
         if (!json.startsWith('{"error"')) {

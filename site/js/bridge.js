@@ -6,7 +6,7 @@
 // started when first needed: the worker asks for a part, the bridge hands
 // it to a helper and the count back to the worker.
 
-// LARGE_TEXT is the length, in characters, from which a text's analysis
+// LARGE_TEXT is the length, in characters (or bytes), from which a text's analysis
 // leaves the worker's memory large (about 1 million values).
 const LARGE_TEXT = 16e6;
 

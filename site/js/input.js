@@ -6,25 +6,56 @@ import { forgetSpreadsheet, isSpreadsheet, openSpreadsheet, wireSheets } from ".
 
 // A large text (pasted, opened or dropped) is held here instead of in the
 // text box: laying out a box of 100,000 lines costs the browser seconds. The
-// preview shows it as cells, and it can be put in the box on request.
-export const HOLD_LIMIT = 256 * 1024; // characters
-let heldText = null;
+// preview shows it as cells, and it can be put in the box on request. A
+// large file is held as its bytes, never made a string here: the module
+// reads them (and their encoding) itself.
+export const HOLD_LIMIT = 256 * 1024; // characters (or bytes of a file)
+let heldText = null; // a large paste
+let heldBytes = null; // a large file's bytes
 
+// dataText is the text to analyse as a string (a held file's bytes are
+// decoded, which costs as much as the file: for a link or the box only).
 export function dataText() {
-  return heldText ?? $("data").value;
+  return heldBytes ? new TextDecoder().decode(heldBytes) : heldText ?? $("data").value;
 }
 
+// dataInput is the text to analyse as the module takes it: a string, or a
+// held file's bytes.
+export function dataInput() {
+  return heldBytes ?? dataText();
+}
+
+// dataSize is the length of the text to analyse, in characters (in bytes
+// for a held file).
+export function dataSize() {
+  return heldBytes ? heldBytes.length : dataText().length;
+}
+
+// heldFile tells whether the text is a held file's bytes.
+export function heldFile() {
+  return heldBytes !== null;
+}
+
+// setText puts a text in the box, or holds it when it is large: a string,
+// or a file's bytes.
 export function setText(text) {
   const hold = text.length > HOLD_LIMIT;
-  heldText = hold ? text : null;
+  const bytes = typeof text !== "string";
+  if (bytes && !hold) text = new TextDecoder().decode(text);
+  heldText = hold && !bytes ? text : null;
+  heldBytes = hold && bytes ? text : null;
   $("data").value = hold ? "" : text;
   $("data").hidden = hold;
   $("held").hidden = !hold;
   if (hold) {
     let lines = 1;
-    for (let i = text.indexOf("\n"); i >= 0 && i < text.length - 1; i = text.indexOf("\n", i + 1)) lines++;
-    $("held-note").textContent = "The text (" + lines.toLocaleString() + " lines, " + (text.length / 1e6).toFixed(1)
-      + " million characters) is held in this tab rather than shown in the box, which would be slow. Its first lines are shown as cells below.";
+    if (bytes) {
+      for (let i = 0; i < text.length - 1; i++) if (text[i] === 10) lines++;
+    } else {
+      for (let i = text.indexOf("\n"); i >= 0 && i < text.length - 1; i = text.indexOf("\n", i + 1)) lines++;
+    }
+    $("held-note").textContent = "The " + (bytes ? "file" : "text") + " (" + lines.toLocaleString() + " lines, " + (text.length / 1e6).toFixed(1)
+      + (bytes ? " MB" : " million characters") + ") is held in this tab rather than shown in the box, which would be slow. Its first lines are shown as cells below.";
   }
 }
 
@@ -36,8 +67,8 @@ function fileNote(text) {
 }
 
 function showHeldAsText() {
-  const text = heldText;
-  heldText = null;
+  const text = dataText();
+  heldText = heldBytes = null;
   $("held").hidden = true;
   $("data").hidden = false;
   $("data").value = text;
@@ -58,7 +89,8 @@ export function selectLine(line) {
 
 // wireInput connects the box, the file chooser and drops; newText(text) is
 // called with a text that replaces the box's (a file, a sheet of a
-// spreadsheet, a large paste); ask sends the worker a request.
+// spreadsheet, a large paste; a large file's bytes); ask sends the worker a
+// request.
 export function wireInput(newText, ask) {
   wireSheets(ask, newText);
   $("held-clear").addEventListener("click", () => fileNote(""));
@@ -91,6 +123,11 @@ export function wireInput(newText, ask) {
       bytes = new Uint8Array(await file.arrayBuffer());
     } catch (err) {
       showProblem({ message: "The file " + file.name + " could not be read: " + err });
+      return;
+    }
+    if (bytes.length > HOLD_LIMIT) { // held as bytes: the reading says their encoding
+      fileNote("");
+      newText(bytes);
       return;
     }
     try {
