@@ -93,6 +93,7 @@ fuzz:
 	$(call fuzz-once,./core/rank,FuzzRank) || $(call fuzz-once,./core/rank,FuzzRank)
 	$(call fuzz-once,./core/link,FuzzDecode) || $(call fuzz-once,./core/link,FuzzDecode)
 	$(call fuzz-once,./core/findings,FuzzOpen) || $(call fuzz-once,./core/findings,FuzzOpen)
+	$(call fuzz-once,./core/findings,FuzzShared) || $(call fuzz-once,./core/findings,FuzzShared)
 	$(call fuzz-once,./core/montecarlo,FuzzParseJob) || $(call fuzz-once,./core/montecarlo,FuzzParseJob)
 	$(call fuzz-once,./core/textenc,FuzzToUTF8) || $(call fuzz-once,./core/textenc,FuzzToUTF8)
 	$(call fuzz-once,./core,FuzzDecodeOptions) || $(call fuzz-once,./core,FuzzDecodeOptions)

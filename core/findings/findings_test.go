@@ -228,3 +228,45 @@ func TestNoCellInWarnings(t *testing.T) {
 		t.Error("the shared results do not say that numbers could be read two ways")
 	}
 }
+
+// FuzzShared: whatever the data and the threshold, the results as shared
+// are JSON that Open takes back unchanged, every hidden group's row shows
+// no figure, and at least two groups are hidden or none (unless there are
+// fewer groups).
+func FuzzShared(f *testing.F) {
+	f.Add([]byte("site,minutes\nA,12\nA,15\nB,20\nB,22\nB,19\nC,14\nC,30\nC,25\n"), uint8(3))
+	f.Add([]byte("A\tB\tC\n1\t2\t3\n4\t\t6\n\t5\t\n7\n"), uint8(5))
+	f.Fuzz(func(t *testing.T, data []byte, min uint8) {
+		opt := core.Options{MinGroupSize: int(min % 12), PValue: "asymptotic", PostHoc: []string{"dunn", "mann-whitney"}[min/12%2]}
+		r, err := core.Analyze(data, opt)
+		if err != nil {
+			return
+		}
+		doc, err := Encode(r, opt)
+		if err != nil {
+			t.Fatal(err)
+		}
+		back, err := Open(doc)
+		if err != nil || !bytes.Equal(back, doc) {
+			t.Fatalf("Open(Encode) = %v:\n%s", err, doc)
+		}
+		plan := r.Plan()
+		hidden := 0
+		for g := range r.Groups {
+			if plan.Hidden(g) {
+				hidden++
+			}
+		}
+		if hidden == 1 && len(r.Groups) > 1 {
+			t.Fatalf("one group hidden alone: %+v", plan)
+		}
+		n, _ := jsonlite.ParseTree(doc, depth)
+		for i, row := range field(field(field(n, "tables"), "groups"), "values").Items {
+			for _, cell := range row.Items[1:] {
+				if plan.Hidden(i) && cell.Kind == jsonlite.Number {
+					t.Fatalf("hidden group %d shows a figure: %s", i, doc)
+				}
+			}
+		}
+	})
+}
