@@ -69,7 +69,6 @@ export function createBridge(source, moduleBytes, on) {
   // share hands a part of a Monte Carlo estimate to an idle helper, starting
   // the helpers when first needed; a part waits while every helper is busy.
   function share(part) {
-    on.part?.();
     if (helpers.length === 0) {
       for (let i = 0; i < HELPERS; i++) {
         const helper = { worker: null, busy: null };
@@ -85,17 +84,24 @@ export function createBridge(source, moduleBytes, on) {
     }
     idle.busy = part;
     idle.worker.postMessage(part);
+    on.part?.();
   }
 
   // helped passes a helper's count (or its failure) to the worker and gives
   // the helper the next part waiting.
+  // A helper that fails is ended and let go (its part, if any, fails the
+  // analysis); the others take the parts still waiting.
   function helped(helper, m) {
-    if (m.kind !== "mc-part-done" && !(m.kind === "failed" && helper.busy)) return;
+    if (m.kind !== "mc-part-done" && m.kind !== "failed") return;
     const part = helper.busy;
     helper.busy = null;
-    const json = m.kind === "failed" ? JSON.stringify({ error: { message: m.message } }) : m.json;
-    worker.postMessage({ kind: "mc-part-done", part: part.part, json });
-    if (queued.length) share(queued.shift());
+    if (m.kind === "failed") {
+      helper.worker.terminate();
+      helpers = helpers.filter((h) => h !== helper);
+    }
+    if (part) worker.postMessage({ kind: "mc-part-done", part: part.part, json: m.kind === "failed" ? JSON.stringify({ error: { message: m.message } }) : m.json });
+    if (queued.length && helpers.length) share(queued.shift());
+    else if (queued.length) for (const p of queued.splice(0)) worker.postMessage({ kind: "mc-part-done", part: p.part, json: JSON.stringify({ error: { message: "no helper worker is left" } }) });
   }
 
   // stopHelpers ends the helpers, whatever they are computing (for an
