@@ -4,6 +4,8 @@ import (
 	"cmp"
 	"context"
 	"errors"
+	"maps"
+	"slices"
 	"strconv"
 
 	"midrank/core/jsonlite"
@@ -14,9 +16,9 @@ import (
 // other Web Workers, each with its own copy of the module, where the one
 // running the analysis has a single thread. Share hands over the chunks
 // [from, to) of a job (as Job.JSON writes it) and returns a function that
-// waits for the count of their deals that reach the observed statistic.
-// Since chunk c always draws from stream random.New(seed, c), the estimate
-// is the same to the last bit however the chunks are shared.
+// waits for the count of their deals at least as extreme as the observed
+// one. Since chunk c always draws from stream random.New(seed, c), the
+// estimate is the same to the last bit however the chunks are shared.
 type Farm interface {
 	Helpers() int // how many others can take a part
 	Share(job []byte, from, to int) (wait func() (int, error))
@@ -24,7 +26,8 @@ type Farm interface {
 
 type farmKey struct{}
 
-// WithFarm gives PValue a farm to share its chunks with.
+// WithFarm gives the estimates made with ctx a farm to share their chunks
+// with.
 func WithFarm(ctx context.Context, f Farm) context.Context {
 	return context.WithValue(ctx, farmKey{}, f)
 }
@@ -33,119 +36,70 @@ func WithFarm(ctx context.Context, f Farm) context.Context {
 // it, handing the work over costs more than it saves.
 const MinShared = 8
 
-// Job is what a part of PValue's estimate needs: the deal and the observed
-// group sums, the seed and the resamples (which fix the chunks).
+// Job is an estimate as a farm's part needs it: the kind of deal, the
+// numbers that kind deals and compares (by name), the seed and the
+// resamples (which fix the chunks).
 type Job struct {
-	Sizes     []int
-	Scores    []int64
-	Observed  []int64
+	Kind      string
+	Lists     map[string][]int64
 	Resamples int
 	Seed      uint64
 }
 
-// JSON writes the job as {"sizes", "scores", "observed", "resamples", "seed"}.
-func (j Job) JSON() []byte {
-	var w jsonlite.Writer
-	w.Grow(24 * len(j.Scores))
-	w.BeginObject()
-	w.Key("sizes")
-	w.BeginArray()
-	for _, s := range j.Sizes {
-		w.Int(int64(s))
+// A Maker makes, from a job's lists, the Chunk of its kind of deal (one
+// for each worker that calls it), or says why the lists do not hold
+// together.
+type Maker func(lists map[string][]int64) (newChunk func() Chunk, err error)
+
+// makers are the kinds of job: the H test's deals (PValue), and those other
+// packages register.
+var makers = map[string]Maker{hKind: hChunks}
+
+// Register adds a kind of job (from an init function).
+func Register(kind string, m Maker) { makers[kind] = m }
+
+// EstimateJob estimates p as Estimate does for the job, sharing its chunks
+// in equal runs with the farm in ctx (the first run kept here) when it has
+// helpers and the job at least MinShared chunks.
+func EstimateJob(ctx context.Context, j Job, progress Progress) (Result, error) {
+	newChunk, err := j.maker()
+	if err != nil {
+		return Result{}, err
 	}
-	w.EndArray()
-	for _, list := range []struct {
-		name   string
-		values []int64
-	}{{"scores", j.Scores}, {"observed", j.Observed}} {
-		w.Key(list.name)
-		w.BeginArray()
-		for _, v := range list.values {
-			w.Int(v)
-		}
-		w.EndArray()
+	if f, ok := ctx.Value(farmKey{}).(Farm); ok && f.Helpers() > 0 && j.chunks() >= MinShared {
+		return shared(ctx, f, j, newChunk(), progress)
 	}
-	w.IntMember("resamples", j.Resamples)
-	w.Key("seed")
-	w.Uint(j.Seed)
-	w.EndObject()
-	return w.Bytes()
+	return Estimate(ctx, j.Resamples, j.Seed, progress, newChunk)
 }
 
-// ParseJob reads a job that JSON wrote.
-func ParseJob(b []byte) (Job, error) {
-	n, err := jsonlite.ParseTree(b, 2)
-	if err != nil {
-		return Job{}, err
-	}
-	var j Job
-	whole := func(name string) (int64, error) {
-		m, ok := n.Member(name)
-		if !ok {
-			return 0, errors.New("montecarlo: the job has no " + name)
-		}
-		return strconv.ParseInt(m.Text, 10, 64)
-	}
-	list := func(name string) ([]int64, error) {
-		m, _ := n.Member(name)
-		out := make([]int64, len(m.Items))
-		for i, item := range m.Items {
-			v, err := strconv.ParseInt(item.Text, 10, 64)
-			if err != nil {
-				return nil, errors.New("montecarlo: the job's " + name + " are not whole numbers")
-			}
-			out[i] = v
-		}
-		return out, nil
-	}
-	sizes, err := list("sizes")
-	if err == nil {
-		j.Scores, err = list("scores")
-	}
-	if err == nil {
-		j.Observed, err = list("observed")
-	}
-	var resamples, seed int64
-	if err == nil {
-		resamples, err = whole("resamples")
-	}
-	if err == nil {
-		seed, err = whole("seed")
-	}
-	if err != nil {
-		return Job{}, err
-	}
-	total := 0
-	for _, s := range sizes {
-		if s < 1 || s > int64(len(j.Scores)) {
-			return Job{}, errors.New("montecarlo: a group size of the job is out of range")
-		}
-		j.Sizes = append(j.Sizes, int(s))
-		total += int(s)
-	}
-	if len(j.Sizes) < 2 || total != len(j.Scores) || len(j.Observed) != len(j.Sizes) || resamples < 1 || seed < 0 {
-		return Job{}, errors.New("montecarlo: the job's sizes, scores and sums do not match")
-	}
-	j.Resamples, j.Seed = int(resamples), uint64(seed)
-	return j, nil
-}
-
-// Part counts the deals of chunks [from, to) of a job that reach its
-// observed sums: a farm's share of PValue's work.
+// Part counts the extreme deals of chunks [from, to) of a job: a farm's
+// share of an estimate.
 func Part(ctx context.Context, j Job, from, to int) (int, error) {
-	target, err := j.target()
+	newChunk, err := j.maker()
 	if err != nil {
 		return 0, err
 	}
 	if from < 0 || to > j.chunks() || from > to {
 		return 0, errors.New("montecarlo: chunks " + strconv.Itoa(from) + " to " + strconv.Itoa(to) + " are not among the job's " + strconv.Itoa(j.chunks()))
 	}
-	return run(ctx, j, j.newChunk(target), from, to, nil)
+	return run(ctx, j, newChunk(), from, to, nil)
 }
 
-// shared runs PValue's chunks on the farm's helpers and here: equal runs
-// of chunks, the first kept here, whose progress stands for all.
-func shared(ctx context.Context, f Farm, j Job, target *reach, progress Progress) (Result, error) {
+// maker checks the job's kind and lists and gives its chunks' maker.
+func (j Job) maker() (func() Chunk, error) {
+	m, ok := makers[j.Kind]
+	if !ok {
+		return nil, errors.New("montecarlo: no job of kind " + strconv.Quote(j.Kind))
+	}
+	if j.Resamples < 1 {
+		return nil, errors.New("montecarlo: a job needs resamples")
+	}
+	return m(j.Lists)
+}
+
+// shared runs a job's chunks on the farm's helpers and here: equal runs of
+// chunks, the first kept here, whose progress stands for all.
+func shared(ctx context.Context, f Farm, j Job, chunk Chunk, progress Progress) (Result, error) {
 	chunks, parts := j.chunks(), f.Helpers()+1
 	bound := func(i int) int { return chunks * i / parts }
 	encoded := j.JSON()
@@ -157,7 +111,7 @@ func shared(ctx context.Context, f Farm, j Job, target *reach, progress Progress
 	if progress != nil {
 		scaled = func(done, _ int) { progress(min(done*parts, j.Resamples), j.Resamples) }
 	}
-	exceed, err := run(ctx, j, j.newChunk(target), 0, bound(1), scaled)
+	exceed, err := run(ctx, j, chunk, 0, bound(1), scaled)
 	for _, wait := range waits {
 		n, werr := wait()
 		exceed += n
@@ -190,20 +144,100 @@ func run(ctx context.Context, j Job, chunk Chunk, from, to int, progress Progres
 // chunks is the number of chunks of the job's resamples.
 func (j Job) chunks() int { return (j.Resamples + ChunkSize - 1) / ChunkSize }
 
-// total is the sum of the scores.
-func (j Job) total() int64 {
-	var total int64
-	for _, s := range j.Scores {
-		total += s
+// JSON writes the job as {"kind", "resamples", "seed", "lists": {name: [numbers], …}}.
+func (j Job) JSON() []byte {
+	var w jsonlite.Writer
+	w.BeginObject()
+	w.StringMember("kind", j.Kind)
+	w.IntMember("resamples", j.Resamples)
+	w.Key("seed")
+	w.Uint(j.Seed)
+	w.Key("lists")
+	w.BeginObject()
+	for _, name := range slices.Sorted(maps.Keys(j.Lists)) {
+		w.Key(name)
+		w.BeginArray()
+		for _, v := range j.Lists[name] {
+			w.Int(v)
+		}
+		w.EndArray()
 	}
-	return total
+	w.EndObject()
+	w.EndObject()
+	return w.Bytes()
 }
 
-// target is the observed statistic, to compare deals with exactly.
-func (j Job) target() (*reach, error) { return newReach(j.Sizes, j.Observed, j.total()) }
+// ParseJob reads a job that JSON wrote; its lists are checked by its kind
+// when it runs.
+func ParseJob(b []byte) (Job, error) {
+	n, err := jsonlite.ParseTree(b, 3)
+	if err != nil {
+		return Job{}, err
+	}
+	bad := errors.New("montecarlo: not a job")
+	kind, _ := n.Member("kind")
+	resamples, _ := n.Member("resamples")
+	seed, _ := n.Member("seed")
+	lists, _ := n.Member("lists")
+	j := Job{Kind: kind.Text, Lists: map[string][]int64{}}
+	r, err1 := strconv.ParseInt(resamples.Text, 10, 32)
+	s, err2 := strconv.ParseUint(seed.Text, 10, 64)
+	if kind.Kind != jsonlite.String || lists.Kind != jsonlite.Object || err1 != nil || err2 != nil || r < 1 {
+		return Job{}, bad
+	}
+	j.Resamples, j.Seed = int(r), s
+	for i, name := range lists.Names {
+		items := lists.Members[i].Items
+		values := make([]int64, len(items))
+		for k, item := range items {
+			if values[k], err = strconv.ParseInt(item.Text, 10, 64); err != nil || item.Kind != jsonlite.Number {
+				return Job{}, bad
+			}
+		}
+		j.Lists[name] = values
+	}
+	return j, nil
+}
 
-// newChunk is a Chunk of the job's deals with its own copies of the scores.
-func (j Job) newChunk(target *reach) Chunk {
-	d := newDealer(j.Sizes, j.Scores, j.total())
-	return func(g *random.Xoshiro, count int) int { return d.chunk(g, count, target) }
+// hKind is the kind of PValue's jobs: lists "sizes" (of the groups),
+// "scores" (dealt in turn) and "observed" (the observed group sums).
+const hKind = "h"
+
+// hJob is the job of PValue's estimate.
+func hJob(sizes []int, scores, observedSums []int64, resamples int, seed uint64) Job {
+	s := make([]int64, len(sizes))
+	for i, n := range sizes {
+		s[i] = int64(n)
+	}
+	return Job{Kind: hKind, Resamples: resamples, Seed: seed,
+		Lists: map[string][]int64{"sizes": s, "scores": scores, "observed": observedSums}}
+}
+
+// hChunks is the Maker of PValue's jobs.
+func hChunks(lists map[string][]int64) (func() Chunk, error) {
+	scores, observed := lists["scores"], lists["observed"]
+	var sizes []int
+	total := 0
+	for _, s := range lists["sizes"] {
+		if s < 1 || s > int64(len(scores)) {
+			return nil, errors.New("montecarlo: a group size of the job is out of range")
+		}
+		sizes = append(sizes, int(s))
+		total += int(s)
+	}
+	if len(sizes) < 2 || total != len(scores) || len(observed) != len(sizes) {
+		return nil, errors.New("montecarlo: the job's sizes, scores and sums do not match")
+	}
+	var sum int64
+	for _, s := range scores {
+		sum += s
+	}
+	target, err := newReach(sizes, observed, sum)
+	if err != nil {
+		return nil, err
+	}
+	return func() Chunk {
+		d := newDealer(sizes, scores, sum)
+		return func(g *random.Xoshiro, count int) int { return d.chunk(g, count, target) }
+	}, nil
 }

@@ -48,19 +48,9 @@ type Progress func(done, total int)
 // X = Σ sᵢ²/nᵢ at least that of the observed group sums, sᵢ the sum of the
 // scores dealt to group i; X orders deals as H does, and the comparison is
 // exact (see reach). It stops with ctx.
-//
-// With a Farm in ctx (WithFarm) that has helpers, and at least MinShared
-// chunks, the chunks are shared out in equal runs, the first kept here.
+// A Farm in ctx shares the chunks (see EstimateJob).
 func PValue(ctx context.Context, sizes []int, scores []int64, observedSums []int64, resamples int, seed uint64, progress Progress) (Result, error) {
-	j := Job{Sizes: sizes, Scores: scores, Observed: observedSums, Resamples: resamples, Seed: seed}
-	target, err := j.target()
-	if err != nil {
-		return Result{}, err
-	}
-	if f, ok := ctx.Value(farmKey{}).(Farm); ok && f.Helpers() > 0 && j.chunks() >= MinShared {
-		return shared(ctx, f, j, target, progress)
-	}
-	return Estimate(ctx, resamples, seed, progress, func() Chunk { return j.newChunk(target) })
+	return EstimateJob(ctx, hJob(sizes, scores, observedSums, resamples, seed), progress)
 }
 
 // Chunk draws count random deals from g and says how many are at least as

@@ -13,6 +13,7 @@ import (
 	"testing"
 
 	"midrank/core/internal/arrange"
+	"midrank/core/montecarlo"
 	"midrank/core/rank"
 	"midrank/core/testfiles"
 )
@@ -273,7 +274,33 @@ func TestMonteCarloHoldsExact(t *testing.T) {
 		if again != mc {
 			t.Errorf("%s: %+v then %+v with the same seed", alt, mc, again)
 		}
+		// shared with a farm of three helpers, through the job's JSON: the same to the last bit
+		alone, _ := MonteCarlo(context.Background(), r, test.Doubled, alt, 50000, 7, nil)
+		shared, err := MonteCarlo(montecarlo.WithFarm(context.Background(), localFarm{3}), r, test.Doubled, alt, 50000, 7, nil)
+		if err != nil || shared != alone {
+			t.Errorf("%s: with a farm %+v (%v), alone %+v", alt, shared, err, alone)
+		}
 	}
+}
+
+// localFarm runs each part of an estimate in a goroutine of this process,
+// through the job's JSON as the page's workers receive it.
+type localFarm struct{ helpers int }
+
+func (f localFarm) Helpers() int { return f.helpers }
+
+func (f localFarm) Share(job []byte, from, to int) func() (int, error) {
+	done := make(chan struct{})
+	var n int
+	var err error
+	go func() {
+		defer close(done)
+		var j montecarlo.Job
+		if j, err = montecarlo.ParseJob(job); err == nil {
+			n, err = montecarlo.Part(context.Background(), j, from, to)
+		}
+	}()
+	return func() (int, error) { <-done; return n, err }
 }
 
 // TestAgainstScipy: the exact one-sided p-values of small subsets of R

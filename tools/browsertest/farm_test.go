@@ -13,10 +13,11 @@ import (
 	"midrank/core"
 )
 
-// TestMonteCarloOnEveryCore: with four cores, a Monte Carlo estimate is
-// shared with three helper workers, and the page's decision (p, its
-// interval, the seed) is the command line's, which draws the same seeded
-// chunks alone (the module's TestFarm checks the count to the last bit).
+// TestMonteCarloOnEveryCore: with four cores, the Monte Carlo estimates of
+// H and of the trend are each shared with three helper workers, and the
+// page's decision (both p-values, their intervals, the seed) is the command
+// line's, which draws the same seeded chunks alone (the module's TestFarm
+// and core/trend's tests check the counts to the last bit).
 func TestMonteCarloOnEveryCore(t *testing.T) {
 	b := start(t)
 	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
@@ -33,11 +34,11 @@ func TestMonteCarloOnEveryCore(t *testing.T) {
 	for i := range 100 {
 		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
 	}
-	if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "monte-carlo"), chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5")); err != nil {
+	if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "monte-carlo"), chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5"), chromedp.SetValue("#trend", "increasing")); err != nil {
 		t.Fatal(err)
 	}
 	b.analyse(t, text.String())
-	want, err := core.Analyze([]byte(text.String()), core.Options{PValue: "monte-carlo", Resamples: 200_000, Seed: new(uint64(5))})
+	want, err := core.Analyze([]byte(text.String()), core.Options{PValue: "monte-carlo", Resamples: 200_000, Seed: new(uint64(5)), Trend: "increasing"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -45,7 +46,10 @@ func TestMonteCarloOnEveryCore(t *testing.T) {
 		t.Errorf("the page's decision:\n%s\nthe command line's:\n%s", got, want.Decision)
 	}
 	parts, err := chromedp.Run(b.ctx, chromedp.Evaluate[string](`document.documentElement.dataset.monteCarloParts ?? "0"`))
-	if err != nil || parts != "3" {
-		t.Errorf("%s parts of the estimate went to helpers, want 3 (%v)", parts, err)
+	if err != nil || parts != "6" {
+		t.Errorf("%s parts of the estimates went to helpers, want 3 of each (%v)", parts, err)
+	}
+	if !strings.Contains(want.Decision, "Jonckheere") || want.Trend.PMethod != "monte-carlo" {
+		t.Errorf("the trend was not estimated by Monte Carlo: %+v", want.Trend)
 	}
 }
