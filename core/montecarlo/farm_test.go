@@ -6,65 +6,6 @@ import (
 	"testing"
 )
 
-// localFarm runs each part in a goroutine of this process, through the
-// job's JSON as the page's workers receive it.
-type localFarm struct{ helpers int }
-
-func (f localFarm) Helpers() int { return f.helpers }
-
-func (f localFarm) Share(job []byte, from, to int) func() (int, error) {
-	done := make(chan struct{})
-	var n int
-	var err error
-	go func() {
-		defer close(done)
-		var j Job
-		if j, err = ParseJob(job); err == nil {
-			n, err = Part(context.Background(), j, from, to)
-		}
-	}()
-	return func() (int, error) { <-done; return n, err }
-}
-
-// TestFarmGivesTheSameEstimate: shared among 1 to 4 helpers (with the
-// chunks split unevenly), the estimate is the one computed alone, to the
-// last bit, and progress reaches the total.
-func TestFarmGivesTheSameEstimate(t *testing.T) {
-	sizes := []int{7, 8, 9}
-	scores := untied(24)
-	observed := []int64{60, 90, 126}
-	alone, err := PValue(context.Background(), sizes, scores, observed, 50_000, 11, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	for helpers := 1; helpers <= 4; helpers++ {
-		last := 0
-		r, err := PValue(WithFarm(context.Background(), localFarm{helpers}), sizes, scores, observed, 50_000, 11, func(done, total int) { last = done })
-		if err != nil {
-			t.Fatal(err)
-		}
-		if r != alone {
-			t.Errorf("%d helpers: %+v, alone %+v", helpers, r, alone)
-		}
-		if last != 50_000 {
-			t.Errorf("%d helpers: progress ended at %d", helpers, last)
-		}
-	}
-	// too few chunks to share: the farm is not asked
-	few, _ := PValue(WithFarm(context.Background(), panicFarm{}), sizes, scores, observed, ChunkSize*(MinShared-1), 11, nil)
-	if few.Resamples != ChunkSize*(MinShared-1) {
-		t.Errorf("%+v", few)
-	}
-}
-
-// panicFarm fails the test if it is asked for anything but its helpers.
-type panicFarm struct{}
-
-func (panicFarm) Helpers() int { return 3 }
-func (panicFarm) Share([]byte, int, int) func() (int, error) {
-	panic("a run of too few chunks was shared")
-}
-
 // TestPartRefuses: a job that does not hold together, or chunks it does
 // not have, are refused with a message.
 func TestPartRefuses(t *testing.T) {

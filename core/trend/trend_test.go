@@ -13,6 +13,7 @@ import (
 	"testing"
 
 	"midrank/core/internal/arrange"
+	"midrank/core/internal/localfarm"
 	"midrank/core/montecarlo"
 	"midrank/core/rank"
 	"midrank/core/testfiles"
@@ -276,107 +277,9 @@ func TestMonteCarloHoldsExact(t *testing.T) {
 		}
 		// shared with a farm of three helpers, through the job's JSON: the same to the last bit
 		alone, _ := MonteCarlo(context.Background(), r, test.Doubled, alt, 50000, 7, nil)
-		shared, err := MonteCarlo(montecarlo.WithFarm(context.Background(), localFarm{3}), r, test.Doubled, alt, 50000, 7, nil)
+		shared, err := MonteCarlo(montecarlo.WithFarm(context.Background(), localfarm.Farm{N: 3}), r, test.Doubled, alt, 50000, 7, nil)
 		if err != nil || shared != alone {
 			t.Errorf("%s: with a farm %+v (%v), alone %+v", alt, shared, err, alone)
-		}
-	}
-}
-
-// localFarm runs each part of an estimate in a goroutine of this process,
-// through the job's JSON as the page's workers receive it.
-type localFarm struct{ helpers int }
-
-func (f localFarm) Helpers() int { return f.helpers }
-
-func (f localFarm) Share(job []byte, from, to int) func() (int, error) {
-	done := make(chan struct{})
-	var n int
-	var err error
-	go func() {
-		defer close(done)
-		var j montecarlo.Job
-		if j, err = montecarlo.ParseJob(job); err == nil {
-			n, err = montecarlo.Part(context.Background(), j, from, to)
-		}
-	}()
-	return func() (int, error) { <-done; return n, err }
-}
-
-// TestAgainstScipy: the exact one-sided p-values of small subsets of R
-// datasets (the first 3 or 4 values of each group, ties among them) equal
-// scipy 1.10.1's permutation_test in exact mode with J counted pair by pair
-// (testdata/trend/scipy_exact.tsv, tools/reference/trend_exact.py).
-func TestAgainstScipy(t *testing.T) {
-	rows, err := testfiles.Rows(os.DirFS("../../testdata/trend"), "scipy_exact.tsv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	for _, row := range rows[1:] { // after the header
-		perGroup, _ := strconv.Atoi(row[2])
-		j, _ := strconv.ParseFloat(row[4], 64)
-		want, _ := strconv.ParseFloat(row[5], 64)
-		var values []float64
-		var groups []int32
-		for i, cell := range strings.Fields(row[6]) {
-			v, err := strconv.ParseFloat(cell, 64)
-			if err != nil {
-				t.Fatal(err)
-			}
-			values, groups = append(values, v), append(groups, int32(i/perGroup))
-		}
-		rk := ranked(values, groups, len(strings.Split(row[1], "|")))
-		test, err := Compute(rk)
-		if err != nil {
-			t.Fatal(err)
-		}
-		d, err := Exact(context.Background(), rk)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if got := d.P(test.Doubled, Alternative(row[3])); test.J != j || math.Abs(got-want) > 1e-12 {
-			t.Errorf("%s (%s per group) %s: J %v p %v, scipy J %v p %v", row[0], row[2], row[3], test.J, got, j, want)
-		}
-	}
-}
-
-// TestPublishedExample: the worked example of the Jonckheere–Terpstra test
-// in Hollander & Wolfe, Nonparametric Statistical Methods (2nd ed. 1999,
-// section 6.2: pieces produced by workers given no, rough or accurate
-// information on their performance) has J = 79 (from memory; the data are
-// testdata/trend/hollander_wolfe.csv, whose z R's cor.test and whose exact
-// p scipy's permutation_test confirm in the tests above). E(J) = 54 is
-// (N² − Σ nᵢ²)/4 with N = 18 and three groups of 6.
-func TestPublishedExample(t *testing.T) {
-	values, groups := readGroups(t, "../../testdata/trend/hollander_wolfe.csv", []string{"none", "rough", "accurate"})
-	test, err := Compute(ranked(values, groups, 3))
-	if err != nil {
-		t.Fatal(err)
-	}
-	if test.J != 79 || test.Expected != 54 {
-		t.Errorf("J = %v, E(J) = %v; Hollander & Wolfe give J = 79, and E(J) = 54", test.J, test.Expected)
-	}
-}
-
-// TestLargeSamplesRefused: a million values, untied or on a scale, are
-// refused by the exact method at once (its counts would pass 2⁶³ and its
-// arrays the memory), while J and z are still computed.
-func TestLargeSamplesRefused(t *testing.T) {
-	for _, levels := range []int{0, 7} {
-		n := 1_000_000
-		values, groups := make([]float64, n), make([]int32, n)
-		for i := range values {
-			values[i], groups[i] = float64(i), int32(i%5)
-			if levels > 0 {
-				values[i] = float64(i % levels)
-			}
-		}
-		r := ranked(values, groups, 5)
-		if _, err := Exact(context.Background(), r); !errors.Is(err, ErrTooLarge) {
-			t.Errorf("%d levels: %v, want ErrTooLarge", levels, err)
-		}
-		if test, err := Compute(r); err != nil || math.IsNaN(test.Z) || math.IsInf(test.Z, 0) {
-			t.Errorf("%d levels: z %v (%v)", levels, test.Z, err)
 		}
 	}
 }
