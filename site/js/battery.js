@@ -2,6 +2,7 @@
 // sortable), a picture of where each group lies on each measure, and the
 // way into each measure's whole analysis and back.
 import { $ } from "./dom.js";
+import { protecting } from "./outgoing.js";
 import { pageTable } from "./tableview.js";
 import { update } from "./state.js";
 import { drawAt, label, picture, svgEl, svgText, textWidth } from "./svg.js";
@@ -115,6 +116,9 @@ export function renderBattery(state, changed) {
   $(shown ? "battery-share-slot" : "results-share-slot").append($("share"));
   if (!shown) return;
   $("battery-summary").textContent = b.summary;
+  $("battery-protect-note").hidden = !protecting();
+  $("battery-protect-note").textContent = "Not shared: this page shows you every figure. What you download or link shows each measure's results as shared, "
+    + "with its small groups protected (each measure's report says which), and without this picture of every group's mean rank.";
   const overview = state.batteryTables.overview;
   pageTable($("battery-table"), overview, {
     order: sortOrder(overview, state.batterySort),

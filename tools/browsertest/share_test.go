@@ -142,6 +142,9 @@ func TestSharedOutputs(t *testing.T) {
 		t.Fatal(err)
 	}
 	b.waitFor(t, `document.getElementById("status").textContent === "Done: 2 measures."`)
+	if got := b.text(t, "#battery-protect-note"); !strings.HasPrefix(got, "Not shared") {
+		t.Errorf("the overview does not say what is not shared: %q", got)
+	}
 	for _, button := range []string{"save-battery-html", "save-battery-markdown", "save-overview"} {
 		text := b.saved(t, button)
 		clean(button, text)
