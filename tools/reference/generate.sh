@@ -22,4 +22,5 @@ Rscript tools/reference/battery.R testdata/battery
 Rscript tools/reference/trend.R testdata/trend
 /usr/bin/python3 tools/reference/trend_exact.py testdata/trend
 Rscript tools/reference/reference_group.R testdata/reference_group
+Rscript tools/reference/protect.R testdata/protect
 echo "wrote $out"
