@@ -1,9 +1,6 @@
 package core
 
 import (
-	"fmt"
-	"strings"
-
 	"midrank/core/jsonlite"
 	"midrank/core/protect"
 	"midrank/core/report"
@@ -55,41 +52,10 @@ func (r *Result) SharedWarnings() []string { return warnings(r, r.plan, true) }
 // ProtectionNote says in a sentence which protection the shared outputs
 // apply, "" when none was asked for.
 func (r *Result) ProtectionNote() string {
-	p := r.Protection
-	switch {
-	case p == nil:
-		return ""
-	case len(p.Small) == 0:
-		return fmt.Sprintf("Small groups protected (fewer than %d values): no group is that small, so none is hidden.", p.MinGroupSize)
+	if p := r.Protection; p != nil {
+		return report.ProtectionNote(p.MinGroupSize, p.Small, p.Others, len(p.Small)+len(p.Others) == len(r.Groups))
 	}
-	note := fmt.Sprintf("Small groups protected: %s %s fewer than %d values", quoteList(p.Small), pronoun(len(p.Small), "has", "have"), p.MinGroupSize)
-	if len(p.Others) > 0 {
-		note += fmt.Sprintf(", and %s %s hidden with %s so that %s cannot be worked out from the total",
-			quoteList(p.Others), pronoun(len(p.Others), "is", "are"), pronoun(len(p.Small), "it", "them"), pronoun(len(p.Small), "its figures", "their figures"))
-	}
-	if len(p.Small)+len(p.Others) == len(r.Groups) {
-		note += " (every group: only the total number of values is shown)"
-	}
-	return note + ". Their sizes, medians, quartiles and pairs are not shown, and no group's rank sum or mean rank is (with the H statistic they would give the hidden groups' away); no group's lowest or highest value is shown."
-}
-
-// quoteList joins labels as “A”, “B” and “C”.
-func quoteList(labels []string) string {
-	quoted := make([]string, len(labels))
-	for i, l := range labels {
-		quoted[i] = "\u201c" + l + "\u201d"
-	}
-	if len(quoted) == 1 {
-		return quoted[0]
-	}
-	return strings.Join(quoted[:len(quoted)-1], ", ") + " and " + quoted[len(quoted)-1]
-}
-
-func pronoun(n int, one, many string) string {
-	if n == 1 {
-		return one
-	}
-	return many
+	return ""
 }
 
 // writeProtection writes the protection as its JSON tags say, or null.

@@ -12,7 +12,8 @@
 // {id, json, text} with the sheet's text as UTF-8 bytes (handed over, not
 // copied), and for an analysis that answered
 // {id, json, tables, shared} with the module's tables of results of that very
-// analysis and its results as shared (package findings). For "analyze" the preview of the text comes
+// analysis and, with small groups protected, its results as shared (package
+// findings). For "analyze" the preview of the text comes
 // first, {id, kind: "preview", json}, and {id, kind: "progress", stage, done,
 // total} during long computations. When the module itself fails, the reply
 // is {id, kind: "failed", message}. Served, it loads wasm_exec.js; in the
@@ -111,7 +112,9 @@ onmessage = async (event) => {
           (stage, done, total) => postMessage({ id: q.id, kind: "progress", stage, done, total }), farm(q));
         if (!json.startsWith('{"error"')) {
           tables = m.tables();
-          shared = m.findings();
+          // the results as shared serve the downloads only while small groups are protected
+          // (a results-only link is made by the module on request)
+          if (Number(q.options.min_group_size) > 0) shared = m.findings();
         }
     }
   } catch (err) {

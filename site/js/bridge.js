@@ -155,7 +155,8 @@ export function createBridge(source, moduleBytes, on) {
   // ask sends a request; the reply is {id, body, tables, shared, text}: body
   // is the module's JSON, {cancelled: true}, or {failed, error} when the
   // module stopped or answered something that is not JSON; tables, with an
-  // analysis, are the tables of results, and shared its results as shared;
+  // analysis, are the tables of results, and shared its results as shared
+  // (null unless small groups are protected);
   // text, with a sheet, its UTF-8 bytes.
   function ask(message) {
     const id = nextId++;

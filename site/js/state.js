@@ -7,7 +7,7 @@ export const state = {
   menus: {}, // the methods the module offers, by setting
   result: null, // the last analysis (the module's JSON), null when none is shown
   tables: null, // its tables of results as the core shows them
-  shared: null, // its results as shared (package findings), null for several measures
+  shared: null, // its results as shared (package findings) while small groups are protected, else null
   sharedTables: null, // their tables
   readOnly: false, // the results on screen came in a results-only link: there is no data behind them
   readOnlyLink: "", // that link's fragment, to pass the results on
@@ -17,7 +17,7 @@ export const state = {
   pairsSorted: false, // the pairs sorted by adjusted p
   battery: null, // the last analysis when it was of several measures (the module's JSON), else null
   batteryTables: null, // its tables: {overview, measures: [tables of each measure, or null]}
-  batteryShared: null, // its results as shared: {overview, measures: [results as shared, or null]}
+  batteryShared: null, // its results as shared while small groups are protected: {overview, measures: [results as shared, or null]}
   batterySort: null, // the overview's order: null (the columns'), "p" or "effect"
   drill: null, // the index of the battery's measure shown in full in the results, null for the overview
 };
