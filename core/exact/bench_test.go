@@ -32,13 +32,17 @@ func distinct(n, v int) []Block {
 // tiedPairs returns the scores of ranks 1 … n (as Scores makes them from
 // doubled midranks) with a tied pair at each rank in at and the one after it,
 // as when a few values are recorded to whole minutes.
-func tiedPairs(n int, at ...int) []Block {
+func tiedPairs(n int, at ...int) []Block { return tiedRuns(n, 2, at...) }
+
+// tiedRuns returns the scores of ranks 1 … n with a tie of size equal values
+// from each rank in at.
+func tiedRuns(n, size int, at ...int) []Block {
 	var doubled []int64
 	var counts []int
 	for r := 1; r <= n; r++ {
 		if slices.Contains(at, r) {
-			doubled, counts = append(doubled, int64(2*r+1)), append(counts, 2)
-			r++
+			doubled, counts = append(doubled, int64(2*r+size-1)), append(counts, size)
+			r += size - 1
 			continue
 		}
 		doubled, counts = append(doubled, int64(2*r)), append(counts, 1)
@@ -73,7 +77,15 @@ func BenchmarkPermutation(b *testing.B) {
 		{[]int{15, 15, 15}, tiedPairs(45, 20), "-1-pair"},
 		{[]int{15, 15, 15}, tiedPairs(45, 9, 30), "-2-pairs"},
 		{[]int{15, 15, 15}, tiedPairs(45, 3, 9, 20, 30, 40), "-5-pairs"},
+		{[]int{8, 8, 8, 8}, tiedPairs(32, 3, 9, 15, 21, 27), "-5-pairs"},
 		{[]int{5, 5, 5, 5, 5}, tiedPairs(25, 10), "-1-pair"},
+		{[]int{5, 5, 5, 5, 5}, tiedPairs(25, 3, 21), "-2-pairs"},
+		{[]int{5, 5, 5, 5, 5}, tiedPairs(25, 3, 7, 11, 15, 19), "-5-pairs"},
+		// a few triples
+		{[]int{6, 6, 6, 6}, tiedRuns(24, 3, 8, 16), "-2-triples"},
+		{[]int{8, 8, 8, 8}, tiedRuns(32, 3, 8, 20), "-2-triples"},
+		{[]int{5, 5, 5, 5, 5}, tiedRuns(25, 3, 8, 16), "-2-triples"},
+		{[]int{15, 15, 15}, tiedRuns(45, 3, 10, 30), "-2-triples"},
 	}
 	for _, c := range cases {
 		b.Run(fmt.Sprint(c.sizes, c.name), func(b *testing.B) {

@@ -1,6 +1,7 @@
 package exact
 
 import (
+	"cmp"
 	"context"
 	"encoding/binary"
 	"fmt"
@@ -36,7 +37,8 @@ type plan struct {
 	blocks  []Block // dealt in the layers, y
 	fig     figures
 	late    []Block // dealt last, x
-	base, g int64   // x = base + g·y for the scores of the layers
+	base, g int64   // x = base + g·y for the scores of the layers (g < 0 when they are dealt in descending order)
+	work    int     // of the last step, in cells' worth (in fig.boxCells)
 	// ways are the deals of the late blocks into each bucket of the last
 	// layer, by its counts (see countsKey), listed when the plan is costed
 	ways map[string][]addition
@@ -51,13 +53,14 @@ func countsKey(counts []int) string {
 	return string(key)
 }
 
-// planRule picks between the whole computation and the deferred one.
+// planRule picks between the whole computation and the deferred ones.
 type planRule int
 
 const (
-	cheaper      planRule = iota // the one with less planned work
-	wholeOnly                    // never defer (tests)
-	deferredOnly                 // defer whenever there are scores of both parities (tests)
+	cheaper            planRule = iota // the one with less planned work
+	wholeOnly                          // never defer (tests)
+	deferredOnly                       // defer whenever there are scores of both parities, the others dealt ascending (tests)
+	deferredDescending                 // the same, the others dealt descending (tests)
 )
 
 // maxDeferred bounds the deferred scores: their deals into a bucket's room
@@ -73,53 +76,116 @@ const finishCost = 2
 
 // choose plans the computation by rule, refusing with a *TooLargeError when
 // no plan keeps within lim.
+//
+// With deferred scores the layers may deal the others in ascending or in
+// descending order (y or max y − y, a change of scale that T's formula
+// undoes through base and g): the states of a layer depend only on the
+// scores dealt so far, and a tie block dealt last leaves a hole in them,
+// whose cost (a wider spread of sums) starts at the layer where the hole is
+// first passed. So the order that passes it later costs less: measured on
+// four groups of 8 with one tied pair at ranks 10–11, 53 million cells
+// ascending and 44 million descending, against 39 million untied.
 func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, error) {
 	whole, errWhole := newPlan(sizes, blocks, nil, 0, 1, lim, 0)
-	kept, deferred, base, g, ok := splitParity(blocks)
-	if !ok || rule == wholeOnly {
-		return whole, errWhole
+	var plans []*plan
+	if errWhole == nil && rule != deferredOnly && rule != deferredDescending {
+		plans = append(plans, whole)
 	}
-	// The plans are compared by their boxes' cells (see figures), the
-	// deferred one's with its last step; it is worked out only as far as it
-	// could still cost less than the whole one, or than the budget.
-	limit := tooMany
-	switch {
-	case rule == deferredOnly:
-	case errWhole == nil:
-		limit = whole.fig.boxCells - 1
-	case lim.MaxWork > 0:
-		limit = lim.MaxWork
-	default: // no bound on the work but memory's: as much as the layers could do in it
-		limit = product(len(blocks), lim.MaxCells)
+	if kept, deferred, base, g, ok := splitParity(blocks); ok && rule != wholeOnly {
+		// The plans are compared by their boxes' cells (see figures), a
+		// deferred one's with its last step, before any is laid out; a
+		// deferred plan is worked out only as far as it could still cost
+		// less than the cheapest so far, or than the budget.
+		limit := tooMany
+		switch {
+		case rule != cheaper:
+		case errWhole == nil:
+			limit = whole.fig.boxCells - 1
+		case lim.MaxWork > 0:
+			limit = lim.MaxWork
+		default: // no bound on the work but memory's: as much as the layers could do in it
+			limit = product(len(blocks), lim.MaxCells)
+		}
+		top := kept[len(kept)-1].Score
+		for _, descending := range []bool{false, true} {
+			if (rule == deferredOnly && descending) || (rule == deferredDescending && !descending) {
+				continue
+			}
+			dealt, b, step := kept, base, g
+			if descending {
+				dealt, b, step = mirror(kept, top), base+g*top, -g
+			}
+			if part, err := newPlan(sizes, dealt, deferred, b, step, lim, limit); part != nil && err == nil {
+				plans = append(plans, part)
+				limit = min(limit, part.fig.boxCells-1)
+			} else if part != nil && rule != cheaper {
+				return part, err
+			}
+		}
 	}
-	part, errPart := newPlan(sizes, kept, deferred, base, g, lim, limit)
-	if part == nil || (errPart != nil && rule != deferredOnly) {
+	if len(plans) == 0 && errWhole == nil {
+		plans = append(plans, whole) // no deferred plan costs less than the budget
+	}
+	// the first plan by its boxes' cells that keeps within lim runs
+	slices.SortStableFunc(plans, func(a, b *plan) int { return cmp.Compare(a.fig.boxCells, b.fig.boxCells) })
+	var first error
+	for _, p := range plans {
+		err := p.settle(lim)
+		if err == nil {
+			return p, nil
+		}
+		if p == whole {
+			errWhole = err
+		}
+		first = cmp.Or(first, err)
+	}
+	if errWhole != nil || first == nil {
 		return whole, errWhole // the whole computation's reason, the usual one
 	}
-	return part, errPart
+	return nil, first
 }
 
-// newPlan builds the space for the blocks dealt in layers and plans it; with
-// deferred scores, it gives up (nil) once its boxes' cells and its last step
-// would cost more than limit.
+// mirror turns ascending blocks into the descending order of their scores,
+// each score y becoming top − y.
+func mirror(blocks []Block, top int64) []Block {
+	out := make([]Block, len(blocks))
+	for i, b := range blocks {
+		out[len(blocks)-1-i] = Block{Score: top - b.Score, Count: b.Count}
+	}
+	return out
+}
+
+// newPlan builds the space for the blocks dealt in layers and works out its
+// boxes; with deferred scores, it gives up (nil) once its boxes' cells and
+// its last step would cost more than limit.
 func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, limit int) (*plan, error) {
 	s, err := newSpace(sizes, countsOf(blocks), sum(countsOf(deferred)))
 	if err != nil {
 		return nil, err
 	}
 	p := &plan{s: s, blocks: blocks, late: deferred, base: base, g: g}
-	if p.fig, err = s.budget(lim, blocks); err != nil || !s.deferred {
+	if p.fig, err = s.boxes(lim, blocks); err != nil || !s.deferred {
 		return p, err
 	}
 	work, ok := p.finishWork(limit - p.fig.boxCells)
 	if !ok {
 		return nil, nil
 	}
-	p.fig.cells, p.fig.boxCells = min(p.fig.cells+work, tooMany), p.fig.boxCells+work
-	if lim.MaxWork > 0 && p.fig.cells > lim.MaxWork {
-		return p, &TooLargeError{fmt.Sprintf("about %d states and deals in all, more than %d", p.fig.cells, lim.MaxWork)}
-	}
+	p.work, p.fig.boxCells = work, p.fig.boxCells+work
 	return p, nil
+}
+
+// settle lays the plan out where its boxes do not settle whether it fits
+// (see space.settle), and refuses it when it does not.
+func (p *plan) settle(lim Limits) (err error) {
+	if p.fig, err = p.s.settle(lim, p.fig); err != nil {
+		return err
+	}
+	p.fig.cells = min(p.fig.cells+p.work, tooMany)
+	if lim.MaxWork > 0 && p.fig.cells > lim.MaxWork {
+		return &TooLargeError{fmt.Sprintf("about %d states and deals in all, more than %d", p.fig.cells, lim.MaxWork)}
+	}
+	return nil
 }
 
 // splitParity splits the blocks by the parity of their scores: the rarer

@@ -107,7 +107,8 @@ func TestAgainstEnumeration(t *testing.T) {
 // matchesEnumeration compares Permutation, with dense arrays where they fit
 // and with hash tables throughout, each with every score dealt in the layers
 // and with the rarer parity's dealt last (when there are at most
-// maxDeferred of them), with complete enumeration to 1e-12.
+// maxDeferred of them) after the others in ascending and in descending
+// order, with complete enumeration to 1e-12.
 func matchesEnumeration(sizes []int, scores []int64) error {
 	want := bruteForce(sizes, scores)
 	for _, c := range []struct {
@@ -118,6 +119,8 @@ func matchesEnumeration(sizes []int, scores []int64) error {
 		{Limits{MaxStates: 1 << 20}, wholeOnly},
 		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly},
 		{Limits{MaxStates: 1 << 20}, deferredOnly},
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredDescending},
+		{Limits{MaxStates: 1 << 20}, deferredDescending},
 	} {
 		lim := c.lim
 		got, err := permute(context.Background(), sizes, blocksOf(scores), lim, nil, c.rule)

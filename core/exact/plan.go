@@ -8,34 +8,41 @@ import (
 	"midrank/core/dist"
 )
 
-// budget decides, before any layer is built, whether arrays or hash tables
-// hold the layers, and refuses with a *TooLargeError what lim does not allow;
-// it returns the planned figures.
-func (s *space) budget(lim Limits, blocks []Block) (figures, error) {
+// boxes works out the planned figures from the buckets' boxes alone, a
+// cheap first measure (boxCells) by which plans are compared, refusing with a
+// *TooLargeError what the screen or the numbering does not allow.
+func (s *space) boxes(lim Limits, blocks []Block) (figures, error) {
 	if err := s.screen(lim); err != nil {
 		return figures{}, err
 	}
 	if err := s.prepare(blocks); err != nil {
 		return figures{}, err
 	}
+	fig := s.plan(s.boxSize)
+	fig.boxCells = fig.cells
+	if fig.peak >= tooMany {
+		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
+	}
+	return fig, nil
+}
+
+// settle decides, from the figures of boxes and before any layer is built,
+// whether arrays or hash tables hold the layers, and refuses with a
+// *TooLargeError what lim does not allow; it returns the planned figures.
+func (s *space) settle(lim Limits, fig figures) (figures, error) {
 	// The boxes bound the arrays. When they do not settle the question, the
 	// rows are laid out to count the cells, which costs about as much as a
 	// few cells a row, so not beyond 2·MaxCells rows in all. Hash tables
 	// hold the states reached, hardly fewer than the cells laid out, in four
 	// cells' room each: they serve where the row tables are what is large,
 	// as with many small groups.
-	fig := s.plan(s.boxSize)
-	fig.boxCells = fig.cells
-	if fig.peak >= tooMany {
-		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
-	}
 	laid := false
 	layable := 2 * lim.MaxCells // rows, whose laying out costs a few cells' work each
 	if lim.MaxWork > 0 {
 		layable = min(layable, lim.MaxWork/rowCost)
 	}
 	if fig.rows <= layable && !fig.fit(lim) {
-		sh, boxCells := s.newShape(), fig.cells
+		sh, boxCells := s.newShape(), fig.boxCells
 		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
 		fig.boxCells = boxCells
 	}
