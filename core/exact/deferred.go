@@ -1,7 +1,6 @@
 package exact
 
 import (
-	"cmp"
 	"context"
 	"encoding/binary"
 	"fmt"
@@ -127,7 +126,11 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 		plans = append(plans, whole) // no deferred plan costs less than the budget
 	}
 	// the first plan by its boxes' cells that keeps within lim runs
-	slices.SortStableFunc(plans, func(a, b *plan) int { return cmp.Compare(a.fig.boxCells, b.fig.boxCells) })
+	for i := 1; i < len(plans); i++ { // at most three: sorted in place
+		for j := i; j > 0 && plans[j].fig.boxCells < plans[j-1].fig.boxCells; j-- {
+			plans[j], plans[j-1] = plans[j-1], plans[j]
+		}
+	}
 	var first error
 	for _, p := range plans {
 		err := p.settle(lim)
@@ -137,7 +140,9 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 		if p == whole {
 			errWhole = err
 		}
-		first = cmp.Or(first, err)
+		if first == nil {
+			first = err
+		}
 	}
 	if errWhole != nil || first == nil {
 		return whole, errWhole // the whole computation's reason, the usual one
@@ -178,7 +183,7 @@ func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, l
 // settle lays the plan out where its boxes do not settle whether it fits
 // (see space.settle), and refuses it when it does not.
 func (p *plan) settle(lim Limits) (err error) {
-	if p.fig, err = p.s.settle(lim, p.fig); err != nil {
+	if p.fig, err = p.s.settle(lim, p.fig); err != nil || !p.s.deferred {
 		return err
 	}
 	p.fig.cells = min(p.fig.cells+p.work, tooMany)
