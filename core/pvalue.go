@@ -17,10 +17,15 @@ import (
 // peak. An explicit request may use more than the automatic choice, which
 // must leave time for a fallback.
 const (
-	ExactCells      = 40_000_000 // --pvalue exact: two layers of at most 320 MB together, under 512 MB at the peak
-	ExactStates     = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
-	AutoExactWork   = 25_000_000 // --pvalue auto: within about a second natively
-	AutoExactStates = 1_000_000  // --pvalue auto: hash layers within this
+	ExactCells  = 40_000_000 // --pvalue exact: two layers of at most 320 MB together, under 512 MB at the peak
+	ExactStates = 4_000_000  // --pvalue exact: hash layers of at most about 200 MB
+	// AutoExactWork is the automatic choice's budget of work for four or
+	// more groups, within about a second natively. A cell costs less with
+	// fewer groups to deal it to (BenchmarkPermutation, natively: about 8 ns
+	// with three groups of 15, 15 with four of 8, 35 with five of 5), so
+	// two or three groups get half as much again (autoExactWork).
+	AutoExactWork   = 25_000_000
+	AutoExactStates = 1_000_000 // --pvalue auto: hash layers within this
 	// AutoMonteCarloDraws bounds the random draws (values × resamples)
 	// that the automatic choice spends on Monte Carlo: about 0.2 s natively
 	// on one core (2.5·10⁸ draws a second, BenchmarkResamplesN100K4) and
@@ -98,6 +103,15 @@ func (p *permutationProblem) h(t int64, c float64) float64 {
 	return (float64(12/(float64(n*(n+1)))*ss) - float64(3*(n+1))) / c
 }
 
+// autoExactWork is the automatic choice's budget of work for k groups (see
+// AutoExactWork).
+func autoExactWork(k int) int {
+	if k <= 3 {
+		return AutoExactWork * 3 / 2
+	}
+	return AutoExactWork
+}
+
 // pvalueOf finds the p-value by the requested method, running the exact or
 // Monte Carlo computation where needed; c is the tie correction.
 func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic, c float64, progress Progress) (pvalue, error) {
@@ -107,7 +121,7 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 	if method == PValueAuto || method == PValueExact {
 		limit := exact.Limits{MaxCells: ExactCells, MaxStates: ExactStates}
 		if method == PValueAuto {
-			limit.MaxWork, limit.MaxStates = AutoExactWork, AutoExactStates
+			limit.MaxWork, limit.MaxStates = autoExactWork(len(ranking.Sizes)), AutoExactStates
 		}
 		// the screen needs only the sizes and the tie blocks: large samples
 		// are refused before their scores are worked out
