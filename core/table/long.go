@@ -8,18 +8,26 @@ import (
 // long reads one value per record, its group label in column cols.group
 // and its value in column cols.measure.
 func (p *parser) long(cols longColumns) error {
+	if err := p.longRecords(cols, true); err != nil {
+		return err
+	}
+	return p.finish()
+}
+
+// longRecords reads the records of a long text up to its end, the first
+// of them perhaps a header, leaving the numbers and units to be decided.
+func (p *parser) longRecords(cols longColumns, first bool) error {
 	t, r := p.t, p.r
 	t.GroupColumn, t.MeasureColumn, t.CountColumn = cols.group+1, cols.measure+1, cols.count+1
 	index := map[string]int{}
 	lastLabel, last := []byte(nil), -1
-	first := true
 	for {
 		ok, err := r.read()
 		if err != nil {
 			return err
 		}
 		if !ok {
-			return p.finish()
+			return nil
 		}
 		f := r.fields
 		if cols.strict && len(f) > 2 {

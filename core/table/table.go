@@ -165,6 +165,9 @@ func parse(data []byte, opt Options, profile *Profile) (*Table, error) {
 	p.r.start(plan)
 	switch t.Layout {
 	case LayoutLong:
+		if p.longInHalves(cols, lines) {
+			return t, p.finish()
+		}
 		t.reserve(lines)
 		return t, p.long(cols)
 	case LayoutCounts:
