@@ -89,6 +89,7 @@ check-core:
 fuzz:
 	$(call fuzz-once,./core/table,FuzzParse) || $(call fuzz-once,./core/table,FuzzParse)
 	$(call fuzz-once,./core/table,FuzzColumns) || $(call fuzz-once,./core/table,FuzzColumns)
+	$(call fuzz-once,./core/table,FuzzHalves) || $(call fuzz-once,./core/table,FuzzHalves)
 	$(call fuzz-once,./core,FuzzAnalyze) || $(call fuzz-once,./core,FuzzAnalyze)
 	$(call fuzz-once,./core/rank,FuzzRank) || $(call fuzz-once,./core/rank,FuzzRank)
 	$(call fuzz-once,./core/link,FuzzDecode) || $(call fuzz-once,./core/link,FuzzDecode)
