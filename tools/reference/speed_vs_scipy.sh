@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # Times the whole midrank command line against pandas.read_csv +
 # scipy.stats.kruskal on the same file of 1,000,000 values in 5 groups, side
-# by side in one run, and prints the ratio and midrank's peak memory. Needs
+# by side (in turn, seven rounds), and prints the ratio and midrank's peak
+# memory. Needs
 # Debian's python3 with python3-pandas and python3-scipy; exits 0 with a
 # note when they are missing. Usage: tools/reference/speed_vs_scipy.sh [N]
 set -euo pipefail
@@ -37,17 +38,22 @@ h, p = stats.kruskal(*[s.values for _, s in d.groupby("site", sort=False)["minut
 print(h, p)
 PY
 median() { sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}'; }
-time_runs() { # command... → median wall time in ms over 5 runs
-  for _ in 1 2 3 4 5; do
-    s=$(date +%s%N); "$@" > /dev/null; e=$(date +%s%N)
-    echo $(( (e - s) / 1000000 ))
-  done | median
+ms() { # command... → its wall time in ms
+  local s e
+  s=$(date +%s%N); "$@" > /dev/null; e=$(date +%s%N)
+  echo $(( (e - s) / 1000000 ))
 }
-# like for like: the H test alone (scipy computes no pairs)
-ours=$(time_runs "$work/midrank" --json --posthoc none "$work/data.csv")
-theirs=$(time_runs "$py" "$work/kw.py" "$work/data.csv")
+# the three commands in turn, seven rounds, so that the machine's load,
+# which drifts, weighs on each alike; medians of the rounds
+for _ in 1 2 3 4 5 6 7; do
+  ms "$work/midrank" --json --posthoc none "$work/data.csv" >> "$work/ours" # like for like: the H test alone (scipy computes no pairs)
+  ms "$work/midrank" --json "$work/data.csv" >> "$work/full"
+  ms "$py" "$work/kw.py" "$work/data.csv" >> "$work/theirs"
+done
+ours=$(median < "$work/ours")
+full=$(median < "$work/full")
+theirs=$(median < "$work/theirs")
 peak=$(/usr/bin/time -f %M "$work/midrank" --json --posthoc none "$work/data.csv" 2>&1 >/dev/null | tail -1)
-full=$(time_runs "$work/midrank" --json "$work/data.csv")
 echo "values: $n ($(du -h "$work/data.csv" | cut -f1) of text)"
 echo "midrank --json --posthoc none (whole process): ${ours} ms, peak memory $((peak / 1024)) MB"
 echo "midrank --json with the default Dunn pairs and their effect sizes: ${full} ms"
