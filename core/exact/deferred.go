@@ -194,8 +194,10 @@ func (p *plan) settle(lim Limits) (err error) {
 }
 
 // splitParity splits the blocks by the parity of their scores: the rarer
-// parity's (at most maxDeferred scores, and some) are deferred, the others
-// are returned as y = (x − base)/g, g the gcd of their differences.
+// parity's (some, at most maxDeferred and at most a third of all) are
+// deferred, the others are returned as y = (x − base)/g, g the gcd of their
+// differences. (Untied ranks hold as many scores of either parity, and
+// deferring half of them never pays: only costing it does.)
 func splitParity(blocks []Block) (kept, deferred []Block, base, g int64, ok bool) {
 	var odd int
 	n := 0
@@ -209,7 +211,7 @@ func splitParity(blocks []Block) (kept, deferred []Block, base, g int64, ok bool
 	if odd > n-odd {
 		rare = 0
 	}
-	if e := min(odd, n-odd); e == 0 || e > maxDeferred {
+	if e := min(odd, n-odd); e == 0 || e > maxDeferred || 3*e > n {
 		return nil, nil, 0, 0, false
 	}
 	for _, b := range blocks {
