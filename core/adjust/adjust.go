@@ -58,11 +58,11 @@ func (m Method) Name() string { return words[m].prose }
 func Adjust(p []float64, method Method) ([]float64, error) {
 	m := float64(len(p))
 	out := make([]float64, len(p))
-	order := make([]int, len(p)) // ascending p, ties in input order
+	order := make([]int32, len(p)) // ascending p, ties in input order (int32: the module's one stable sort of indices)
 	for i := range order {
-		order[i] = i
+		order[i] = int32(i)
 	}
-	slices.SortStableFunc(order, func(a, b int) int {
+	slices.SortStableFunc(order, func(a, b int32) int {
 		switch {
 		case p[a] < p[b]:
 			return -1

@@ -53,7 +53,7 @@ func TestLayoutIsTight(t *testing.T) {
 			t.Fatal(err)
 		}
 		s, _ := newSpace(c.sizes, countsOf(c.blocks), 0)
-		if err := s.prepare(c.blocks); err != nil {
+		if err := s.prepare(c.blocks, c.blocks); err != nil {
 			t.Fatal(err)
 		}
 		sh := s.newShape()

@@ -137,7 +137,7 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 	if b.Count == 1 && s.dense {
 		return s.dealOne(ctx, from, b.Score, dealt, st, next)
 	}
-	total := s.prefix[dealt]
+	total := s.total(dealt)
 	if !s.dense {
 		k := len(s.sizes)
 		return s.moves(from, b, st, next, func(moves []move) error {

@@ -36,7 +36,7 @@ type plan struct {
 	blocks  []Block // dealt in the layers, y
 	fig     figures
 	late    []Block // dealt last, x
-	base, g int64   // x = base + g·y for the scores of the layers (g < 0 when they are dealt in descending order)
+	base, g int64   // x = base + g·y for the scores of the layers
 	work    int     // of the last step, in cells' worth (in fig.boxCells)
 	// ways are the deals of the late blocks into each bucket of the last
 	// layer, by its counts (see countsKey), listed when the plan is costed
@@ -56,10 +56,12 @@ func countsKey(counts []int) string {
 type planRule int
 
 const (
-	cheaper            planRule = iota // the one with less planned work
-	wholeOnly                          // never defer (tests)
-	deferredOnly                       // defer whenever there are scores of both parities, the others dealt ascending (tests)
-	deferredDescending                 // the same, the others dealt descending (tests)
+	cheaper   planRule = iota // the one with less planned work
+	wholeOnly                 // never defer (tests)
+	// deferredOnly and the rules above it defer whenever they may, and deal
+	// the others in order rule − deferredOnly of windows, or its last
+	// (tests)
+	deferredOnly
 )
 
 // maxDeferred bounds the deferred scores: their deals into a bucket's room
@@ -76,18 +78,18 @@ const finishCost = 2
 // choose plans the computation by rule, refusing with a *TooLargeError when
 // no plan keeps within lim.
 //
-// With deferred scores the layers may deal the others in ascending or in
-// descending order (y or max y − y, a change of scale that T's formula
-// undoes through base and g): the states of a layer depend only on the
-// scores dealt so far, and a tie block dealt last leaves a hole in them,
-// whose cost (a wider spread of sums) starts at the layer where the hole is
-// first passed. So the order that passes it later costs less: measured on
-// four groups of 8 with one tied pair at ranks 10–11, 53 million cells
-// ascending and 44 million descending, against 39 million untied.
+// With deferred scores the layers may deal the others in any order in
+// which the scores dealt are a run of the sorted ones (see windows): the
+// states of a layer depend only on the scores dealt so far, and a tie block
+// dealt last leaves a gap in them, whose cost (a wider spread of sums)
+// starts at the layer where the gap is first bridged. So an order that
+// bridges it later costs less: measured on four groups of 8 with one tied
+// pair at ranks 10–11, 53 million cells ascending and 44 million from the
+// top, against 39 million untied.
 func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, error) {
-	whole, errWhole := newPlan(sizes, blocks, nil, 0, 1, lim, 0)
+	whole, errWhole := newPlan(sizes, blocks, nil, 0, 1, lim, 0, rule)
 	var plans []*plan
-	if errWhole == nil && rule != deferredOnly && rule != deferredDescending {
+	if errWhole == nil && rule < deferredOnly {
 		plans = append(plans, whole)
 	}
 	if kept, deferred, base, g, ok := splitParity(blocks); ok && rule != wholeOnly {
@@ -105,21 +107,10 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 		default: // no bound on the work but memory's: as much as the layers could do in it
 			limit = product(len(blocks), lim.MaxCells)
 		}
-		top := kept[len(kept)-1].Score
-		for _, descending := range []bool{false, true} {
-			if (rule == deferredOnly && descending) || (rule == deferredDescending && !descending) {
-				continue
-			}
-			dealt, b, step := kept, base, g
-			if descending {
-				dealt, b, step = mirror(kept, top), base+g*top, -g
-			}
-			if part, err := newPlan(sizes, dealt, deferred, b, step, lim, limit); part != nil && err == nil {
-				plans = append(plans, part)
-				limit = min(limit, part.fig.boxCells-1)
-			} else if part != nil && rule != cheaper {
-				return part, err
-			}
+		if part, err := newPlan(sizes, kept, deferred, base, g, lim, limit, rule); part != nil && err == nil {
+			plans = append(plans, part)
+		} else if part != nil && rule != cheaper {
+			return part, err
 		}
 	}
 	if len(plans) == 0 && errWhole == nil {
@@ -150,26 +141,34 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 	return nil, first
 }
 
-// mirror turns ascending blocks into the descending order of their scores,
-// each score y becoming top − y.
-func mirror(blocks []Block, top int64) []Block {
-	out := make([]Block, len(blocks))
-	for i, b := range blocks {
-		out[len(blocks)-1-i] = Block{Score: top - b.Score, Count: b.Count}
-	}
-	return out
-}
-
 // newPlan builds the space for the blocks dealt in layers and works out its
-// boxes; with deferred scores, it gives up (nil) once its boxes' cells and
-// its last step would cost more than limit.
-func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, limit int) (*plan, error) {
-	s, err := newSpace(sizes, countsOf(blocks), sum(countsOf(deferred)))
-	if err != nil {
-		return nil, err
+// boxes. With deferred scores it tries the orders of windows(blocks) (one of
+// them under rules from deferredOnly on) and keeps the one whose boxes have
+// the fewest cells;
+// it gives up (nil) once its boxes' cells and its last step would cost
+// more than limit.
+func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, limit int, rule planRule) (*plan, error) {
+	orders := [][]Block{blocks}
+	if len(deferred) > 0 {
+		orders = windows(blocks)
+		if rule >= deferredOnly {
+			i := min(int(rule-deferredOnly), len(orders)-1)
+			orders = orders[i : i+1]
+		}
 	}
-	p := &plan{s: s, blocks: blocks, late: deferred, base: base, g: g}
-	if p.fig, err = s.boxes(lim, blocks); err != nil || !s.deferred {
+	var p *plan
+	var err error
+	for _, order := range orders {
+		s, errSpace := newSpace(sizes, countsOf(order), sum(countsOf(deferred)))
+		if errSpace != nil {
+			return nil, errSpace
+		}
+		fig, errBoxes := s.boxes(lim, order, blocks)
+		if p == nil || (errBoxes == nil && (err != nil || fig.boxCells < p.fig.boxCells)) {
+			p, err = &plan{s: s, blocks: order, late: deferred, base: base, g: g, fig: fig}, errBoxes
+		}
+	}
+	if err != nil || len(deferred) == 0 {
 		return p, err
 	}
 	work, ok := p.finishWork(limit - p.fig.boxCells)
@@ -178,6 +177,45 @@ func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, l
 	}
 	p.work, p.fig.boxCells = work, p.fig.boxCells+work
 	return p, nil
+}
+
+// windows lists orders in which to deal ascending blocks so that the scores
+// dealt at each layer are a run of the sorted ones (see space.order): from
+// each stretch of blocks whose scores follow one another without a gap, the
+// stretch first, then the neighbouring stretches one by one, the longer of
+// the two next to the run so far first. A gap (the scores of the tied pairs
+// dealt last, or a tie block's) widens the spread of the sums of every
+// layer that holds scores on both sides of it, so the orders differ in how
+// late they bridge the gaps. The first order is the ascending one and the
+// last the descending one's stretches.
+func windows(blocks []Block) [][]Block {
+	var starts, sizes []int // each stretch's first block, and its scores
+	for i, b := range blocks {
+		if i == 0 || b.Score-blocks[i-1].Score > 1 {
+			starts, sizes = append(starts, i), append(sizes, 0)
+		}
+		sizes[len(sizes)-1] += b.Count
+	}
+	starts = append(starts, len(blocks))
+	orders := make([][]Block, 0, len(sizes))
+	for r := range sizes {
+		order := make([]Block, 0, len(blocks))
+		order = append(order, blocks[starts[r]:starts[r+1]]...)
+		below, above := r-1, r+1 // the next stretches either side
+		for below >= 0 || above < len(sizes) {
+			if above < len(sizes) && (below < 0 || sizes[above] >= sizes[below]) {
+				order = append(order, blocks[starts[above]:starts[above+1]]...)
+				above++
+				continue
+			}
+			for i := starts[below+1] - 1; i >= starts[below]; i-- {
+				order = append(order, blocks[i])
+			}
+			below--
+		}
+		orders = append(orders, order)
+	}
+	return orders
 }
 
 // settle lays the plan out where its boxes do not settle whether it fits
@@ -361,7 +399,7 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 		if s.deferred {
 			adds = p.ways[countsKey(b.counts)] // listed for every count vector of the last layer when the plan was costed
 		}
-		err := b.each(ctx, s.prefix[s.n], st.sum, func(q float64) {
+		err := b.each(ctx, s.total(s.n), st.sum, func(q float64) {
 			for i, y := range st.sum[:k] {
 				x[i] = int64(b.counts[i])*p.base + p.g*y
 			}
@@ -381,16 +419,16 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 			progress(s.n+(s.all-s.n)*(j+1)/len(last), s.all)
 		}
 	}
-	d := &Distribution{Stat: make([]int64, 0, mass.len())}
+	keys := make([]uint64, 0, mass.len()) // sorted as the layers' keys are, one sort in the module
 	for _, e := range mass.slots {
 		if e.key != empty {
-			d.Stat = append(d.Stat, int64(e.key))
+			keys = append(keys, e.key)
 		}
 	}
-	slices.Sort(d.Stat)
-	d.Prob = make([]float64, len(d.Stat))
-	for i, t := range d.Stat {
-		d.Prob[i] = mass.get(uint64(t))
+	slices.Sort(keys)
+	d := &Distribution{Stat: make([]int64, len(keys)), Prob: make([]float64, len(keys))}
+	for i, t := range keys {
+		d.Stat[i], d.Prob[i] = int64(t), mass.get(t)
 	}
 	return d, nil
 }

@@ -107,8 +107,8 @@ func TestAgainstEnumeration(t *testing.T) {
 // matchesEnumeration compares Permutation, with dense arrays where they fit
 // and with hash tables throughout, each with every score dealt in the layers
 // and with the rarer parity's dealt last (when there are at most
-// maxDeferred of them) after the others in ascending and in descending
-// order, with complete enumeration to 1e-12.
+// maxDeferred of them and a third of all) after the others in the first
+// four orders of windows, with complete enumeration to 1e-12.
 func matchesEnumeration(sizes []int, scores []int64) error {
 	want := bruteForce(sizes, scores)
 	for _, c := range []struct {
@@ -119,8 +119,10 @@ func matchesEnumeration(sizes []int, scores []int64) error {
 		{Limits{MaxStates: 1 << 20}, wholeOnly},
 		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly},
 		{Limits{MaxStates: 1 << 20}, deferredOnly},
-		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredDescending},
-		{Limits{MaxStates: 1 << 20}, deferredDescending},
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly + 1},
+		{Limits{MaxStates: 1 << 20}, deferredOnly + 1},
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly + 2},
+		{Limits{MaxCells: 1 << 22, MaxStates: 1 << 20}, deferredOnly + 3},
 	} {
 		lim := c.lim
 		got, err := permute(context.Background(), sizes, blocksOf(scores), lim, nil, c.rule)
@@ -282,5 +284,36 @@ func TestTiedPairsDealtLast(t *testing.T) {
 				break
 			}
 		}
+	}
+}
+
+// TestWindows: the orders start from each stretch of scores without a gap
+// and take the longer neighbouring stretch first, so that the scores dealt
+// are always a run of the sorted ones.
+func TestWindows(t *testing.T) {
+	blocks := []Block{{0, 1}, {1, 1}, {2, 1}, {5, 1}, {6, 1}, {7, 1}, {8, 1}, {11, 1}}
+	want := [][]int64{
+		{0, 1, 2, 5, 6, 7, 8, 11},
+		{5, 6, 7, 8, 2, 1, 0, 11},
+		{11, 8, 7, 6, 5, 2, 1, 0},
+	}
+	orders := windows(blocks)
+	if len(orders) != len(want) {
+		t.Fatalf("%d orders, want %d", len(orders), len(want))
+	}
+	for i, order := range orders {
+		var got []int64
+		for _, b := range order {
+			got = append(got, b.Score)
+		}
+		if !slices.Equal(got, want[i]) {
+			t.Errorf("order %d: %v, want %v", i, got, want[i])
+		}
+		s, err := newSpace([]int{4, 4}, countsOf(order), 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s.blocks, s.sorted = order, blocks
+		s.order() // panics unless each layer's scores are a run of the sorted ones
 	}
 }

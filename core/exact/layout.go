@@ -55,10 +55,10 @@ func (s *space) layout(counts []int, t int, sh *shape) (cells, rows int) {
 				c += counts[i]
 			}
 		}
-		bound[0][j], bound[1][j] = s.prefix[c], s.top(t, c)
-		bound[2][j], bound[3][j] = s.prefix[c+counts[q]], s.top(t, c+counts[q])
+		bound[0][j], bound[1][j] = s.least(t, c), s.most(t, c)
+		bound[2][j], bound[3][j] = s.least(t, c+counts[q]), s.most(t, c+counts[q])
 	}
-	total := s.prefix[t]
+	total := s.total(t)
 	below := q > 0 && s.sameRun(counts, q-1) // sum k−3 ≤ sum k−2
 	above := s.sameRun(counts, q)            // sum k−2 ≤ the last sum
 	from, to := int64(0), int64(0)           // the first group's sums, where it fixes rows

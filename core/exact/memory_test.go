@@ -32,7 +32,7 @@ func TestPlanBoundsMemory(t *testing.T) {
 			t.Fatal(err)
 		}
 		lim := Limits{MaxCells: 40_000_000, MaxStates: 4_000_000}
-		if fig, err := s.boxes(lim, c.blocks); err != nil {
+		if fig, err := s.boxes(lim, c.blocks, c.blocks); err != nil {
 			t.Fatal(err)
 		} else if _, err := s.settle(lim, fig); err != nil || !s.dense {
 			t.Fatalf("%s: %v, arrays %v", c.name, err, s.dense)

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math/bits"
 	"slices"
+	"sort"
 
 	"midrank/core/dist"
 )
@@ -11,11 +12,11 @@ import (
 // boxes works out the planned figures from the buckets' boxes alone, a
 // cheap first measure (boxCells) by which plans are compared, refusing with a
 // *TooLargeError what the screen or the numbering does not allow.
-func (s *space) boxes(lim Limits, blocks []Block) (figures, error) {
+func (s *space) boxes(lim Limits, blocks, sorted []Block) (figures, error) {
 	if err := s.screen(lim); err != nil {
 		return figures{}, err
 	}
-	if err := s.prepare(blocks); err != nil {
+	if err := s.prepare(blocks, sorted); err != nil {
 		return figures{}, err
 	}
 	fig := s.plan(s.boxSize)
@@ -56,7 +57,7 @@ func (s *space) settle(lim Limits, fig figures) (figures, error) {
 	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
 		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
 	default:
-		if est := EstimateStates(s.sizes, s.blocks); est > float64(20*float64(lim.MaxStates)) {
+		if est := EstimateStates(s.sizes, s.sorted); est > float64(20*float64(lim.MaxStates)) {
 			return fig, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
 		}
 	}
@@ -68,11 +69,13 @@ type space struct {
 	n         int // the scores dealt in the layers
 	all       int // the groups' sizes added up: n, or more when some scores are dealt last (see deferred.go)
 	deferred  bool
-	sizes     []int // ascending
-	blocks    []Block
+	sizes     []int     // ascending
+	blocks    []Block   // in the order dealt
+	sorted    []Block   // in ascending order of score
 	class     []int     // first group of the size class of each group
 	weight    []int64   // L/nᵢ
-	prefix    []int64   // prefix[t]: the sum of the t smallest scores
+	prefix    []int64   // prefix[i]: the sum of the i smallest scores
+	from      []int     // from[t]: the scores dealt when t are, are the (from[t]+1)-th to the (from[t]+t)-th smallest (see order)
 	cuts      []int     // the number of scores dealt after each block
 	countBits []uint    // bits of each group's count, in a bucket's key
 	logFact   []float64 // log a! for a = 0 … n (see logChoose)
@@ -96,7 +99,7 @@ type space struct {
 // newSpace describes the states of groups of these sizes dealt scores in
 // tie blocks of these counts, late more scores being dealt after the layers.
 func newSpace(sizes []int, counts []int, late int) (*space, error) {
-	s := &space{sizes: slices.Sorted(slices.Values(sizes)), deferred: late > 0}
+	s := &space{sizes: ascending(sizes), deferred: late > 0}
 	for _, c := range counts {
 		s.n += c
 		s.cuts = append(s.cuts, s.n)
@@ -125,15 +128,10 @@ func newSpace(sizes []int, counts []int, late int) (*space, error) {
 
 // prepare takes the scores and works out what the planner and the dealing
 // need, in time and memory linear in N: run only after the screen.
-func (s *space) prepare(blocks []Block) error {
+func (s *space) prepare(blocks, sorted []Block) error {
 	k := len(s.sizes)
-	s.blocks = blocks
-	s.prefix = make([]int64, 1, s.n+1)
-	for _, b := range blocks {
-		for range b.Count {
-			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
-		}
-	}
+	s.blocks, s.sorted = blocks, sorted
+	s.order()
 	s.countBits = make([]uint, k)
 	s.lo, s.hi = make([]int64, k), make([]int64, k)
 	s.fixedRoom = movesBatch*(k+5) + 4*(s.n+1) + 8192
@@ -175,11 +173,11 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 	k := len(s.sizes)
 	var loSum, hiSum int64
 	for i, c := range counts {
-		lo[i], hi[i] = s.prefix[c], s.top(t, c)
+		lo[i], hi[i] = s.least(t, c), s.most(t, c)
 		loSum += lo[i]
 		hiSum += hi[i]
 	}
-	total := s.prefix[t]
+	total := s.total(t)
 	for i := range k {
 		// the others hold at most hiSum − hi[i] and at least loSum − lo[i]
 		lo[i], hi[i] = max(lo[i], total-(hiSum-hi[i])), min(hi[i], total-(loSum-lo[i]))
@@ -218,8 +216,39 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 	return cells
 }
 
-// top is the sum of the c largest of the t smallest scores.
-func (s *space) top(t, c int) int64 { return s.prefix[t] - s.prefix[t-c] }
+// order notes the order in which the blocks are dealt: the scores dealt at
+// any layer must be a run of the sorted scores, the first ones or any other
+// (a window that grows at either end, see windows), so that the sums of
+// the c smallest and largest of them bound the sums of c of them.
+func (s *space) order() {
+	sorted := s.sorted
+	s.prefix = make([]int64, 1, s.n+1)
+	for _, b := range sorted {
+		for range b.Count {
+			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
+		}
+	}
+	s.from = make([]int, s.n+1)
+	lo, hi, t := s.n, 0, 0
+	for _, b := range s.blocks {
+		at := sort.Search(len(sorted), func(i int) bool { return sorted[i].Score >= b.Score })
+		start := 0
+		for _, x := range sorted[:at] {
+			start += x.Count
+		}
+		lo, hi, t = min(lo, start), max(hi, start+b.Count), t+b.Count
+		if hi-lo != t {
+			panic("exact: blocks not dealt as a growing run of the sorted scores")
+		}
+		s.from[t] = lo
+	}
+}
+
+// least, most and total are the sums of the c smallest, of the c largest
+// and of all the scores dealt when t are.
+func (s *space) least(t, c int) int64 { return s.prefix[s.from[t]+c] - s.prefix[s.from[t]] }
+func (s *space) most(t, c int) int64  { return s.prefix[s.from[t]+t] - s.prefix[s.from[t]+t-c] }
+func (s *space) total(t int) int64    { return s.prefix[s.from[t]+t] - s.prefix[s.from[t]] }
 
 // sameRun tells whether groups i and i+1 are of one class with equal
 // counts, so that in canonical order sum i ≤ sum i+1.
@@ -246,6 +275,18 @@ func product(a, b int) int {
 		return tooMany
 	}
 	return a * b
+}
+
+// ascending returns the sizes sorted, by insertion: k is small, and a
+// generic sort of ints would be one more in the module.
+func ascending(sizes []int) []int {
+	out := slices.Clone(sizes)
+	for i := 1; i < len(out); i++ {
+		for j := i; j > 0 && out[j] < out[j-1]; j-- {
+			out[j], out[j-1] = out[j-1], out[j]
+		}
+	}
+	return out
 }
 
 // boxSize gives the cells of a bucket's box and its rows.
@@ -353,14 +394,14 @@ func compositions(c, levels int) float64 {
 }
 
 // EstimateStates bounds the size of the largest layer from the sizes and the
-// scores, without computing it: after t scores are dealt, a stored group can
+// scores (blocks in ascending order, dealt so), without computing it: after t scores are dealt, a stored group can
 // hold c of them with a sum anywhere between the c smallest and the c
 // largest, and groups of one size class are counted once per arrangement.
 // The product over the stored groups is divided by the number of group counts
 // that add up to t, a correction measured against real layers (it stays
 // within a factor of a few of them; see the tests).
 func EstimateStates(sizes []int, blocks []Block) float64 {
-	sorted := slices.Sorted(slices.Values(sizes))
+	sorted := ascending(sizes)
 	var scores []int64
 	for _, b := range blocks {
 		for range b.Count {

@@ -57,7 +57,7 @@ func (s *space) dealOne(ctx context.Context, from *bucket, score int64, dealt in
 			rc.p, rc.off, rc.stride = rc.to.p, rc.to.off, rc.to.stride
 		}
 	}
-	total := s.prefix[dealt]
+	total := s.total(dealt)
 	sums := st.sum
 	// Along a row only the sums of group k−2 and the last group change, so
 	// the rows of the successors in which no sums change place stay; those

@@ -5,7 +5,10 @@
 // J. Comput. Graph. Statist. 13(2), 456–466).
 package letters
 
-import "slices"
+import (
+	"slices"
+	"sort"
+)
 
 // Display returns the letters of each of k groups, given which pairs differ
 // (differ[a][b] for a < b and b < a alike). Letters are assigned in order of
@@ -35,7 +38,7 @@ func Display(k int, differ func(a, b int) bool) []string {
 			columns = absorb(next)
 		}
 	}
-	slices.SortFunc(columns, func(x, y []int) int { return slices.Compare(x, y) })
+	sort.Sort(byGroups(columns))
 	out := make([]string, k)
 	for i, c := range columns {
 		letter := letterName(i)
@@ -45,6 +48,15 @@ func Display(k int, differ func(a, b int) bool) []string {
 	}
 	return out
 }
+
+// byGroups orders columns by their groups, as words by their letters (a
+// sort.Interface rather than a generic sort: the module holds one sort
+// less).
+type byGroups [][]int
+
+func (c byGroups) Len() int           { return len(c) }
+func (c byGroups) Less(i, j int) bool { return slices.Compare(c[i], c[j]) < 0 }
+func (c byGroups) Swap(i, j int)      { c[i], c[j] = c[j], c[i] }
 
 func without(c []int, g int) []int {
 	out := make([]int, 0, len(c)-1)

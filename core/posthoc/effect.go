@@ -1,9 +1,8 @@
 package posthoc
 
 import (
-	"cmp"
 	"math"
-	"slices"
+	"sort"
 
 	"midrank/core/dist"
 	"midrank/core/rank"
@@ -104,6 +103,20 @@ func effects(a, b tally, confidence float64) Effect {
 	return e
 }
 
+// weighted is a difference and how many pairs of values have it.
+type weighted struct {
+	d float64
+	w int
+}
+
+// byDifference orders weighted differences ascending (a sort.Interface
+// rather than a generic sort: the module holds one sort less).
+type byDifference []weighted
+
+func (b byDifference) Len() int           { return len(b) }
+func (b byDifference) Less(i, j int) bool { return b[i].d < b[j].d }
+func (b byDifference) Swap(i, j int)      { b[i], b[j] = b[j], b[i] }
+
 // kthDifference returns the k-th smallest (from 1) of the differences
 // x − y, x from a and y from b, without forming all of them. It bisects the
 // values, each step counting the differences at or below a candidate in one
@@ -149,10 +162,6 @@ func kthDifference(a, b tally, k int) float64 {
 			lo, cLo, pLo = mid, c, pairs
 		}
 	}
-	type weighted struct {
-		d float64
-		w int
-	}
 	between := make([]weighted, 0, pHi-pLo)
 	j, l := 0, 0 // for ascending x, x − b.v[j] ≤ hi from j on, and ≤ lo from l on
 	for i, x := range a.v {
@@ -166,7 +175,7 @@ func kthDifference(a, b tally, k int) float64 {
 			between = append(between, weighted{x - b.v[m], a.w[i] * b.w[m]})
 		}
 	}
-	slices.SortFunc(between, func(p, q weighted) int { return cmp.Compare(p.d, q.d) })
+	sort.Sort(byDifference(between))
 	d := hi
 	for _, p := range between {
 		if cLo += p.w; cLo >= k {

@@ -1,10 +1,8 @@
 package table
 
 import (
-	"cmp"
 	"fmt"
 	"math"
-	"slices"
 	"strconv"
 )
 
@@ -246,14 +244,17 @@ func chooseReading(p Profile) (read Reading, ok bool) {
 			measures = append(measures, c)
 		}
 	}
-	// a column whose labels repeat before one whose labels are all different (names, identifiers)
-	allDifferent := func(c int) int {
-		if p.Columns[c].Distinct == p.Columns[c].Text {
-			return 1
+	// a column whose labels repeat before one whose labels are all different
+	// (names, identifiers), each kind in column order
+	ordered := make([]int, 0, len(labels))
+	for _, different := range []bool{false, true} {
+		for _, c := range labels {
+			if (p.Columns[c].Distinct == p.Columns[c].Text) == different {
+				ordered = append(ordered, c)
+			}
 		}
-		return 0
 	}
-	slices.SortStableFunc(labels, func(a, b int) int { return cmp.Compare(allDifferent(a), allDifferent(b)) })
+	labels = ordered
 	name := func(c int) string { return strconv.Quote(p.Columns[c].Name) }
 	wide := Reading{Layout: LayoutWide, Reason: "one column per group: no column holds repeated labels or codes of groups beside a column of values"}
 	switch {

@@ -201,7 +201,7 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 		counts []int
 		p      []float64 // over 2J
 	}
-	layer := map[int]*state{0: {counts: make([]int, k), p: []float64{1}}}
+	layer := map[uint64]*state{0: {counts: make([]int, k), p: []float64{1}}} // uint64 keys: sorted as package exact's are, one sort in the module
 	work, dealtSoFar := 0, 0
 	d := make([]int, k)
 	for i, j := range r.Blocks() {
@@ -209,7 +209,7 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 			return Distribution{}, err
 		}
 		b := j - i
-		next := map[int]*state{}
+		next := map[uint64]*state{}
 		held := 0                                                              // the cells of next
 		logAll := logFact[n-dealtSoFar] - logFact[b] - logFact[n-dealtSoFar-b] // log C(R, b)
 		for _, key := range slices.Sorted(maps.Keys(layer)) {                  // in one order, so that sums are the same bytes each run
@@ -222,12 +222,12 @@ func dealt(ctx context.Context, r rank.Ranking) (Distribution, error) {
 						return nil
 					}
 					var add, lower, lowerD int
-					key := 0
+					key := uint64(0)
 					for h := range k {
 						add += d[h] * (2*lower + lowerD)
 						lower += st.counts[h]
 						lowerD += d[h]
-						key += (st.counts[h] + d[h]) * radix[h]
+						key += uint64((st.counts[h] + d[h]) * radix[h])
 					}
 					to := next[key]
 					if to == nil {
