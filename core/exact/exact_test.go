@@ -246,9 +246,12 @@ func TestOverflowRefused(t *testing.T) {
 }
 
 // TestTiedPairsDealtLast: with a few tied pairs (midranks ending in ½) the
-// cheaper plan deals them last, and its distribution equals the one that
-// deals every score in its place, beyond the sizes enumeration can check.
+// cheaper plan deals them last, the others in one of the orders of windows
+// (from a stretch in the middle in some cases), and its distribution equals
+// the one that deals every score in its place, beyond the sizes enumeration
+// can check.
 func TestTiedPairsDealtLast(t *testing.T) {
+	middle := 0 // plans dealing from a stretch in the middle
 	for _, c := range []struct {
 		sizes []int
 		at    []int // the first rank of each tied pair
@@ -258,6 +261,11 @@ func TestTiedPairsDealtLast(t *testing.T) {
 		{[]int{4, 5, 6}, []int{1, 14}}, // ties at both ends
 		{[]int{15, 15, 15}, []int{20}},
 		{[]int{3, 3, 3, 3, 3}, []int{7}},
+		// the longest stretch without a gap in the middle: dealt from there
+		{[]int{6, 6, 6, 6}, []int{3, 19}},
+		{[]int{4, 5, 6}, []int{3, 11}},
+		{[]int{3, 3, 3, 3, 3}, []int{2, 11}},
+		{[]int{15, 15, 15}, []int{9, 30}},
 	} {
 		n := 0
 		for _, s := range c.sizes {
@@ -268,6 +276,12 @@ func TestTiedPairsDealtLast(t *testing.T) {
 		if err != nil || !p.s.deferred {
 			t.Errorf("%v pairs at %v: not dealt last (%v)", c.sizes, c.at, err)
 			continue
+		}
+		orders := windows(p.s.sorted)
+		for i := 1; i < len(orders)-1; i++ {
+			if slices.Equal(orders[i], p.blocks) {
+				middle++
+			}
 		}
 		whole, err1 := permute(context.Background(), c.sizes, blocks, benchLimits, nil, wholeOnly)
 		late, err2 := permute(context.Background(), c.sizes, blocks, benchLimits, nil, cheaper)
@@ -284,6 +298,9 @@ func TestTiedPairsDealtLast(t *testing.T) {
 				break
 			}
 		}
+	}
+	if middle == 0 {
+		t.Error("no plan dealt the others from a stretch in the middle")
 	}
 }
 
