@@ -10,9 +10,12 @@ package rank
 import (
 	"iter"
 	"math"
+	"runtime"
 	"slices"
 	"sort"
 	"unsafe"
+
+	"midrank/core/internal/cores"
 )
 
 // Tie is a value shared by two or more observations.
@@ -157,8 +160,20 @@ func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 		}
 		return sorted, sortedTags
 	}
-	keys := make([]uint64, n)
+	keys, keys2 := make([]uint64, n), make([]uint64, n)
+	tags, tags2 := slices.Clone(tags), make([]int32, n)
+	if cores.Several && n >= halvesFrom && runtime.GOMAXPROCS(0) >= 2 {
+		return sortInHalves(values, keys, keys2, tags, tags2)
+	}
 	var count [passes][buckets]int32
+	histogram(values, keys, &count)
+	keys, tags = radix(keys, keys2, tags, tags2, &count, trivial(keys[0], &count, nil, n))
+	return decode(keys), tags
+}
+
+// histogram fills keys with the values' keys and count with how many keys
+// have each digit in each pass.
+func histogram(values []float64, keys []uint64, count *[passes][buckets]int32) {
 	for i, v := range values {
 		k := Key(v)
 		keys[i] = k
@@ -171,15 +186,33 @@ func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 		count[4][(k>>(4*digitBits))&(buckets-1)]++
 		count[5][(k>>(5*digitBits))&(buckets-1)]++
 	}
-	tags = slices.Clone(tags)
-	keys2 := make([]uint64, n)
-	tags2 := make([]int32, n)
+}
+
+// trivial tells, for each pass, whether every one of the n keys has the
+// digit of key there (counted in count, and in more when it is not nil):
+// such a pass changes nothing and is skipped.
+func trivial(key uint64, count, more *[passes][buckets]int32, n int) (skip [passes]bool) {
 	for p := range passes {
+		d := (key >> (p * digitBits)) & (buckets - 1)
+		c := count[p][d]
+		if more != nil {
+			c += more[p][d]
+		}
+		skip[p] = c == int32(n)
+	}
+	return skip
+}
+
+// radix sorts keys, carrying tags, by the passes not skipped, using keys2
+// and tags2 as the other side of each pass; it returns the side that holds
+// the result, which count (turned into offsets) no longer describes.
+func radix(keys, keys2 []uint64, tags, tags2 []int32, count *[passes][buckets]int32, skip [passes]bool) ([]uint64, []int32) {
+	for p := range passes {
+		if skip[p] {
+			continue
+		}
 		c := &count[p]
 		shift := p * digitBits
-		if c[(keys[0]>>shift)&(buckets-1)] == int32(n) {
-			continue // every key has the same digit here: the pass changes nothing
-		}
 		var sum int32
 		for d := range c {
 			sum, c[d] = sum+c[d], sum
@@ -194,10 +227,15 @@ func sortTagged(values []float64, tags []int32) ([]float64, []int32) {
 		keys, keys2 = keys2, keys
 		tags, tags2 = tags2, tags
 	}
-	// decode the keys in place: the float64s reuse the keys' memory
-	sorted := unsafe.Slice((*float64)(unsafe.Pointer(unsafe.SliceData(keys))), n)
+	return keys, tags
+}
+
+// decode turns sorted keys back into their values, in place: the float64s
+// reuse the keys' memory.
+func decode(keys []uint64) []float64 {
+	sorted := unsafe.Slice((*float64)(unsafe.Pointer(unsafe.SliceData(keys))), len(keys))
 	for i, k := range keys {
 		sorted[i] = FromKey(k)
 	}
-	return sorted, tags
+	return sorted
 }

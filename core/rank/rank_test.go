@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"reflect"
+	"slices"
 	"testing"
 )
 
@@ -167,4 +168,36 @@ func ExampleRank() {
 	// Output:
 	// [5.5 4.5] [{12 2}] 6
 	// 3.5 2
+}
+
+// TestSortInHalves: sorting in two halves and merging gives exactly what
+// one pass gives (stable among ties), whichever passes are skipped: all
+// values equal (every pass), values apart in their top digits only, ties
+// across the halves, negatives, odd lengths.
+func TestSortInHalves(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	kinds := map[string]func(i int) float64{
+		"all equal":   func(int) float64 { return 2.5 },
+		"top digits":  func(i int) float64 { return math.Ldexp(1, i%7) },
+		"ratings":     func(int) float64 { return float64(rng.IntN(5) + 1) },
+		"signed":      func(int) float64 { return rng.NormFloat64() * 1e3 },
+		"descending":  func(i int) float64 { return float64(-i) },
+		"half and -0": func(i int) float64 { return float64(i%2) * 0.5 },
+	}
+	defer func(from int) { halvesFrom = from }(halvesFrom)
+	for name, value := range kinds {
+		for _, n := range []int{smallSort, 1001, 4096} {
+			values := make([]float64, n)
+			for i := range values {
+				values[i] = value(i)
+			}
+			halvesFrom = 1 << 62
+			want, wantTags := sortTagged(values, indexTags(n))
+			keys, keys2, tags2 := make([]uint64, n), make([]uint64, n), make([]int32, n)
+			got, gotTags := sortInHalves(values, keys, keys2, indexTags(n), tags2)
+			if !slices.Equal(got, want) || !slices.Equal(gotTags, wantTags) {
+				t.Errorf("%s, n = %d: the halves merged differ from one pass", name, n)
+			}
+		}
+	}
 }

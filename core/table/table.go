@@ -25,6 +25,8 @@ import (
 	"bytes"
 	"fmt"
 	"strconv"
+
+	"midrank/core/internal/cores"
 )
 
 // Layout names how groups and values are arranged in the text.
@@ -165,7 +167,7 @@ func parse(data []byte, opt Options, profile *Profile) (*Table, error) {
 	p.r.start(plan)
 	switch t.Layout {
 	case LayoutLong:
-		if p.longInHalves(cols, lines) {
+		if cores.Several && p.longInHalves(cols, lines) {
 			return t, p.finish()
 		}
 		t.reserve(lines)
