@@ -31,14 +31,16 @@
 //
 // Reading order: exact.go, the API (Permutation, its limits and result);
 // screen.go, the first and cheapest refusal, from the sizes and tie blocks
-// alone; plan.go, the space of states and the exact count of every layer's
-// cells before any is made (budget); layout.go, how a bucket's rows are laid
-// out; layer.go, buckets and layers; deal.go, dealing a tie block (moves and
-// their weights); single.go, dealing a single score, the common case,
-// specialised; table.go, the hash table for sparse buckets; deferred.go, the
-// scores of tied pairs and other even-sized tie blocks dealt last, straight
-// into the statistic, so that a few ties cost about what none do, and the
-// choice between that plan and the whole one.
+// alone; plan.go, the space of states, the order the scores are dealt in and
+// the exact count of every layer's cells before any is made (boxes, settle);
+// estimate.go, the bound on the states of hash tables; layout.go, how a
+// bucket's rows are laid out; layer.go, buckets and layers; deal.go, dealing
+// a tie block (moves and their weights); single.go, dealing a single score,
+// the common case, specialised; table.go, the hash table for sparse buckets;
+// deferred.go, the scores of tied pairs and other even-sized tie blocks dealt
+// last, straight into the statistic, so that a few ties cost about what none
+// do; choose.go, the choice between dealing every score in place and the
+// deferred plans, and the orders the others may be dealt in.
 package exact
 
 import (
