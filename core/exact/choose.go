@@ -70,10 +70,8 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 		plans = append(plans, whole) // no deferred plan costs less than the budget
 	}
 	// the first plan by its boxes' cells that keeps within lim runs
-	for i := 1; i < len(plans); i++ { // at most three: sorted in place
-		for j := i; j > 0 && plans[j].fig.boxCells < plans[j-1].fig.boxCells; j-- {
-			plans[j], plans[j-1] = plans[j-1], plans[j]
-		}
+	if len(plans) == 2 && plans[1].fig.boxCells < plans[0].fig.boxCells {
+		plans[0], plans[1] = plans[1], plans[0]
 	}
 	var first error
 	for _, p := range plans {
@@ -96,10 +94,9 @@ func choose(sizes []int, blocks []Block, lim Limits, rule planRule) (*plan, erro
 
 // newPlan builds the space for the blocks dealt in layers and works out its
 // boxes. With deferred scores it tries the orders of windows(blocks) (one of
-// them under rules from deferredOnly on) and keeps the one whose boxes have
-// the fewest cells;
-// it gives up (nil) once its boxes' cells and its last step would cost
-// more than limit.
+// them under rules from deferredOnly on), keeps the one whose boxes have the
+// fewest cells, and gives up (nil) once its boxes' cells and its last step
+// would cost more than limit.
 func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, limit int, rule planRule) (*plan, error) {
 	orders := [][]Block{blocks}
 	if len(deferred) > 0 {
@@ -134,24 +131,31 @@ func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, l
 
 // windows lists orders in which to deal ascending blocks so that the scores
 // dealt at each layer are a run of the sorted ones (see space.order): from
-// each stretch of blocks whose scores follow one another without a gap, the
-// stretch first, then the neighbouring stretches one by one, the longer of
-// the two next to the run so far first. A gap (the scores of the tied pairs
-// dealt last, or a tie block's) widens the spread of the sums of every
-// layer that holds scores on both sides of it, so the orders differ in how
-// late they bridge the gaps. The first order is the ascending one and the
-// last the descending one's stretches.
+// a stretch of blocks whose scores follow one another without a gap (the
+// first, the longest, the last), the stretch first, then the neighbouring
+// stretches one by one, the longer of the two next to the run so far first.
+// A gap (the scores of the tied pairs dealt last, or a tie block's) widens
+// the spread of the sums of every layer that holds scores on both sides of
+// it, so the orders differ in how late they bridge the gaps. The first order
+// is the ascending one. (At most three, each costed by its boxes: data with
+// gaps everywhere, as on a scale, has as many stretches as blocks.)
 func windows(blocks []Block) [][]Block {
 	var starts, sizes []int // each stretch's first block, and its scores
+	longest := 0
 	for i, b := range blocks {
 		if i == 0 || b.Score-blocks[i-1].Score > 1 {
 			starts, sizes = append(starts, i), append(sizes, 0)
 		}
-		sizes[len(sizes)-1] += b.Count
+		if sizes[len(sizes)-1] += b.Count; sizes[len(sizes)-1] > sizes[longest] {
+			longest = len(sizes) - 1
+		}
 	}
 	starts = append(starts, len(blocks))
-	orders := make([][]Block, 0, len(sizes))
-	for r := range sizes {
+	orders := make([][]Block, 0, 3)
+	for _, r := range []int{0, longest, len(sizes) - 1} {
+		if len(orders) > 0 && (r == 0 || (r == len(sizes)-1 && longest == r)) {
+			continue // already listed
+		}
 		order := make([]Block, 0, len(blocks))
 		order = append(order, blocks[starts[r]:starts[r+1]]...)
 		below, above := r-1, r+1 // the next stretches either side

@@ -304,33 +304,49 @@ func TestTiedPairsDealtLast(t *testing.T) {
 	}
 }
 
-// TestWindows: the orders start from each stretch of scores without a gap
-// and take the longer neighbouring stretch first, so that the scores dealt
-// are always a run of the sorted ones.
+// TestWindows: the orders start from the first, the longest and the last
+// stretch of scores without a gap (each once) and take the longer
+// neighbouring stretch first, so that the scores dealt are always a run of
+// the sorted ones.
 func TestWindows(t *testing.T) {
-	blocks := []Block{{0, 1}, {1, 1}, {2, 1}, {5, 1}, {6, 1}, {7, 1}, {8, 1}, {11, 1}}
-	want := [][]int64{
-		{0, 1, 2, 5, 6, 7, 8, 11},
-		{5, 6, 7, 8, 2, 1, 0, 11},
-		{11, 8, 7, 6, 5, 2, 1, 0},
-	}
-	orders := windows(blocks)
-	if len(orders) != len(want) {
-		t.Fatalf("%d orders, want %d", len(orders), len(want))
-	}
-	for i, order := range orders {
-		var got []int64
-		for _, b := range order {
-			got = append(got, b.Score)
+	for _, c := range []struct {
+		scores []int64
+		want   [][]int64
+	}{
+		{[]int64{0, 1, 2, 5, 6, 7, 8, 11}, [][]int64{
+			{0, 1, 2, 5, 6, 7, 8, 11},
+			{5, 6, 7, 8, 2, 1, 0, 11},
+			{11, 8, 7, 6, 5, 2, 1, 0},
+		}},
+		{[]int64{0, 1, 2, 3, 6, 9, 10}, [][]int64{ // the longest is the first
+			{0, 1, 2, 3, 6, 9, 10},
+			{9, 10, 6, 3, 2, 1, 0},
+		}},
+		{[]int64{0, 1, 2}, [][]int64{{0, 1, 2}}}, // no gap: one order
+	} {
+		var blocks []Block
+		for _, x := range c.scores {
+			blocks = append(blocks, Block{x, 1})
 		}
-		if !slices.Equal(got, want[i]) {
-			t.Errorf("order %d: %v, want %v", i, got, want[i])
+		orders := windows(blocks)
+		if len(orders) != len(c.want) {
+			t.Errorf("%v: %d orders, want %d", c.scores, len(orders), len(c.want))
+			continue
 		}
-		s, err := newSpace([]int{4, 4}, countsOf(order), 0)
-		if err != nil {
-			t.Fatal(err)
+		for i, order := range orders {
+			var got []int64
+			for _, b := range order {
+				got = append(got, b.Score)
+			}
+			if !slices.Equal(got, c.want[i]) {
+				t.Errorf("%v: order %d is %v, want %v", c.scores, i, got, c.want[i])
+			}
+			s, err := newSpace([]int{len(blocks) - len(blocks)/2, len(blocks) / 2}, countsOf(order), 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			s.blocks, s.sorted = order, blocks
+			s.order() // panics unless each layer's scores are a run of the sorted ones
 		}
-		s.blocks, s.sorted = order, blocks
-		s.order() // panics unless each layer's scores are a run of the sorted ones
 	}
 }
