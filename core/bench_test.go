@@ -115,6 +115,7 @@ func BenchmarkAutomaticChoice(b *testing.B) {
 	}{
 		{"yes-no_4x100", []int{100, 100, 100, 100}, yesNo},
 		{"yes-no_3x1000", []int{1000, 1000, 1000}, yesNo},
+		{"yes-no_3x1200", []int{1200, 1200, 1200}, yesNo},
 		{"yes-no_3x100000", []int{100_000, 100_000, 100_000}, yesNo},
 		{"rating_701-753-811-785", []int{701, 753, 811, 785}, rating(0.05)},
 		{"rating_4x7500", []int{7500, 7500, 7500, 7500}, rating(0)},
