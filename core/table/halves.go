@@ -69,10 +69,14 @@ func (p *parser) longInHalves(cols longColumns, lines int) bool {
 // both would have it; it reports false when the groups would be too many.
 func (a *parser) join(b *parser) bool {
 	at := len(a.t.Values)
+	index := make(map[string]int, len(a.t.Labels))
+	for i, label := range a.t.Labels {
+		index[label] = i
+	}
 	group := make([]int32, len(b.t.Labels)) // b's group in a
 	for g, label := range b.t.Labels {
-		i := indexOf(a.t.Labels, label)
-		if i < 0 {
+		i, seen := index[label]
+		if !seen {
 			if len(a.t.Labels) == MaxGroups {
 				return false
 			}
@@ -89,15 +93,6 @@ func (a *parser) join(b *parser) bool {
 	a.numbers.join(&b.numbers, at)
 	a.units.join(&b.units)
 	return true
-}
-
-func indexOf(labels []string, label string) int {
-	for i, l := range labels {
-		if l == label {
-			return i
-		}
-	}
-	return -1
 }
 
 // join adds the numbers of b, read after nr's values (at of them).
