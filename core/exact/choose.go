@@ -2,11 +2,11 @@ package exact
 
 import "fmt"
 
-// plan is one way to run a computation: the space of its layers, the scores
-// dealt in them (on their own scale) and the deferred ones.
+// plan is one way to run a computation: the space of its layers (which
+// holds the scores dealt in them, in order, on their own scale) and the
+// deferred ones.
 type plan struct {
 	s       *space
-	blocks  []Block // dealt in the layers, y
 	fig     figures
 	late    []Block // dealt last, x
 	base, g int64   // x = base + g·y for the scores of the layers
@@ -115,7 +115,7 @@ func newPlan(sizes []int, blocks, deferred []Block, base, g int64, lim Limits, l
 		}
 		fig, errBoxes := s.boxes(lim, order, blocks)
 		if p == nil || (errBoxes == nil && (err != nil || fig.boxCells < p.fig.boxCells)) {
-			p, err = &plan{s: s, blocks: order, late: deferred, base: base, g: g, fig: fig}, errBoxes
+			p, err = &plan{s: s, late: deferred, base: base, g: g, fig: fig}, errBoxes
 		}
 	}
 	if err != nil || len(deferred) == 0 {

@@ -212,7 +212,7 @@ func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progr
 	cur := start.list()
 	dealt := 0
 	st := s.newScratch()
-	for bi, b := range p.blocks {
+	for bi, b := range s.blocks {
 		if err := ctx.Err(); err != nil {
 			return nil, err
 		}
@@ -231,7 +231,7 @@ func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progr
 			layerBuilt(next)
 		}
 		dealt += b.Count
-		if progress != nil && (bi%8 == 7 || bi == len(p.blocks)-1) {
+		if progress != nil && (bi%8 == 7 || bi == len(s.blocks)-1) {
 			progress(dealt, s.all)
 		}
 	}

@@ -279,7 +279,7 @@ func TestTiedPairsDealtLast(t *testing.T) {
 		}
 		orders := windows(p.s.sorted)
 		for i := 1; i < len(orders)-1; i++ {
-			if slices.Equal(orders[i], p.blocks) {
+			if slices.Equal(orders[i], p.s.blocks) {
 				middle++
 			}
 		}

@@ -223,7 +223,9 @@ func (s *space) box(counts []int, t int, lo, hi []int64) int {
 func (s *space) order() {
 	sorted := s.sorted
 	s.prefix = make([]int64, 1, s.n+1)
-	for _, b := range sorted {
+	starts := make([]int, len(sorted)) // the scores below each sorted block
+	for i, b := range sorted {
+		starts[i] = len(s.prefix) - 1
 		for range b.Count {
 			s.prefix = append(s.prefix, s.prefix[len(s.prefix)-1]+b.Score)
 		}
@@ -231,11 +233,7 @@ func (s *space) order() {
 	s.from = make([]int, s.n+1)
 	lo, hi, t := s.n, 0, 0
 	for _, b := range s.blocks {
-		at := sort.Search(len(sorted), func(i int) bool { return sorted[i].Score >= b.Score })
-		start := 0
-		for _, x := range sorted[:at] {
-			start += x.Count
-		}
+		start := starts[sort.Search(len(sorted), func(i int) bool { return sorted[i].Score >= b.Score })]
 		lo, hi, t = min(lo, start), max(hi, start+b.Count), t+b.Count
 		if hi-lo != t {
 			panic("exact: blocks not dealt as a growing run of the sorted scores")
