@@ -97,7 +97,11 @@ func (r *resampler) epsilon(g *random.Xoshiro) float64 {
 				if k+j == len(m) {
 					break
 				}
-				d := m[g.Bounded(half, n)]
+				prod := uint64(half) * uint64(n) // Lemire's method, written out as random.Reject asks
+				if uint32(prod) < n {
+					prod = g.Reject(prod, n)
+				}
+				d := m[prod>>32]
 				r.drawn[at] = d
 				r.counts[d]++
 				at++

@@ -121,9 +121,10 @@ func newDealer(sizes []int, scores []int64, total int64) *dealer {
 // position i takes a score drawn from positions i…N−1; the last group gets
 // what is left, so it needs no draws. Deals are made two at a time on two
 // copies of the scores, each 64-bit draw giving 32 bits to each (reduced to
-// the range by random.Bounded written out in line): the two chains of swaps
-// do not wait for each other, so the processor overlaps them. When count is
-// odd, the second deal of the last pair is made but not counted.
+// the range by Lemire's method written out, see random.Reject): the two
+// chains of swaps do not wait for each other, so the processor overlaps
+// them. When count is odd, the second deal of the last pair is made but not
+// counted.
 func (d *dealer) chunk(g *random.Xoshiro, count int, target *reach) int {
 	copy(d.a, d.scores)
 	copy(d.b, d.scores)

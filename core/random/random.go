@@ -48,31 +48,29 @@ func (g *Xoshiro) Uint64() uint64 {
 	return result
 }
 
-// Below returns a uniform integer in [0, n), 0 < n < 2³², from 32 random
-// bits, drawing again only in the rare rejected case.
-func (g *Xoshiro) Below(n uint32) uint32 {
-	return g.Bounded(uint32(g.Uint64()>>32), n)
-}
-
-// Bounded maps 32 random bits r to a uniform integer in [0, n) by Lemire's
-// method: the high half of r·n, unless the low half falls in the biased
-// sliver below 2³² mod n, where fresh bits are drawn. The common case
-// inlines.
-func (g *Xoshiro) Bounded(r, n uint32) uint32 {
-	prod := uint64(r) * uint64(n)
-	if uint32(prod) < n {
-		prod = g.Reject(prod, n)
-	}
-	return uint32(prod >> 32)
-}
-
-// Reject finishes Bounded for a product prod = r·n whose low half is below
-// n: it draws again while the low half is below 2³² mod n, and returns the
-// accepted product, whose high half is the result. Loops too hot for the
-// call to Bounded inline its first two lines and call Reject.
+// Reject finishes Lemire's method for a uniform integer in [0, n) from 32
+// random bits r: the product prod = r·n gives the high half of prod, unless
+// its low half falls in the biased sliver below 2³² mod n, where fresh bits
+// are drawn. Callers write the common case out and call Reject only when
+// the low half is below n (which holds the sliver):
+//
+//	prod := uint64(r) * uint64(n)
+//	if uint32(prod) < n {
+//		prod = g.Reject(prod, n)
+//	}
+//	x := prod >> 32
+//
+// Reject draws again while the low half is below 2³² mod n and returns the
+// accepted product. It is kept just small enough for Go to inline it, and
+// the whole method (cost 91 to Go's inliner, which takes up to 80) is not a
+// function, so that the loops that draw most (the Monte Carlo deals, the
+// bootstrap) hold no call: in WebAssembly a call inside a loop makes Go
+// store the loop's live values to memory and take them back on every turn.
+// The H test's deals ran 1.4 times as fast, the trend's 2.2 times, without
+// it (go test -bench under Node).
 func (g *Xoshiro) Reject(prod uint64, n uint32) uint64 {
 	for threshold := -n % n; uint32(prod) < threshold; {
-		prod = uint64(uint32(g.Uint64()>>32)) * uint64(n)
+		prod = (g.Uint64() >> 32) * uint64(n)
 	}
 	return prod
 }

@@ -81,7 +81,12 @@ func chunks(lists map[string][]int64) (func() montecarlo.Chunk, error) {
 			b := 0
 			for range count {
 				for i := n - 1; i > 0; i-- { // Fisher–Yates
-					j := int(g.Below(uint32(i + 1)))
+					// Lemire's method, written out as random.Reject asks
+					prod, r := (g.Uint64()>>32)*uint64(i+1), uint32(i+1)
+					if uint32(prod) < r {
+						prod = g.Reject(prod, r)
+					}
+					j := int(prod >> 32)
 					dealt[i], dealt[j] = dealt[j], dealt[i]
 				}
 				if extreme(c.doubled(dealt)) {
