@@ -56,34 +56,19 @@ func (s *space) screen(lim Limits) error {
 	if k*s.n > screenWork {
 		return &TooLargeError{fmt.Sprintf("%d groups and %d values are beyond the exact method here", k, s.n)}
 	}
-	// V(t) for every t, one group at a time: multiplying by 1 + … + x^n is
-	// a moving sum over a window of n+1 coefficients.
-	v := make([]float64, s.all+1)
-	next := make([]float64, s.all+1)
-	v[0] = 1
-	degree := 0
+	vectors := countVectors(s.sizes)
 	merged := 1.0
-	for i, n := range s.sizes {
-		degree += n
-		window := 0.0
-		for t := 0; t <= degree; t++ {
-			window += v[t]
-			if t > n {
-				window -= v[t-n-1]
-			}
-			next[t] = min(window, saturate)
-		}
-		v, next = next, v
+	for i := range s.sizes {
 		if i > 0 && s.class[i] != i {
 			merged = float64(merged * (float64(i - s.class[i] + 1)))
 		}
 	}
 	var peak, largest, total, before, deals float64
 	for _, t := range s.cuts {
-		layer := v[t] / merged
+		layer := vectors(t) / merged
 		peak, largest, total = max(peak, before+layer), max(largest, layer), total+layer
 		before = layer
-		deals += v[t] // each count vector is reached by a deal of its own, before canonical order merges it
+		deals += vectors(t) // each count vector is reached by a deal of its own, before canonical order merges it
 	}
 	if cost := float64(dealCost * k); lim.MaxWork > 0 && float64(deals*cost) > float64(lim.MaxWork) {
 		return &TooLargeError{fmt.Sprintf("at least %.2g deals of tie blocks, more than %.0f", deals, float64(lim.MaxWork)/cost)}
@@ -102,4 +87,42 @@ func (s *space) screen(lim Limits) error {
 		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
 	}
 	return nil
+}
+
+// countVectors gives V(t), the number of count vectors (c₁ … c_k), 0 ≤ cᵢ ≤
+// nᵢ, adding up to t: the coefficient of xᵗ in ∏ᵢ (1 + x + … + x^nᵢ),
+// capped at saturate. The product is built one group at a time, multiplying
+// by 1 + … + x^n being a moving sum over a window of n+1 coefficients. Each
+// factor reads the same backwards, so their product does, V(t) = V(N − t)
+// with N = Σ nᵢ: only the coefficients up to the middle are made (the
+// coefficient at t is made of those below it alone), which halves the
+// screen's time and memory (16 MB for a million values before).
+func countVectors(sizes []int) func(t int) float64 {
+	all := 0
+	for _, n := range sizes {
+		all += n
+	}
+	half := all / 2
+	v := make([]float64, half+1)
+	next := make([]float64, half+1)
+	v[0] = 1
+	degree := 0
+	for _, n := range sizes {
+		degree += n
+		window := 0.0
+		for t := 0; t <= min(degree, half); t++ {
+			window += v[t]
+			if t > n {
+				window -= v[t-n-1]
+			}
+			next[t] = min(window, saturate)
+		}
+		v, next = next, v
+	}
+	return func(t int) float64 {
+		if t > half {
+			t = all - t
+		}
+		return v[t]
+	}
 }
