@@ -3,12 +3,15 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"errors"
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"slices"
 	"strings"
 	"testing"
+	"testing/iotest"
 
 	"midrank/core"
 	"midrank/core/findings"
@@ -322,5 +325,36 @@ func TestTextShowsEveryColumn(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// TestReadInput: a file read into a buffer of its size, standard input
+// growing from a byte at a time, an empty file, and a failing reader.
+func TestReadInput(t *testing.T) {
+	text := strings.Repeat("North,12.5\nSouth,7\n", 1000) // 19,000 bytes: more than the first 4,096 of standard input
+	file := filepath.Join(t.TempDir(), "data.csv")
+	empty := filepath.Join(t.TempDir(), "empty.csv")
+	if err := os.WriteFile(file, []byte(text), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(empty, nil, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		name  string
+		stdin io.Reader
+		want  string
+	}{
+		{file, nil, text},
+		{"-", iotest.OneByteReader(strings.NewReader(text)), text},
+		{empty, nil, ""},
+	} {
+		got, err := readInput(c.name, c.stdin)
+		if err != nil || string(got) != c.want {
+			t.Errorf("%s: %d bytes (%v), want %d", c.name, len(got), err, len(c.want))
+		}
+	}
+	if _, err := readInput("-", iotest.ErrReader(errors.New("disk gone"))); err == nil || !strings.Contains(err.Error(), "cannot read the input: disk gone") {
+		t.Errorf("a failing reader: %v", err)
 	}
 }
