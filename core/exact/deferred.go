@@ -205,11 +205,20 @@ func (p *plan) finishWork(limit int) (work int, ok bool) {
 
 // finish turns the last layer into the distribution of T, dealing the
 // deferred scores into each state's room on the way (and telling progress
-// as the buckets are done).
-func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress Progress) (*Distribution, error) {
+// as the buckets are done); maxT bounds T from above.
+func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, maxT float64, progress Progress) (*Distribution, error) {
 	s := p.s
 	k := len(s.sizes)
-	mass := newTable(1024, nil) // T's probabilities: T < 2⁶² is never the empty key
+	// T's probabilities, in an array by T when T is small enough, else in a
+	// hash table (T < 2⁶² is never its empty key); each T's probability is
+	// added up in the same order either way
+	var dense []float64
+	var mass *table
+	if maxT < denseMass && maxT < float64(4*(cellsOf(last)+1024)) {
+		dense = make([]float64, int(maxT)+1)
+	} else {
+		mass = newTable(1024, nil)
+	}
 	x := make([]int64, k)
 	for j, b := range last {
 		adds := []addition{{sums: make([]int64, k), p: 1}}
@@ -226,7 +235,11 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 					v := x[i] + a.sums[i]
 					t += w * v * v
 				}
-				mass.add(uint64(t), float64(q*a.p)) // no fused multiply-add: the same bytes on every platform
+				if pt := float64(q * a.p); dense != nil { // no fused multiply-add: the same bytes on every platform
+					dense[t] += pt
+				} else {
+					mass.add(uint64(t), pt)
+				}
 			}
 		})
 		if err != nil {
@@ -236,6 +249,22 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 			progress(s.n+(s.all-s.n)*(j+1)/len(last), s.all)
 		}
 	}
+	d := &Distribution{}
+	if dense != nil { // every probability added is above 0, so the Ts reached are those above 0
+		reached := 0
+		for _, q := range dense {
+			if q != 0 {
+				reached++
+			}
+		}
+		d.Stat, d.Prob = make([]int64, 0, reached), make([]float64, 0, reached)
+		for t, q := range dense {
+			if q != 0 {
+				d.Stat, d.Prob = append(d.Stat, int64(t)), append(d.Prob, q)
+			}
+		}
+		return d, nil
+	}
 	keys := make([]uint64, 0, mass.len()) // sorted as the layers' keys are, one sort in the module
 	for _, e := range mass.slots {
 		if e.key != empty {
@@ -243,9 +272,29 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, progress
 		}
 	}
 	slices.Sort(keys)
-	d := &Distribution{Stat: make([]int64, len(keys)), Prob: make([]float64, len(keys))}
+	d.Stat, d.Prob = make([]int64, len(keys)), make([]float64, len(keys))
 	for i, t := range keys {
 		d.Stat[i], d.Prob[i] = int64(t), mass.get(t)
 	}
 	return d, nil
+}
+
+// denseMass bounds T for its probabilities to be added up in an array by T
+// (8 bytes a value of T, 16 MB at most): an array's cell costs a few times
+// less than a hash table's probe. T is also kept below four times the
+// cells of the last layer, so that small computations do not pay for
+// walking a large array. A variable so that tests can turn the arrays off.
+var denseMass = float64(1 << 21)
+
+// cellsOf counts the states of a layer's buckets.
+func cellsOf(buckets []*bucket) int {
+	n := 0
+	for _, b := range buckets {
+		if b.table != nil {
+			n += b.table.len()
+		} else {
+			n += len(b.p)
+		}
+	}
+	return n
 }

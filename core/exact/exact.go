@@ -47,6 +47,7 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"math"
 	"math/bits"
 	"sort"
 )
@@ -197,7 +198,8 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 
 // permute is Permutation with the plans chosen by rule.
 func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress, rule planRule) (*Distribution, error) {
-	if err := fits(sizes, blocks); err != nil {
+	maxT, err := fits(sizes, blocks)
+	if err != nil {
 		return nil, err
 	}
 	p, err := choose(sizes, blocks, lim, rule)
@@ -235,17 +237,20 @@ func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progr
 			progress(dealt, s.all)
 		}
 	}
-	return p.finish(ctx, cur, st, progress)
+	if blocks[0].Score < 0 { // maxT bounds T only for scores of at least 0, as Scores makes them
+		maxT = math.Inf(1)
+	}
+	return p.finish(ctx, cur, st, maxT, progress)
 }
 
-// fits refuses scores whose statistic T = Σ (L/nᵢ)·sᵢ² could exceed 2⁶²:
-// each group's sum is at most that of the nᵢ largest scores.
-func fits(sizes []int, blocks []Block) error {
+// fits refuses scores whose statistic T = Σ (L/nᵢ)·sᵢ² could exceed 2⁶²,
+// and otherwise returns that bound on T: each group's sum is at most that
+// of the nᵢ largest scores (for scores of at least 0).
+func fits(sizes []int, blocks []Block) (maxT float64, err error) {
 	l, ok := lcmOf(sizes)
 	if !ok {
-		return &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+		return 0, &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
 	}
-	var maxT float64
 	for _, n := range sizes {
 		var top float64 // the sum of the n largest scores
 		for j, left := len(blocks)-1, n; j >= 0 && left > 0; j-- {
@@ -256,9 +261,9 @@ func fits(sizes []int, blocks []Block) error {
 		maxT += float64(float64(l/int64(n)) * top * top)
 	}
 	if maxT >= 1<<62 {
-		return &TooLargeError{"the statistic would overflow 62 bits"}
+		return 0, &TooLargeError{"the statistic would overflow 62 bits"}
 	}
-	return nil
+	return maxT, nil
 }
 
 // countsOf lists how many scores each block holds.

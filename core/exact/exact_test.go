@@ -350,3 +350,34 @@ func TestWindows(t *testing.T) {
 		}
 	}
 }
+
+// TestDenseMassAsTable: T's probabilities added up in an array by T give
+// the distribution, to the last bit, that a hash table gives (each T's
+// probability is added up in the same order either way), untied, with
+// tied pairs dealt last, and with unequal sizes.
+func TestDenseMassAsTable(t *testing.T) {
+	for _, c := range []struct {
+		sizes  []int
+		blocks []Block
+	}{
+		{[]int{6, 6, 6, 6}, untied(24)},
+		{[]int{6, 6, 6, 6}, tiedPairs(24, 3, 11)},
+		{[]int{4, 5, 6}, tiedRuns(15, 3, 4)},
+		{[]int{2, 3, 7}, distinct(12, 4)},
+	} {
+		inArray, err := Permutation(context.Background(), c.sizes, c.blocks, benchLimits, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		was := denseMass
+		denseMass = 0
+		inTable, err := Permutation(context.Background(), c.sizes, c.blocks, benchLimits, nil)
+		denseMass = was
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !slices.Equal(inArray.Stat, inTable.Stat) || !slices.Equal(inArray.Prob, inTable.Prob) {
+			t.Errorf("%v %v: %d values of T in an array, %d in a table, or their probabilities differ", c.sizes, c.blocks, len(inArray.Stat), len(inTable.Stat))
+		}
+	}
+}
