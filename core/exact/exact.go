@@ -198,7 +198,7 @@ func Permutation(ctx context.Context, sizes []int, blocks []Block, lim Limits, p
 
 // permute is Permutation with the plans chosen by rule.
 func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progress Progress, rule planRule) (*Distribution, error) {
-	maxT, err := fits(sizes, blocks)
+	minT, maxT, err := fits(sizes, blocks)
 	if err != nil {
 		return nil, err
 	}
@@ -237,19 +237,26 @@ func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progr
 			progress(dealt, s.all)
 		}
 	}
-	if blocks[0].Score < 0 { // maxT bounds T only for scores of at least 0, as Scores makes them
-		maxT = math.Inf(1)
+	if blocks[0].Score < 0 { // the bounds hold only for scores of at least 0, as Scores makes them
+		minT, maxT = 0, math.Inf(1)
 	}
-	return p.finish(ctx, cur, st, maxT, progress)
+	return p.finish(ctx, cur, st, minT, maxT, progress)
 }
 
 // fits refuses scores whose statistic T = Σ (L/nᵢ)·sᵢ² could exceed 2⁶²,
-// and otherwise returns that bound on T: each group's sum is at most that
-// of the nᵢ largest scores (for scores of at least 0).
-func fits(sizes []int, blocks []Block) (maxT float64, err error) {
+// and otherwise returns bounds on T, for scores of at least 0: each group's
+// sum sᵢ is at most that of the nᵢ largest scores, and by Cauchy–Schwarz
+// T ≥ S²/Σ(nᵢ/L) = S²·L/N, S the sum of all scores (the sums in proportion
+// to the sizes), less a margin for rounding.
+func fits(sizes []int, blocks []Block) (lo, hi float64, err error) {
 	l, ok := lcmOf(sizes)
 	if !ok {
-		return 0, &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+		return 0, 0, &TooLargeError{"the sizes' least common multiple exceeds 62 bits"}
+	}
+	var all, n float64
+	for _, b := range blocks {
+		all += float64(float64(b.Count) * float64(b.Score))
+		n += float64(b.Count)
 	}
 	for _, n := range sizes {
 		var top float64 // the sum of the n largest scores
@@ -258,12 +265,13 @@ func fits(sizes []int, blocks []Block) (maxT float64, err error) {
 			top += float64(float64(c) * float64(blocks[j].Score))
 			left -= c
 		}
-		maxT += float64(float64(l/int64(n)) * top * top)
+		hi += float64(float64(l/int64(n)) * top * top)
 	}
-	if maxT >= 1<<62 {
-		return 0, &TooLargeError{"the statistic would overflow 62 bits"}
+	if hi >= 1<<62 {
+		return 0, 0, &TooLargeError{"the statistic would overflow 62 bits"}
 	}
-	return maxT, nil
+	lo = max(0, math.Floor(float64(float64(all*all)*float64(l)/n)*(1-1e-12))-1)
+	return lo, hi, nil
 }
 
 // countsOf lists how many scores each block holds.
