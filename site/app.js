@@ -265,6 +265,7 @@ $("cancel").addEventListener("click", cancel);
 $("data").addEventListener("input", () => { $("demo-note").hidden = true; keep(); reanalyseSoon(400); });
 // a changed setting counts at once; a new way of reading the text also shows its preview
 for (const f of [...fields, "measures-box"]) $(f).addEventListener("change", () => { keep(); reanalyseSoon(0); });
+$("pvalue").addEventListener("change", () => { if ($("pvalue").value === "monte-carlo") bridge.prepare(); });
 $("undo").addEventListener("click", () => undoEdit(state));
 $("reset-edits").addEventListener("click", () => editGroups(state, NO_EDITS));
 $("forget").addEventListener("click", () => {

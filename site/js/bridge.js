@@ -3,8 +3,8 @@
 // latest analysis win (a new one stops a running one), cancels by
 // terminating the worker, and answers every request with its id. A Monte
 // Carlo estimate is shared with helper workers, one for each other core,
-// started when first needed: the worker asks for a part, the bridge hands
-// it to a helper and the count back to the worker.
+// started when Monte Carlo is chosen or first needed: the worker asks for a
+// part, the bridge hands it to a helper and the count back to the worker.
 
 // LARGE_TEXT is the length, in characters (or bytes), from which a text's analysis
 // leaves the worker's memory large (about 1 million values).
@@ -66,17 +66,23 @@ export function createBridge(source, moduleBytes, on) {
     worker = w;
   }
 
+  // prepare starts the helpers, unless they run: when Monte Carlo is
+  // chosen, so that its first estimate does not wait for them to start
+  // (each holds a copy of the module's memory, so not before).
+  function prepare() {
+    if (helpers.length > 0) return;
+    for (let i = 0; i < HELPERS; i++) {
+      const helper = { worker: null, busy: null };
+      helper.worker = spawn((event) => helped(helper, event.data));
+      helper.worker.onerror = (e) => { e.preventDefault(); helped(helper, { kind: "failed", message: e.message || "a helper stopped" }); };
+      helpers.push(helper);
+    }
+  }
+
   // share hands a part of a Monte Carlo estimate to an idle helper, starting
   // the helpers when first needed; a part waits while every helper is busy.
   function share(part) {
-    if (helpers.length === 0) {
-      for (let i = 0; i < HELPERS; i++) {
-        const helper = { worker: null, busy: null };
-        helper.worker = spawn((event) => helped(helper, event.data));
-        helper.worker.onerror = (e) => { e.preventDefault(); helped(helper, { kind: "failed", message: e.message || "a helper stopped" }); };
-        helpers.push(helper);
-      }
-    }
+    prepare();
     const idle = helpers.find((h) => !h.busy);
     if (!idle) {
       queued.push(part);
@@ -200,5 +206,5 @@ export function createBridge(source, moduleBytes, on) {
   }
 
   start();
-  return { ask, analyse, cancel: restart };
+  return { ask, analyse, prepare, cancel: restart };
 }

@@ -112,19 +112,21 @@ func BenchmarkPage(b *testing.B) {
 
 // monteCarlo reports the page's Monte Carlo resamples per second, from
 // asking to results, on the workers the page starts: a first run, which
-// starts the helper workers and warms the engine's optimising tier up, is
-// logged on its own, then the median of five.
+// warms the engine's optimising tier up, is logged on its own, then the
+// median of five.
 func monteCarlo(b *testing.B, page *browser) {
 	var text strings.Builder
 	text.WriteString("unit,score\n")
 	for i := range 100 {
 		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
 	}
+	// Monte Carlo chosen as an analyst chooses it, which starts the helpers
+	if err := chromedp.Do(page.ctx, chromedp.SetValue("#data", text.String()), chromedp.SetValue("#resamples", "2000000")); err != nil {
+		b.Fatal(err)
+	}
+	page.number(b, `const p = document.getElementById("pvalue"); p.value = "monte-carlo"; p.dispatchEvent(new Event("change", { bubbles: true })); 0`)
+	time.Sleep(time.Second) // while the analyst moves to Analyse
 	run := func() float64 {
-		if err := chromedp.Do(page.ctx, chromedp.SetValue("#data", text.String()), chromedp.SetValue("#pvalue", "monte-carlo"),
-			chromedp.SetValue("#resamples", "2000000")); err != nil {
-			b.Fatal(err)
-		}
 		page.number(b, `document.getElementById("status").textContent = ""; document.getElementById("analyse").click(); 0`)
 		page.waitFor(b, `document.getElementById("status").textContent.startsWith("Done")`)
 		return 2e6 / page.number(b, `performance.getEntriesByName("midrank:analysis").at(-1).duration / 1000`)

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/chromedp/cdproto/cdp"
 	"github.com/chromedp/cdproto/emulation"
@@ -13,8 +14,9 @@ import (
 	"midrank/core"
 )
 
-// TestMonteCarloOnEveryCore: with four cores, the Monte Carlo estimates of
-// H and of the trend are each shared with three helper workers, and the
+// TestMonteCarloOnEveryCore: with four cores, the three helper workers
+// start when Monte Carlo is chosen, the Monte Carlo estimates of
+// H and of the trend are each shared with them, and the
 // page's decision (both p-values, their intervals, the seed) is the command
 // line's, which draws the same seeded chunks alone (the module's TestFarm
 // and core/trend's tests check the counts to the last bit).
@@ -34,7 +36,17 @@ func TestMonteCarloOnEveryCore(t *testing.T) {
 	for i := range 100 {
 		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
 	}
-	if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "monte-carlo"), chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5"), chromedp.SetValue("#trend", "increasing")); err != nil {
+	if n := workers(t, b); n != 1 {
+		t.Errorf("%d workers before Monte Carlo is chosen, want 1 (the helpers start only for it)", n)
+	}
+	// chosen as an analyst chooses it: the three helpers start then, before Analyse
+	b.number(t, `const p = document.getElementById("pvalue"); p.value = "monte-carlo"; p.dispatchEvent(new Event("change", { bubbles: true })); 0`)
+	for began := time.Now(); workers(t, b) != 4; time.Sleep(50 * time.Millisecond) {
+		if time.Since(began) > 10*time.Second {
+			t.Fatalf("%d workers 10 s after Monte Carlo was chosen, want 4", workers(t, b))
+		}
+	}
+	if err := chromedp.Do(b.ctx, chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5"), chromedp.SetValue("#trend", "increasing")); err != nil {
 		t.Fatal(err)
 	}
 	b.analyse(t, text.String())
@@ -52,4 +64,20 @@ func TestMonteCarloOnEveryCore(t *testing.T) {
 	if !strings.Contains(want.Decision, "Jonckheere") || want.Trend.PMethod != "monte-carlo" {
 		t.Errorf("the trend was not estimated by Monte Carlo: %+v", want.Trend)
 	}
+}
+
+// workers counts the page's Web Workers, as Chromium lists its targets.
+func workers(t *testing.T, b *browser) int {
+	t.Helper()
+	infos, err := chromedp.Targets(b.ctx)
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := 0
+	for _, info := range infos {
+		if info.Type == "worker" {
+			n++
+		}
+	}
+	return n
 }
