@@ -2,7 +2,6 @@ package browsertest
 
 import (
 	"bytes"
-	"context"
 	"fmt"
 	"os"
 	"os/exec"
@@ -13,8 +12,6 @@ import (
 	"testing"
 	"time"
 
-	"github.com/chromedp/cdproto/cdp"
-	"github.com/chromedp/cdproto/emulation"
 	"github.com/chromedp/chromedp"
 )
 
@@ -96,17 +93,7 @@ func BenchmarkPage(b *testing.B) {
 		page.number(b, `document.getElementById("held-clear")?.click(); 0`)
 	})
 	b.Run("Monte Carlo, 2,000,000 resamples of 100 values in 4 groups, one worker", func(b *testing.B) {
-		// a fresh browser told it has one core, so that the page starts no helper
-		alone := start(b)
-		one := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
-			_, err := cdp.Call(ctx, tg, emulation.SetHardwareConcurrencyOverride, emulation.SetHardwareConcurrencyOverrideParams{HardwareConcurrency: 1})
-			return err
-		})
-		if err := chromedp.Do(alone.ctx, one, chromedp.Reload()); err != nil {
-			b.Fatal(err)
-		}
-		alone.waitFor(b, `document.getElementById("status").textContent.startsWith("Done") && navigator.hardwareConcurrency === 1`)
-		monteCarlo(b, alone)
+		monteCarlo(b, withCores(b, 1)) // a fresh browser told it has one core, so that the page starts no helper
 	})
 }
 
@@ -115,13 +102,8 @@ func BenchmarkPage(b *testing.B) {
 // warms the engine's optimising tier up, is logged on its own, then the
 // median of five.
 func monteCarlo(b *testing.B, page *browser) {
-	var text strings.Builder
-	text.WriteString("unit,score\n")
-	for i := range 100 {
-		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
-	}
 	// Monte Carlo chosen as an analyst chooses it, which starts the helpers
-	if err := chromedp.Do(page.ctx, chromedp.SetValue("#data", text.String()), chromedp.SetValue("#resamples", "2000000")); err != nil {
+	if err := chromedp.Do(page.ctx, chromedp.SetValue("#data", hundredScores()), chromedp.SetValue("#resamples", "2000000")); err != nil {
 		b.Fatal(err)
 	}
 	page.number(b, `const p = document.getElementById("pvalue"); p.value = "monte-carlo"; p.dispatchEvent(new Event("change", { bubbles: true })); 0`)

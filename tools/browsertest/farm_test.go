@@ -21,21 +21,8 @@ import (
 // line's, which draws the same seeded chunks alone (the module's TestFarm
 // and core/trend's tests check the counts to the last bit).
 func TestMonteCarloOnEveryCore(t *testing.T) {
-	b := start(t)
-	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done")`)
-	four := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
-		_, err := cdp.Call(ctx, tg, emulation.SetHardwareConcurrencyOverride, emulation.SetHardwareConcurrencyOverrideParams{HardwareConcurrency: 4})
-		return err
-	})
-	if err := chromedp.Do(b.ctx, four, chromedp.Reload()); err != nil {
-		t.Fatal(err)
-	}
-	b.waitFor(t, `document.getElementById("status").textContent.startsWith("Done") && navigator.hardwareConcurrency === 4`)
-	var text strings.Builder
-	text.WriteString("unit,score\n")
-	for i := range 100 {
-		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
-	}
+	b := withCores(t, 4)
+	text := hundredScores()
 	if n := workers(t, b); n != 1 {
 		t.Errorf("%d workers before Monte Carlo is chosen, want 1 (the helpers start only for it)", n)
 	}
@@ -49,8 +36,8 @@ func TestMonteCarloOnEveryCore(t *testing.T) {
 	if err := chromedp.Do(b.ctx, chromedp.SetValue("#resamples", "200000"), chromedp.SetValue("#seed", "5"), chromedp.SetValue("#trend", "increasing")); err != nil {
 		t.Fatal(err)
 	}
-	b.analyse(t, text.String())
-	want, err := core.Analyze([]byte(text.String()), core.Options{PValue: "monte-carlo", Resamples: 200_000, Seed: new(uint64(5)), Trend: "increasing"})
+	b.analyse(t, text)
+	want, err := core.Analyze([]byte(text), core.Options{PValue: "monte-carlo", Resamples: 200_000, Seed: new(uint64(5)), Trend: "increasing"})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -80,4 +67,32 @@ func workers(t *testing.T, b *browser) int {
 		}
 	}
 	return n
+}
+
+// withCores opens the page in a fresh browser that says it has this many
+// cores, once the demo's first result is on screen.
+func withCores(tb testing.TB, cores int64) *browser {
+	tb.Helper()
+	b := start(tb)
+	b.waitFor(tb, `document.getElementById("status").textContent.startsWith("Done")`)
+	override := chromedp.Func(func(ctx context.Context, tg *chromedp.Target) error {
+		_, err := cdp.Call(ctx, tg, emulation.SetHardwareConcurrencyOverride, emulation.SetHardwareConcurrencyOverrideParams{HardwareConcurrency: cores})
+		return err
+	})
+	if err := chromedp.Do(b.ctx, override, chromedp.Reload()); err != nil {
+		tb.Fatal(err)
+	}
+	b.waitFor(tb, fmt.Sprintf(`document.getElementById("status").textContent.startsWith("Done") && navigator.hardwareConcurrency === %d`, cores))
+	return b
+}
+
+// hundredScores is a table of 100 scores in four units, for the Monte
+// Carlo estimates.
+func hundredScores() string {
+	var text strings.Builder
+	text.WriteString("unit,score\n")
+	for i := range 100 {
+		fmt.Fprintf(&text, "U%d,%d\n", i%4+1, (i*37)%23+i%4)
+	}
+	return text.String()
 }
