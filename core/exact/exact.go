@@ -38,9 +38,11 @@
 // a tie block (moves and their weights); single.go, dealing a single score,
 // the common case, specialised; table.go, the hash table for sparse buckets;
 // deferred.go, the scores of tied pairs and other even-sized tie blocks dealt
-// last, straight into the statistic, so that a few ties cost about what none
-// do; choose.go, the choice between dealing every score in place and the
-// deferred plans, and the orders the others may be dealt in.
+// last, straight into the statistic, so that a few ties cost little more
+// than none do; choose.go, the choice between dealing every score in place
+// and the deferred plans, and the orders the others may be dealt in;
+// finish.go, the last layer (and the deferred scores) turned into the
+// distribution of T.
 package exact
 
 import (
