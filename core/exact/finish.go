@@ -16,7 +16,8 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, minT, ma
 	// T's probability is added up in the same order either way
 	var dense []float64
 	var mass *table
-	if span := maxT - minT + 1; span < denseMass && span < float64(4*(p.finishes(last)+1024)) {
+	// (below 2⁵⁰ the bound on T is worked out without rounding)
+	if span := maxT - minT + 1; maxT < 1<<50 && span < denseMass && span < float64(4*(p.finishes(last)+1024)) {
 		dense = make([]float64, int(span))
 	} else {
 		mass = newTable(1024, nil)
