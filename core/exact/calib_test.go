@@ -56,7 +56,7 @@ func TestLayoutIsTight(t *testing.T) {
 		if err := s.prepare(c.blocks, c.blocks); err != nil {
 			t.Fatal(err)
 		}
-		sh := s.newShape()
+		sh := s.newShape(true)
 		planned := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }).cells
 		if planned != cells || float64(states) < 0.97*float64(cells) {
 			t.Errorf("sizes %v, %d blocks: %d cells planned, %d made, %d states reached", c.sizes, len(c.blocks), planned, cells, states)

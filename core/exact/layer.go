@@ -164,7 +164,7 @@ type layer struct {
 }
 
 func newLayer(s *space, t int) *layer {
-	return &layer{s: s, t: t, byKey: map[uint64]*bucket{}, shape: s.newShape()}
+	return &layer{s: s, t: t, byKey: map[uint64]*bucket{}, shape: s.newShape(false)}
 }
 
 // get returns the bucket for counts (in canonical order), made when new.

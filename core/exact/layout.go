@@ -2,16 +2,19 @@ package exact
 
 // shape is a dense bucket's layout as layout finds it, and its scratch.
 type shape struct {
-	lo, hi     []int64 // the box
-	first, off []int   // see bucket
-	sums       []int64
-	part       []int64    // for each set of subsets: the sum of its groups but the first
-	bound      [4][]int64 // and the least and greatest sum of its groups, then of them and group k−2
+	lo, hi      []int64 // the box
+	first, off  []int   // see bucket; not kept when counting
+	cells, rows int     // laid out so far
+	counting    bool    // only the cells and rows are wanted (planning): no row table
+	sums        []int64
+	part        []int64    // for each set of subsets: the sum of its groups but the first
+	bound       [4][]int64 // and the least and greatest sum of its groups, then of them and group k−2
 }
 
-func (s *space) newShape() *shape {
+// newShape makes the scratch of layout; counting, it keeps no row table.
+func (s *space) newShape(counting bool) *shape {
 	k := len(s.sizes)
-	sh := &shape{lo: make([]int64, k), hi: make([]int64, k), sums: make([]int64, k), part: make([]int64, len(s.subsets))}
+	sh := &shape{lo: make([]int64, k), hi: make([]int64, k), sums: make([]int64, k), part: make([]int64, len(s.subsets)), counting: counting}
 	for i := range sh.bound {
 		sh.bound[i] = make([]int64, len(s.subsets))
 	}
@@ -20,12 +23,16 @@ func (s *space) newShape() *shape {
 
 // row adds a row whose group k−2 has the sums a … b (none when a > b).
 func (sh *shape) row(a, b int64) {
-	n := sh.first[len(sh.first)-1]
-	if a > b {
-		sh.off, sh.first = append(sh.off, n), append(sh.first, n)
-		return
+	n := sh.cells
+	sh.rows++
+	if a <= b {
+		sh.cells += int(b - a + 1)
+	} else {
+		a = 0 // an empty row starts where the next one does
 	}
-	sh.off, sh.first = append(sh.off, n-int(a)), append(sh.first, n+int(b-a+1))
+	if !sh.counting {
+		sh.off, sh.first = append(sh.off, n-int(a)), append(sh.first, sh.cells)
+	}
 }
 
 // layout lays out the dense bucket with these counts after t scores are
@@ -44,7 +51,7 @@ func (s *space) layout(counts []int, t int, sh *shape) (cells, rows int) {
 	k := len(s.sizes)
 	q := k - 2 // the group whose sum runs along a row
 	lo, hi, sums, part, bound := sh.lo, sh.hi, sh.sums, sh.part, &sh.bound
-	sh.first, sh.off = append(sh.first[:0], 0), sh.off[:0]
+	sh.first, sh.off, sh.cells, sh.rows = append(sh.first[:0], 0), sh.off[:0], 0, 0
 	if s.box(counts, t, lo, hi) == 0 {
 		return 0, 0
 	}
@@ -136,5 +143,5 @@ func (s *space) layout(counts []int, t int, sh *shape) (cells, rows int) {
 			break
 		}
 	}
-	return sh.first[len(sh.off)], len(sh.off)
+	return sh.cells, sh.rows
 }

@@ -43,7 +43,7 @@ func (s *space) settle(lim Limits, fig figures) (figures, error) {
 		layable = min(layable, lim.MaxWork/rowCost)
 	}
 	if fig.rows <= layable && !fig.fit(lim) {
-		sh, boxCells := s.newShape(), fig.boxCells
+		sh, boxCells := s.newShape(true), fig.boxCells
 		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
 		fig.boxCells = boxCells
 	}
