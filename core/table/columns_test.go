@@ -92,7 +92,8 @@ func TestChosenColumns(t *testing.T) {
 
 // FuzzColumns: whatever the text and the columns chosen, Parse does not
 // panic, and a long reading's values are exactly the numbers of the chosen
-// measure column, line by line: no other column's cells leak in.
+// measure column (written with the column's unit or none), line by line:
+// no other column's cells leak in.
 func FuzzColumns(f *testing.F) {
 	f.Add([]byte("id,Diet,weight\n1,Diet 1,42\n2,Diet 1,51\n3,Diet 2,40\n"), "Diet", "weight")
 	f.Add([]byte("a;b;c\n1;2,5;x\n1;3;y\n2;NA;z\n"), "", "2")
@@ -112,11 +113,11 @@ func FuzzColumns(f *testing.F) {
 			if tab.MeasureColumn > len(cells) {
 				t.Fatalf("value %v on line %d, which has no column %d", v, tab.Lines[i], tab.MeasureColumn)
 			}
-			want, kind, form := parseCell([]byte(cells[tab.MeasureColumn-1]))
+			want, kind, form, unit := parseValue([]byte(cells[tab.MeasureColumn-1])) // a number, or one with the column's unit
 			if form.ambiguous != NoMark && tab.Thousands != form.ambiguous {
 				want /= 1000 // read as a decimal on the evidence of the whole column
 			}
-			if kind != cellNumber || want != v && !(want == 0 && v == 0) {
+			if kind != cellNumber || unit != tab.Unit && unit != "" || want != v && !(want == 0 && v == 0) {
 				t.Fatalf("value %v on line %d, but column %d holds %q", v, tab.Lines[i], tab.MeasureColumn, cells[tab.MeasureColumn-1])
 			}
 		}
