@@ -57,7 +57,7 @@ func TestLayoutIsTight(t *testing.T) {
 			t.Fatal(err)
 		}
 		sh := s.newShape(true)
-		planned := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }).cells
+		planned := s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }, nil).cells
 		if planned != cells || float64(states) < 0.97*float64(cells) {
 			t.Errorf("sizes %v, %d blocks: %d cells planned, %d made, %d states reached", c.sizes, len(c.blocks), planned, cells, states)
 		}

@@ -19,7 +19,7 @@ func (s *space) boxes(lim Limits, blocks, sorted []Block) (figures, error) {
 	if err := s.prepare(blocks, sorted); err != nil {
 		return figures{}, err
 	}
-	fig := s.plan(s.boxSize)
+	fig := s.plan(s.boxSize, nil)
 	fig.boxCells = fig.cells
 	if fig.peak >= tooMany {
 		return fig, &TooLargeError{"the states cannot be numbered in 62 bits"}
@@ -43,9 +43,12 @@ func (s *space) settle(lim Limits, fig figures) (figures, error) {
 		layable = min(layable, lim.MaxWork/rowCost)
 	}
 	if fig.rows <= layable && !fig.fit(lim) {
-		sh, boxCells := s.newShape(true), fig.boxCells
-		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }), true
-		fig.boxCells = boxCells
+		// the states of hash tables do not depend on the layout: when they
+		// are too many, laying out stops as soon as the arrays are too
+		sh, boxCells, hashed := s.newShape(true), fig.boxCells, fig.hashed
+		enough := func(f figures) bool { return hashed > 2*lim.MaxStates && f.peak > lim.MaxCells }
+		fig, laid = s.plan(func(counts []int, t int) (int, int) { return s.layout(counts, t, sh) }, enough), true
+		fig.boxCells, fig.hashed = boxCells, hashed
 	}
 	switch {
 	case fig.fit(lim):
@@ -53,7 +56,7 @@ func (s *space) settle(lim Limits, fig figures) (figures, error) {
 	case fig.peak <= lim.MaxCells:
 		return fig, &TooLargeError{fmt.Sprintf("about %d states in all, more than %d", fig.cells, lim.MaxWork)}
 	case laid && fig.hashed > 2*lim.MaxStates:
-		return fig, &TooLargeError{fmt.Sprintf("it would hold %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
+		return fig, &TooLargeError{fmt.Sprintf("it would hold at least %d MB at once, more than %d MB", fig.peak*8/1e6, lim.MaxCells*8/1e6)} // 8 bytes a cell
 	case len(s.cuts)*s.n > screenWork: // the estimate would take too long itself
 		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
 	default:
@@ -313,11 +316,15 @@ func (f figures) fit(lim Limits) bool {
 }
 
 // plan adds up size(counts, t), the cells and rows of a bucket, over the
-// buckets of each layer.
-func (s *space) plan(size func(counts []int, t int) (cells, rows int)) figures {
+// buckets of each layer; it stops after a layer when enough, if not nil,
+// says the figures so far settle the question.
+func (s *space) plan(size func(counts []int, t int) (cells, rows int), enough func(figures) bool) figures {
 	var fig figures
 	before := 0 // the room of the layer before
 	for dealt, t := range s.cuts {
+		if enough != nil && enough(fig) {
+			break
+		}
 		inLayer, layerCells, layerStates, widest := 0, 0, 0.0, 0
 		s.countVectors(t, func(counts []int) bool {
 			c, r := size(counts, t)
