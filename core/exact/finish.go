@@ -33,17 +33,17 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, minT, ma
 			for i, y := range st.sum[:k] {
 				x[i] = int64(b.counts[i])*p.base + p.g*y
 			}
+			// two loops, so that the array's holds no call (in WebAssembly a
+			// call in a loop costs every turn); no fused multiply-add in
+			// q·a.p: the same bytes on every platform
+			if dense != nil {
+				for _, a := range adds {
+					dense[statistic(s.weight, x, a.sums)-lowest] += float64(q * a.p)
+				}
+				return
+			}
 			for _, a := range adds {
-				var t int64
-				for i, w := range s.weight {
-					v := x[i] + a.sums[i]
-					t += w * v * v
-				}
-				if pt := float64(q * a.p); dense != nil { // no fused multiply-add: the same bytes on every platform
-					dense[t-lowest] += pt
-				} else {
-					mass.add(uint64(t), pt)
-				}
+				mass.add(uint64(statistic(s.weight, x, a.sums)), float64(q*a.p))
 			}
 		})
 		if err != nil {
@@ -109,4 +109,13 @@ func (p *plan) finishes(last []*bucket) int {
 		n += cells * ways
 	}
 	return n
+}
+
+// statistic is T = Σ wᵢ·(xᵢ + aᵢ)².
+func statistic(w, x, a []int64) (t int64) {
+	for i, wi := range w {
+		v := x[i] + a[i]
+		t += wi * v * v
+	}
+	return t
 }
