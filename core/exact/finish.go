@@ -14,10 +14,26 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, minT, ma
 	// T's probabilities, in an array by T − minT when T's range is small
 	// enough, else in a hash table (T < 2⁶² is never its empty key); each
 	// T's probability is added up in the same order either way
+	// each bucket's ways to deal the deferred scores (without them, one way
+	// that adds nothing), and the sums to add up: its cells times its ways
+	none := []addition{{sums: make([]int64, k), p: 1}}
+	ways := make([][]addition, len(last))
+	sums := 0
+	for j, b := range last {
+		ways[j] = none
+		if s.deferred {
+			ways[j] = p.ways[countsKey(b.counts)] // listed for every count vector of the last layer when the plan was costed
+		}
+		cells := len(b.p)
+		if b.table != nil {
+			cells = b.table.len()
+		}
+		sums += cells * len(ways[j])
+	}
 	var dense []float64
 	var mass *table
 	// (below 2⁵⁰ the bound on T is worked out without rounding)
-	if span := maxT - minT + 1; maxT < 1<<50 && span < denseMass && span < float64(4*(p.finishes(last)+1024)) {
+	if span := maxT - minT + 1; maxT < 1<<50 && span < denseMass && span < float64(4*(sums+1024)) {
 		dense = make([]float64, int(span))
 	} else {
 		mass = newTable(1024, nil)
@@ -25,10 +41,7 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, minT, ma
 	lowest := int64(minT)
 	x := make([]int64, k)
 	for j, b := range last {
-		adds := []addition{{sums: make([]int64, k), p: 1}}
-		if s.deferred {
-			adds = p.ways[countsKey(b.counts)] // listed for every count vector of the last layer when the plan was costed
-		}
+		adds := ways[j]
 		err := b.each(ctx, s.total(s.n), st.sum, func(q float64) {
 			for i, y := range st.sum[:k] {
 				x[i] = int64(b.counts[i])*p.base + p.g*y
@@ -92,24 +105,6 @@ func (p *plan) finish(ctx context.Context, last []*bucket, st *scratch, minT, ma
 // small computations do not pay for walking a large array. A variable so
 // that tests can turn the arrays off.
 var denseMass = float64(1 << 20)
-
-// finishes counts the sums finish adds up: each state of the last layer
-// with each way to deal the deferred scores into its bucket's room.
-func (p *plan) finishes(last []*bucket) int {
-	n := 0
-	for _, b := range last {
-		cells := len(b.p)
-		if b.table != nil {
-			cells = b.table.len()
-		}
-		ways := 1
-		if p.s.deferred {
-			ways = len(p.ways[countsKey(b.counts)])
-		}
-		n += cells * ways
-	}
-	return n
-}
 
 // statistic is T = Σ wᵢ·(xᵢ + aᵢ)².
 func statistic(w, x, a []int64) (t int64) {
