@@ -322,6 +322,10 @@ func TestWindows(t *testing.T) {
 			{0, 1, 2, 3, 6, 9, 10},
 			{9, 10, 6, 3, 2, 1, 0},
 		}},
+		{[]int64{0, 1, 4, 5, 6, 7}, [][]int64{ // the longest is the last
+			{0, 1, 4, 5, 6, 7},
+			{4, 5, 6, 7, 1, 0},
+		}},
 		{[]int64{0, 1, 2}, [][]int64{{0, 1, 2}}}, // no gap: one order
 	} {
 		var blocks []Block
