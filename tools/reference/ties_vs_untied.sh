@@ -40,7 +40,7 @@ run() { # run NAME FILE FLAGS...: median time and peak memory of five runs
 	local name=$1 file=$2
 	shift 2
 	if ! "$work/midrank" "$@" "$file" >"$work/out" 2>&1; then
-		printf '%-28s refused: %s\n' "$name" "$(tail -c 160 "$work/out")"
+		printf '%-28s refused: %s\n' "$name" "$(head -1 "$work/out")"
 		return
 	fi
 	local method
