@@ -198,7 +198,8 @@ func writeLeft(w *jsonlite.Writer, groups []Left) {
 }
 
 // ErrorBody is the JSON form of an error: {"error": {...}}. Line, column,
-// group, found and option are null when the error is not tied to them.
+// group, found, option and reason are null when the error is not tied to
+// them; for a setting, found is the value given.
 type ErrorBody struct {
 	Error ErrorDetail `json:"error"`
 }
@@ -213,6 +214,8 @@ type ErrorDetail struct {
 	Group    *string         `json:"group"`
 	Found    *string         `json:"found"`
 	Option   *string         `json:"option"`
+	Reason   *string         `json:"reason"`  // for a setting: what is wrong, without the setting's name and value
+	Instead  []string        `json:"instead"` // for a setting: its values that would do, if any
 	Problems []ProblemDetail `json:"problems"`
 }
 
@@ -245,7 +248,7 @@ func problemOf(te *table.Error) ProblemDetail {
 // Detail describes any error, with the place filled in for data problems
 // and the setting for *OptionError.
 func Detail(err error) ErrorDetail {
-	d := ErrorDetail{Message: err.Error(), Problems: []ProblemDetail{}}
+	d := ErrorDetail{Message: err.Error(), Instead: []string{}, Problems: []ProblemDetail{}}
 	var ps table.Problems
 	var te *table.Error
 	var oe *OptionError
@@ -261,7 +264,8 @@ func Detail(err error) ErrorDetail {
 		d.Line, d.Column, d.Group, d.Found = first.Line, first.Column, first.Group, first.Found
 		d.Problems = append(d.Problems, first)
 	case errors.As(err, &oe):
-		d.Option = &oe.Option
+		d.Option, d.Reason, d.Found = &oe.Option, &oe.Reason, &oe.Value
+		d.Instead = append(d.Instead, oe.Instead...)
 	}
 	return d
 }
@@ -281,6 +285,10 @@ func writeDetail(w *jsonlite.Writer, d ErrorDetail) {
 	writePlace(w, ProblemDetail{d.Message, d.Line, d.Column, d.Group, d.Found})
 	w.Key("option")
 	w.OptString(d.Option)
+	w.Key("reason")
+	w.OptString(d.Reason)
+	w.Key("instead")
+	w.Strings(d.Instead)
 	w.Key("problems")
 	writeProblems(w, d.Problems)
 	w.EndObject()

@@ -115,5 +115,5 @@ func choose[M ~string](option, value string) (M, error) {
 	if slices.Contains(keys, value) {
 		return M(value), nil
 	}
-	return "", &OptionError{option, value, "choose one of " + strings.Join(keys, ", ")}
+	return "", &OptionError{Option: option, Value: value, Reason: "choose one of " + strings.Join(keys, ", ")}
 }

@@ -6,6 +6,7 @@ import (
 	"maps"
 	"slices"
 	"strconv"
+	"strings"
 
 	"midrank/core/jsonlite"
 	"midrank/core/table"
@@ -93,13 +94,22 @@ func Defaults() Options {
 
 // OptionError is a setting that cannot be used.
 type OptionError struct {
-	Option string // the request key, e.g. "alpha"
-	Value  string // the value given
-	Reason string // what is wrong and what to do
+	Option  string   // the request key, e.g. "alpha"
+	Value   string   // the value given
+	Reason  string   // what is wrong (and, without Instead, what to do)
+	Instead []string // values of the same setting that would do, when there are some: the page names them by its own labels
 }
 
 func (e *OptionError) Error() string {
-	return fmt.Sprintf("%s %q: %s", e.Option, e.Value, e.Reason)
+	s := fmt.Sprintf("%s %q: %s", e.Option, e.Value, e.Reason)
+	if n := len(e.Instead); n > 0 {
+		s += "; choose " + strings.Join(e.Instead[:n-1], ", ")
+		if n > 1 {
+			s += " or "
+		}
+		s += e.Instead[n-1]
+	}
+	return s
 }
 
 // DecodeOptions reads options from JSON, refusing unknown keys so that a

@@ -77,7 +77,7 @@ func comparePairs(ctx context.Context, s settings, ranking rank.Ranking, groups 
 			for i, g := range groups {
 				labels[i] = g.InData
 			}
-			return nil, &OptionError{"reference", s.reference, "no group in the test is labelled so; choose one of " + strings.Join(labels, ", ")}
+			return nil, &OptionError{Option: "reference", Value: s.reference, Reason: "no group in the test is labelled so; choose one of " + strings.Join(labels, ", ")}
 		}
 	}
 	family := k * (k - 1) / 2

@@ -138,7 +138,8 @@ func pvalueOf(ctx context.Context, s settings, ranking rank.Ranking, pAsymptotic
 		case !errors.Is(err, exact.ErrTooLarge):
 			return pvalue{}, err
 		case method == PValueExact:
-			return pvalue{}, &OptionError{Option: "pvalue", Value: string(PValueExact), Reason: report.ExactRefused(ranking.Sizes, err)}
+			return pvalue{}, &OptionError{Option: "pvalue", Value: string(PValueExact), Reason: report.ExactRefused(ranking.Sizes, err),
+				Instead: []string{string(PValueMonteCarlo), string(PValueAuto)}}
 		}
 		choice.ExactTooLarge = true
 		method = PValueAsymptotic

@@ -44,18 +44,18 @@ func (o Options) validate() (settings, error) {
 	s := settings{alpha: o.Alpha, edits: table.Edits{Order: o.Order, Exclude: o.Exclude, Rename: o.Rename}, effectBudget: EffectBudget, listLimit: ListLimit}
 	layout, ok := table.ParseLayout(o.Layout)
 	if !ok {
-		return s, &OptionError{"layout", o.Layout, "choose auto, wide, long or counts"}
+		return s, &OptionError{Option: "layout", Value: o.Layout, Reason: "choose auto, wide, long or counts"}
 	}
 	s.read.Layout = layout
 	s.read.Group, s.read.Measure, s.read.Count = o.Group, o.Measure, o.Count
 	if len(o.Measures) > 0 && o.Measures[0] != AllMeasures {
 		if o.Measure != "" && len(o.Measures) == 1 && o.Measure != o.Measures[0] {
-			return s, &OptionError{"measures", o.Measures[0], "give the measure column once, as measure or as measures"}
+			return s, &OptionError{Option: "measures", Value: o.Measures[0], Reason: "give the measure column once, as measure or as measures"}
 		}
 		s.read.Measure = o.Measures[0] // the reading and the preview follow the first
 	}
 	if o.AdjustAcross != "" && !slices.Contains(AcrossMethods, adjust.Method(o.AdjustAcross)) {
-		return s, &OptionError{"adjust_across", o.AdjustAcross, "choose bh (Benjamini–Hochberg) or holm"}
+		return s, &OptionError{Option: "adjust_across", Value: o.AdjustAcross, Reason: "choose bh (Benjamini–Hochberg) or holm"}
 	}
 	switch o.Separator {
 	case "", "auto":
@@ -66,22 +66,22 @@ func (o Options) validate() (settings, error) {
 	case "comma":
 		s.read.Separator = ','
 	default:
-		return s, &OptionError{"separator", o.Separator, "choose auto, tab, semicolon or comma"}
+		return s, &OptionError{Option: "separator", Value: o.Separator, Reason: "choose auto, tab, semicolon or comma"}
 	}
 	if s.read.Decimal, ok = table.ParseDecimal(o.Decimal); !ok {
-		return s, &OptionError{"decimal", o.Decimal, "choose auto, point or comma"}
+		return s, &OptionError{Option: "decimal", Value: o.Decimal, Reason: "choose auto, point or comma"}
 	}
 	if s.read.Thousands, ok = table.ParseThousands(o.Thousands); !ok {
-		return s, &OptionError{"thousands", o.Thousands, "choose auto, none, comma, point, space or apostrophe"}
+		return s, &OptionError{Option: "thousands", Value: o.Thousands, Reason: "choose auto, none, comma, point, space or apostrophe"}
 	}
 	if s.read.Decimal != table.NoMark && s.read.Decimal == s.read.Thousands {
-		return s, &OptionError{"thousands", o.Thousands, "the decimal mark is the " + o.Decimal + "; choose another thousands separator, or none"}
+		return s, &OptionError{Option: "thousands", Value: o.Thousands, Reason: "the decimal mark is the " + o.Decimal + "; choose another thousands separator, or none"}
 	}
 	if s.alpha == 0 {
 		s.alpha = DefaultAlpha
 	}
 	if !(s.alpha > 0 && s.alpha < 1) {
-		return s, &OptionError{"alpha", fmt.Sprint(o.Alpha), "the significance level must lie strictly between 0 and 1, for example 0.05"}
+		return s, &OptionError{Option: "alpha", Value: fmt.Sprint(o.Alpha), Reason: "the significance level must lie strictly between 0 and 1, for example 0.05"}
 	}
 	var err error
 	if s.pvalue, err = choose[PValueMethod]("pvalue", o.PValue); err != nil {
@@ -97,9 +97,9 @@ func (o Options) validate() (settings, error) {
 	if s.reference = o.Reference; s.reference != "" {
 		switch {
 		case !s.pairs:
-			return s, &OptionError{"reference", o.Reference, "no pairs are compared (posthoc none): choose dunn, conover or mann-whitney to compare each group with it"}
+			return s, &OptionError{Option: "reference", Value: o.Reference, Reason: "no pairs are compared (posthoc none): choose dunn, conover or mann-whitney to compare each group with it"}
 		case s.posthoc.ComparesAllPairs():
-			return s, &OptionError{"reference", o.Reference, s.posthoc.Name() + " compares every pair with every other; to compare each group with one reference group choose dunn, conover or mann-whitney"}
+			return s, &OptionError{Option: "reference", Value: o.Reference, Reason: s.posthoc.Name() + " compares every pair with every other; to compare each group with one reference group choose dunn, conover or mann-whitney"}
 		}
 	}
 	if s.trend, err = choose[trend.Alternative]("trend", o.Trend); err != nil {
@@ -113,15 +113,15 @@ func (o Options) validate() (settings, error) {
 	case s.resamples == 0:
 		s.resamples = DefaultResamples
 	case s.resamples < 1 || s.resamples > MaxResamples:
-		return s, &OptionError{"resamples", fmt.Sprint(o.Resamples), fmt.Sprintf("choose a whole number from 1 to %d, for example %d", MaxResamples, DefaultResamples)}
+		return s, &OptionError{Option: "resamples", Value: fmt.Sprint(o.Resamples), Reason: fmt.Sprintf("choose a whole number from 1 to %d, for example %d", MaxResamples, DefaultResamples)}
 	}
 	if s.minGroupSize = o.MinGroupSize; s.minGroupSize < 0 || s.minGroupSize > MaxMinGroupSize {
-		return s, &OptionError{"min_group_size", fmt.Sprint(o.MinGroupSize), fmt.Sprintf("choose a whole number from 0 (no protection) to %d, for example %d", MaxMinGroupSize, protect.Suggested)}
+		return s, &OptionError{Option: "min_group_size", Value: fmt.Sprint(o.MinGroupSize), Reason: fmt.Sprintf("choose a whole number from 0 (no protection) to %d, for example %d", MaxMinGroupSize, protect.Suggested)}
 	}
 	s.seed = DefaultSeed
 	if o.Seed != nil {
 		if *o.Seed > MaxSeed {
-			return s, &OptionError{"seed", fmt.Sprint(*o.Seed), fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(MaxSeed))}
+			return s, &OptionError{Option: "seed", Value: fmt.Sprint(*o.Seed), Reason: fmt.Sprintf("a seed is a whole number from 0 to %d", uint64(MaxSeed))}
 		}
 		s.seed = *o.Seed
 	}

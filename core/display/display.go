@@ -173,3 +173,28 @@ func significant(v float64, digits int, large float64) string {
 	rounded, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'e', digits-1, 64), 64)
 	return strconv.FormatFloat(rounded, 'f', -1, 64)
 }
+
+// Rough writes a large count roughly, in words a reader takes in at once:
+// whole numbers below a million with commas (52,300), then two significant
+// digits with million, billion or trillion (8.8 million, 880 million), and
+// powers of ten beyond (3.1e+15).
+func Rough(v float64) string {
+	if v < 1e6 {
+		return Thousands(int64(math.Round(v)))
+	}
+	for _, unit := range []struct {
+		size float64
+		name string
+	}{{1e12, "trillion"}, {1e9, "billion"}, {1e6, "million"}} {
+		if r := roundSignificant(v/unit.size, 2); r >= 1 && r < 1000 {
+			return strconv.FormatFloat(r, 'f', -1, 64) + " " + unit.name
+		}
+	}
+	return strconv.FormatFloat(v, 'g', 2, 64)
+}
+
+// roundSignificant rounds v to the given significant digits.
+func roundSignificant(v float64, digits int) float64 {
+	r, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', digits, 64), 64)
+	return r
+}

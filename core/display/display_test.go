@@ -56,3 +56,26 @@ func TestShow(t *testing.T) {
 		}
 	}
 }
+
+func TestRough(t *testing.T) {
+	for _, c := range []struct {
+		v    float64
+		want string
+	}{
+		{0, "0"},
+		{52300, "52,300"},
+		{999_499, "999,499"},
+		{999_999, "999,999"},
+		{1_049_999, "1 million"},
+		{4e6, "4 million"},
+		{8.8e8, "880 million"},
+		{8.849e8, "880 million"},
+		{1.23e9, "1.2 billion"},
+		{999.6e9, "1 trillion"},
+		{3.1e15, "3.1e+15"},
+	} {
+		if got := Rough(c.v); got != c.want {
+			t.Errorf("Rough(%g) = %q, want %q", c.v, got, c.want)
+		}
+	}
+}

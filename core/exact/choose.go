@@ -1,6 +1,6 @@
 package exact
 
-import "fmt"
+import "midrank/core/display"
 
 // plan is one way to run a computation: the space of its layers (which
 // holds the scores dealt in them, in order, on their own scale) and the
@@ -183,7 +183,7 @@ func (p *plan) settle(lim Limits) (err error) {
 	}
 	p.fig.cells = min(p.fig.cells+p.work, tooMany)
 	if lim.MaxWork > 0 && p.fig.cells > lim.MaxWork {
-		return &TooLargeError{fmt.Sprintf("about %d states and deals in all, more than %d", p.fig.cells, lim.MaxWork)}
+		return &TooLargeError{"about " + display.Rough(float64(p.fig.cells)) + " states and deals in all, where " + display.Rough(float64(lim.MaxWork)) + " fit"}
 	}
 	return nil
 }

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 
+	"midrank/core/display"
 	"midrank/core/dist"
 )
 
@@ -142,11 +143,11 @@ func (s *space) deal(ctx context.Context, from *bucket, b Block, dealt int, st *
 		k := len(s.sizes)
 		return s.moves(from, b, st, next, func(moves []move) error {
 			if next.reached > s.maxStates {
-				return &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", s.maxStates, dealt, s.n)}
+				return &TooLargeError{fmt.Sprintf("more than %s states after %d of %d values", display.Rough(float64(s.maxStates)), dealt, s.n)}
 			}
 			// a hash table's work is its states times their moves: bounded as it goes
 			if s.work += hashCost * len(moves) * from.states(); s.maxWork > 0 && s.work > s.maxWork {
-				return &TooLargeError{fmt.Sprintf("more than %d moves of states after %d of %d observations", s.maxWork/hashCost, dealt, s.n)}
+				return &TooLargeError{fmt.Sprintf("more than %s moves of states after %d of %d values", display.Rough(float64(s.maxWork/hashCost)), dealt, s.n)}
 			}
 			for _, mv := range moves {
 				err := from.each(ctx, total, st.sum, func(p float64) {

@@ -52,6 +52,8 @@ import (
 	"math"
 	"math/bits"
 	"sort"
+
+	"midrank/core/display"
 )
 
 // Block is a run of equal scores.
@@ -227,7 +229,7 @@ func permute(ctx context.Context, sizes []int, blocks []Block, lim Limits, progr
 			}
 			from.p, from.table = nil, nil // free it as soon as it is used
 			if !s.dense && next.reached > lim.MaxStates {
-				return nil, &TooLargeError{fmt.Sprintf("more than %d states after %d of %d observations", lim.MaxStates, dealt, s.all)}
+				return nil, &TooLargeError{fmt.Sprintf("more than %s states after %d of %d values", display.Rough(float64(lim.MaxStates)), dealt, s.all)}
 			}
 		}
 		cur = next.list()

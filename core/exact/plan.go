@@ -6,6 +6,7 @@ import (
 	"slices"
 	"sort"
 
+	"midrank/core/display"
 	"midrank/core/dist"
 )
 
@@ -61,7 +62,7 @@ func (s *space) settle(lim Limits, fig figures) (figures, error) {
 		return fig, &TooLargeError{fmt.Sprintf("%d values in %d tie blocks are beyond hash tables here", s.n, len(s.cuts))}
 	default:
 		if est := EstimateStates(s.sizes, s.sorted); est > float64(20*float64(lim.MaxStates)) {
-			return fig, &TooLargeError{fmt.Sprintf("about %.2g states, more than %d", est, lim.MaxStates)}
+			return fig, &TooLargeError{"about " + display.Rough(est) + " states, where " + display.Rough(float64(lim.MaxStates)) + " fit"}
 		}
 	}
 	return fig, nil

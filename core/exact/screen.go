@@ -1,6 +1,10 @@
 package exact
 
-import "fmt"
+import (
+	"fmt"
+
+	"midrank/core/display"
+)
 
 // screenWork bounds the work of the screen itself, k·N additions: beyond it
 // (say 10,000 groups, or 50 groups of 20,000 values) the exact method is out
@@ -71,7 +75,7 @@ func (s *space) screen(lim Limits) error {
 		deals += vectors(t) // each count vector is reached by a deal of its own, before canonical order merges it
 	}
 	if cost := float64(dealCost * k); lim.MaxWork > 0 && float64(deals*cost) > float64(lim.MaxWork) {
-		return &TooLargeError{fmt.Sprintf("at least %.2g deals of tie blocks, more than %.0f", deals, float64(lim.MaxWork)/cost)}
+		return &TooLargeError{"at least " + display.Rough(deals) + " deals of tie blocks, where " + display.Rough(float64(lim.MaxWork)/cost) + " fit"}
 	}
 	room := float64(1 + s.bucketRoom) // a bucket of arrays: at least a cell, and its own room
 	walk := float64(planBuckets)
@@ -79,12 +83,12 @@ func (s *space) screen(lim Limits) error {
 		walk = min(walk, float64(lim.MaxWork)/bucketCost)
 	}
 	if total > walk {
-		return &TooLargeError{fmt.Sprintf("at least %.2g states in all, more than %.0f", total, walk)}
+		return &TooLargeError{"at least " + display.Rough(total) + " states in all, where " + display.Rough(walk) + " fit"}
 	}
 	arrays := float64(peak*room) <= float64(lim.MaxCells) && (lim.MaxWork == 0 || total <= float64(lim.MaxWork))
 	tables := float64(largest*(1+hashBucket)) <= float64(2*float64(lim.MaxStates)) && (lim.MaxWork == 0 || float64(total*hashCost) <= float64(lim.MaxWork))
 	if !arrays && !tables {
-		return &TooLargeError{fmt.Sprintf("at least %.2g states in the largest layer and %.2g in all, beyond the budget", largest, total)}
+		return &TooLargeError{"at least " + display.Rough(largest) + " states in the largest layer and " + display.Rough(total) + " in all"}
 	}
 	return nil
 }

@@ -45,5 +45,5 @@ func ExampleScreen() {
 	fmt.Println(Screen(slices.Repeat([]int{200_000}, 5), slices.Repeat([]int{500}, 2000), lim))
 	// Output:
 	// <nil>
-	// the exact distribution is too large to compute here: at least 6.4e+23 deals of tie blocks, more than 20000000
+	// the exact distribution is too large to compute here: at least 6.4e+23 deals of tie blocks, where 20 million fit
 }

@@ -60,9 +60,9 @@ func MethodReason(c Choice) string {
 const exactTooLarge = "the exact distribution is too large to compute here"
 
 // ExactRefused is the reason an explicit request for the exact p-value is
-// refused: what the budget found, and what to ask for instead.
+// refused: what the budget found.
 func ExactRefused(sizes []int, why error) string {
-	return fmt.Sprintf("the exact distribution for groups of %s is beyond the budget of this tool (%v); use monte-carlo, or auto", Sizes(sizes), why)
+	return fmt.Sprintf("the exact distribution for groups of %s is beyond the budget of this tool (%v)", Sizes(sizes), why)
 }
 
 // dealCount is N!/∏nᵢ! in words-friendly digits ("34,650" or "5.6e+12").

@@ -22,9 +22,21 @@ export function setStatus(text) {
 // showProblem shows an error of the module ({message}) above the results.
 export function showProblem(error) {
   const p = $("problem");
-  p.textContent = error.message;
+  p.textContent = error.option && error.reason != null ? settingProblem(error) : error.message;
   p.hidden = false;
   setStatus("The data could not be analysed.");
+}
+
+// settingProblem says which setting cannot be used as the form names it
+// (its label, the choice's words), and which choices would do instead.
+function settingProblem(error) {
+  const control = document.getElementById(error.option);
+  if (!(control instanceof HTMLSelectElement || control instanceof HTMLInputElement)) return error.message;
+  const name = control.closest("label")?.firstChild?.textContent.trim() || error.option;
+  const words = (value) => [...(control.options ?? [])].find((o) => o.value === value)?.textContent ?? value;
+  const instead = error.instead ?? [];
+  return `${name} “${words(error.found ?? control.value)}”: ${error.reason}` +
+    (instead.length ? `. Choose ${instead.map((v) => "“" + words(v) + "”").join(" or ")} instead.` : "");
 }
 
 // download saves text as a file made in the page: a Blob and a link.

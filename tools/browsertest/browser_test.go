@@ -887,6 +887,34 @@ func TestPage(t *testing.T) {
 		}
 	})
 
+	t.Run("an exact p beyond the budget is refused in the form's own words", func(t *testing.T) {
+		var data strings.Builder
+		data.WriteString("A,B,C,D\n")
+		for i := range 15 { // four groups of 15 untied values
+			fmt.Fprintf(&data, "%d,%d,%d,%d\n", 4*i+1, 4*i+2, 4*i+3, 4*i+4)
+		}
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "exact")); err != nil {
+			t.Fatal(err)
+		}
+		b.analyse(t, data.String())
+		got := b.text(t, "#problem")
+		for _, want := range []string{`p-value “exact permutation”: the exact distribution for groups of 15, 15, 15 and 15 is beyond the budget`, `Choose “Monte Carlo” or “choose for me” instead.`} {
+			if !strings.Contains(got, want) {
+				t.Errorf("problem shown as %q, want %q", got, want)
+			}
+		}
+		if strings.Contains(got, "monte-carlo") || strings.Contains(got, `pvalue "exact"`) {
+			t.Errorf("problem shown as %q, in the command line's words", got)
+		}
+		if hidden, _ := chromedp.Run(b.ctx, chromedp.Evaluate[bool](`document.getElementById("results").hidden`)); !hidden {
+			t.Error("results stay on screen beside data they are not from")
+		}
+		b.screenshot(t, "midrank-refused.png")
+		if err := chromedp.Do(b.ctx, chromedp.SetValue("#pvalue", "auto")); err != nil {
+			t.Fatal(err)
+		}
+	})
+
 	t.Run("every unreadable cell is marked in the preview", func(t *testing.T) {
 		b.analyse(t, "A,B,C\n1,2,3\n4,five,6\nx,5,6\n")
 		marked, err := chromedp.Run(b.ctx, chromedp.Evaluate[[]string](
